@@ -1,0 +1,12 @@
+using System.CommandLine;
+
+namespace WaveCheck.Cli.Commands;
+
+/// <summary>Every sub-command, in the order `--help` lists them. Add one line per command.</summary>
+internal static class CommandList
+{
+    public static IEnumerable<Command> All()
+    {
+        yield break;
+    }
+}

@@ -1,0 +1,3 @@
+using WaveCheck.Cli;
+
+return WaveCheckCommand.Run(args);

@@ -1,0 +1,53 @@
+namespace WaveCheck.Core.Assessment;
+
+/// <summary>
+/// Residual-current device types of the IEC 60755 family, in order of capability: each type detects
+/// everything the types before it detect (IEC 60364-5-53:2015 §531.3.3).
+/// </summary>
+public enum DeviceType
+{
+    /// <summary>Type AC: sinusoidal AC residual current only.</summary>
+    AC = 0,
+
+    /// <summary>Type A: as AC, plus pulsating DC, with up to 6 mA smooth DC superimposed.</summary>
+    A = 1,
+
+    /// <summary>Type F: as A, plus composite residual current of single-phase frequency converters; 10 mA smooth DC.</summary>
+    F = 2,
+
+    /// <summary>Type B: as F, plus smooth DC, multi-phase rectified current, AC up to 1 kHz (IEC 62423).</summary>
+    B = 3,
+
+    /// <summary>Extended-frequency type B (national designation B+, DIN VDE 0664-400): tripping defined up to 20 kHz.</summary>
+    BPlus = 4,
+}
+
+/// <summary>Names of device types as the trade writes them.</summary>
+public static class DeviceTypeNames
+{
+    /// <summary>The trade's name: <c>AC</c>, <c>A</c>, <c>F</c>, <c>B</c>, <c>B+</c>.</summary>
+    public static string ToTradeName(this DeviceType type) => type switch
+    {
+        DeviceType.AC => "AC",
+        DeviceType.A => "A",
+        DeviceType.F => "F",
+        DeviceType.B => "B",
+        DeviceType.BPlus => "B+",
+        _ => throw new ArgumentOutOfRangeException(nameof(type), type, "unknown device type"),
+    };
+
+    /// <summary>Parses <c>AC</c>, <c>A</c>, <c>F</c>, <c>B</c>, <c>B+</c> (case-insensitive; <c>Bplus</c> also accepted).</summary>
+    /// <returns>False when the text is none of these.</returns>
+    public static bool TryParse(string? text, out DeviceType type)
+    {
+        switch (text?.Trim().ToUpperInvariant())
+        {
+            case "AC": type = DeviceType.AC; return true;
+            case "A": type = DeviceType.A; return true;
+            case "F": type = DeviceType.F; return true;
+            case "B": type = DeviceType.B; return true;
+            case "B+" or "BPLUS" or "B-PLUS": type = DeviceType.BPlus; return true;
+            default: type = DeviceType.AC; return false;
+        }
+    }
+}

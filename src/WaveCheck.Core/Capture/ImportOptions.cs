@@ -1,0 +1,35 @@
+namespace WaveCheck.Core.Capture;
+
+/// <summary>
+/// How to interpret a capture: the user's statements about calibration, channels and sensor, parsed at the edge.
+/// Every value in SI units.
+/// </summary>
+public sealed record ImportOptions
+{
+    /// <summary>Amperes that full scale (1.0) of a WAV sample stands for (<c>--scale</c>).</summary>
+    public double? ScaleA { get; init; }
+
+    /// <summary>Clamp sensitivity, volts per ampere (<c>--sensitivity "10 mV/mA"</c> = 10 V/A).</summary>
+    public double? SensitivityVPerA { get; init; }
+
+    /// <summary>Logger input range, volts at full scale (<c>--range "1 V"</c>).</summary>
+    public double? RangeV { get; init; }
+
+    /// <summary>Sample rate for a CSV without a time column, hertz (<c>--rate</c>).</summary>
+    public double? RateHz { get; init; }
+
+    /// <summary>Channel that carries the residual current (<c>--channel</c>), by name (case-insensitive) or 1-based number.</summary>
+    public string? Channel { get; init; }
+
+    /// <summary>Channels summed to form the residual current (<c>--sum L1,L2,L3,N</c>).</summary>
+    public IReadOnlyList<string>? SumChannels { get; init; }
+
+    /// <summary>Declared sensor coupling (<c>--sensor</c>).</summary>
+    public SensorCoupling Sensor { get; init; } = SensorCoupling.Unknown;
+
+    /// <summary>Highest frequency the user cares about, hertz: a sample rate below twice this is warned about. Default 20 kHz (extended-frequency type B).</summary>
+    public double BandOfInterestHz { get; init; } = 20_000;
+
+    /// <summary>COMTRADE: deliver primary values (<c>--primary</c>) instead of secondary.</summary>
+    public bool Primary { get; init; }
+}

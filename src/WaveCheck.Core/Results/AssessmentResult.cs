@@ -1,0 +1,133 @@
+namespace WaveCheck.Core.Results;
+
+/// <summary>
+/// The verdict on a capture: which device type it demands, how each type fares, margins for the installed device.
+/// Serialised under <c>assessment</c> in the analysis JSON.
+/// </summary>
+public sealed record AssessmentResult
+{
+    /// <summary>Least capable type that covers the waveform: <c>AC</c>, <c>A</c>, <c>F</c>, <c>B</c>, <c>B+</c>;
+    /// null when it cannot be determined from this capture.</summary>
+    public required string? RequiredType { get; init; }
+
+    /// <summary>Lowest type that may be required once what the capture could not show is measured (e.g. with a DC-coupled sensor).
+    /// Equals <see cref="RequiredType"/> when everything was determinable.</summary>
+    public required string MinimumType { get; init; }
+
+    /// <summary>The one-line deciding reason, for the top of the output.</summary>
+    public required string Headline { get; init; }
+
+    /// <summary>Rated residual operating current IΔn of the device assessed, amperes.</summary>
+    public required double RatedResidualCurrentA { get; init; }
+
+    /// <summary>Installed type as given by <c>--device</c>; null when not given.</summary>
+    public string? InstalledType { get; init; }
+
+    /// <summary>Installed type adequate (true), not adequate (false), not determinable (null); null also when none given.</summary>
+    public bool? InstalledAdequate { get; init; }
+
+    /// <summary><c>iec</c> or <c>na</c>.</summary>
+    public required string Regime { get; init; }
+
+    /// <summary>A verdict for every type AC, A, F, B, B+.</summary>
+    public required IReadOnlyList<TypeVerdict> Types { get; init; }
+
+    /// <summary>Nuisance-tripping margin for the installed (or required) type.</summary>
+    public required NuisanceTripResult NuisanceTrip { get; init; }
+
+    /// <summary>Smooth-DC blinding of the installed (or required) type.</summary>
+    public required BlindingResult Blinding { get; init; }
+
+    /// <summary>EV charging point guidance (IEC 60364-7-722, IEC 62955 RDC-DD).</summary>
+    public required EvChargingResult EvCharging { get; init; }
+
+    /// <summary>UL 943 GFCI figures, filled when <see cref="Regime"/> is <c>na</c>.</summary>
+    public GfciResult? Gfci { get; init; }
+
+    /// <summary>Touch-current figures compared with common limits; null when not computed.</summary>
+    public TouchCurrentAssessment? TouchCurrent { get; init; }
+
+    /// <summary>Cautions that go with every verdict (verify on site, local codes, maker's data, licensed people),
+    /// then the capture's own limitations with what to measure instead.</summary>
+    public required IReadOnlyList<string> Cautions { get; init; }
+
+    /// <summary>Every threshold used, with its value and source, as applied (after user overrides).</summary>
+    public required IReadOnlyList<ThresholdUse> Thresholds { get; init; }
+}
+
+/// <summary>One type's verdict.</summary>
+/// <param name="Type">Trade name.</param>
+/// <param name="Suitable">True suitable, false not suitable, null cannot be determined.</param>
+/// <param name="Reasons">Each quotes the measured figure, the limit and its source.</param>
+public sealed record TypeVerdict(string Type, bool? Suitable, IReadOnlyList<string> Reasons);
+
+/// <summary>A threshold as applied.</summary>
+/// <param name="Name">Its name in docs/methods.md (e.g. <c>dcSignificanceA</c>).</param>
+/// <param name="Value">Value in SI units.</param>
+/// <param name="Unit">SI unit of <paramref name="Value"/> (<c>A</c>, <c>Hz</c>, <c>1</c>).</param>
+/// <param name="Source">Standard and clause, or "engineering choice: ...", and "(overridden)" when the user changed it.</param>
+public sealed record ThresholdUse(string Name, double Value, string Unit, string Source);
+
+/// <summary>Nuisance tripping: standing residual current against the non-operating limit and the leakage budget.</summary>
+/// <param name="Risk"><c>low</c>, <c>possible</c> or <c>likely</c>.</param>
+/// <param name="DeviceType">Type the margin is computed for.</param>
+/// <param name="StandingA">Frequency-weighted standing residual current (worst window), amperes: the current a device of that type responds to as if it were at mains frequency.</param>
+/// <param name="NonOperatingLimitA">0.5 IΔn, amperes.</param>
+/// <param name="MarginA">Limit minus standing current, amperes (negative: above the limit).</param>
+/// <param name="MarginPercent">Margin as a share of the limit, per cent.</param>
+/// <param name="LeakageBudgetA">0.3 IΔn, amperes.</param>
+/// <param name="WithinLeakageBudget">Standing current within 0.3 IΔn.</param>
+/// <param name="Contributions">Per frequency range: measured RMS, the type's tripping factor, weighted RMS.</param>
+/// <param name="Explanation">For a person.</param>
+public sealed record NuisanceTripResult(string Risk, string DeviceType, double StandingA, double NonOperatingLimitA,
+    double MarginA, double MarginPercent, double LeakageBudgetA, bool WithinLeakageBudget,
+    IReadOnlyList<FrequencyContribution> Contributions, string Explanation);
+
+/// <summary>A frequency range's share of the standing residual current.</summary>
+/// <param name="Label">E.g. <c>DC</c>, <c>below mains</c>, <c>mains</c>, <c>harmonics to 1 kHz</c>, <c>1-20 kHz</c>.</param>
+/// <param name="LowHz">Lower edge, hertz.</param>
+/// <param name="HighHz">Upper edge, hertz.</param>
+/// <param name="RmsA">Measured RMS in the range (worst window), amperes.</param>
+/// <param name="TripFactor">Multiple of the mains-frequency tripping current at which the type trips in this range (1 at mains; greater: less sensitive; infinity: does not respond).</param>
+/// <param name="WeightedRmsA">RmsA / TripFactor, amperes.</param>
+public sealed record FrequencyContribution(string Label, double LowHz, double HighHz, double RmsA, double TripFactor,
+    double WeightedRmsA);
+
+/// <summary>Smooth DC beyond what a type tolerates: the device may not trip on a real fault.</summary>
+/// <param name="DeviceType">Type assessed.</param>
+/// <param name="SmoothDcA">Worst-window smooth DC magnitude, amperes.</param>
+/// <param name="ToleranceA">What the type is specified to work with (6 mA A, 10 mA F; B: max of 0.4 IΔn and 10 mA), amperes; null for AC (none).</param>
+/// <param name="Blinded">True: the DC exceeds the tolerance; null: DC not determinable with this sensor.</param>
+/// <param name="Explanation">For a person.</param>
+public sealed record BlindingResult(string DeviceType, double SmoothDcA, double? ToleranceA, bool? Blinded, string Explanation);
+
+/// <summary>EV charging point guidance.</summary>
+/// <param name="RdcDdThresholdA">6 mA smooth DC (IEC 62955), amperes.</param>
+/// <param name="SmoothDcA">Worst-window smooth DC magnitude, amperes.</param>
+/// <param name="DcAboveRdcDdThreshold">True above 6 mA; null when DC not determinable.</param>
+/// <param name="Recommendation">The choice per IEC 60364-7-722: type A + RDC-DD, or type B.</param>
+public sealed record EvChargingResult(double RdcDdThresholdA, double SmoothDcA, bool? DcAboveRdcDdThreshold, string Recommendation);
+
+/// <summary>UL 943 figures.</summary>
+/// <param name="StandingRmsA">Standing residual RMS (worst window), amperes.</param>
+/// <param name="ClassATripsAlone">Standing current alone reaches the Class A must-trip level (6 mA): true; below the must-not-trip level (4 mA): false; between: null (may trip).</param>
+/// <param name="ClassATripTimeS">T = (20/I)^1.43 s at the standing level (I in mA, 6 to 264 mA); null below 6 mA.</param>
+/// <param name="SpecialPurposeTripsAlone">Against the special-purpose (UL 943C, classes C/D/E) 20 mA level; null between 15 and 20 mA.</param>
+/// <param name="SpecialPurposeTripTimeS">Same formula at the standing level for ≥ 20 mA; null below.</param>
+/// <param name="Notes">For a person (e.g. UL 943 states no DC sensitivity requirement).</param>
+public sealed record GfciResult(double StandingRmsA, bool? ClassATripsAlone, double? ClassATripTimeS,
+    bool? SpecialPurposeTripsAlone, double? SpecialPurposeTripTimeS, IReadOnlyList<string> Notes);
+
+/// <summary>Touch-current readings with common limits for comparison.</summary>
+/// <param name="Readings">The IEC 60990 readings.</param>
+/// <param name="Comparisons">Each: limit name, limit value, reading compared, within.</param>
+public sealed record TouchCurrentAssessment(TouchCurrentResult Readings, IReadOnlyList<LimitComparison> Comparisons);
+
+/// <summary>A reading against a published limit.</summary>
+/// <param name="Limit">E.g. <c>IEC 62368-1 ES1, 0.707 mA peak</c>.</param>
+/// <param name="LimitA">Limit, amperes.</param>
+/// <param name="Reading">Which reading (<c>perception peak</c>, <c>DC</c>, ...).</param>
+/// <param name="ValueA">Reading, amperes.</param>
+/// <param name="Within">Reading at or below the limit.</param>
+/// <param name="Source">Where the limit comes from, with its status (std / from memory).</param>
+public sealed record LimitComparison(string Limit, double LimitA, string Reading, double ValueA, bool Within, string Source);
