@@ -1,0 +1,519 @@
+using System.Buffers;
+using System.Globalization;
+
+namespace WaveCheck.Core.Capture.Comtrade;
+
+/// <summary>
+/// A COMTRADE record (IEEE C37.111-1991/-1999/-2013, IEC 60255-24:2013) opened for streaming: a .cfg with its .dat,
+/// or a single .cff. Each analog channel is delivered as <c>a·x + b</c> in SI units (A or V), secondary values
+/// unless <see cref="ImportOptions.Primary"/> asks for primary; the residual current is one channel or a sum.
+/// Not thread-safe.
+/// </summary>
+/// <remarks>
+/// Where the cfg has several sample-rate sections, only the longest (in seconds; on a tie the faster) is delivered,
+/// with a <c>rate-sections</c> warning: one block carries one rate, and resampling would either invent bandwidth the
+/// slow section never had or throw away what the fast section recorded. A missing value is replaced by the channel's
+/// previous value (0 before the first) and counted in a <c>missing-values</c> warning.
+/// </remarks>
+public sealed class ComtradeCaptureSource : ICaptureSource
+{
+    private const int RateProbeFrames = 65536;
+
+    private static readonly HashSet<string> ResidualWords = new(StringComparer.OrdinalIgnoreCase)
+    {
+        "N", "IN", "E", "IE", "3I0", "3IO", "I0", "IRES", "RES", "RESIDUAL", "EARTH", "NEUTRAL", "IEARTH", "INEUTRAL",
+    };
+
+    private readonly ComtradeDataReader _reader;
+    private readonly List<CaptureWarning> _warnings;
+    private readonly double[] _scale;
+    private readonly double[] _offset;
+    private readonly double[] _held;
+    private readonly int[] _residual;
+    private readonly double[] _residualWeight;
+    private readonly long _missingBefore;
+    private long _delivered;
+    private long _missing;
+    private long _firstMissing = -1;
+    private int _firstMissingChannel;
+    private bool _finished;
+
+    private ComtradeCaptureSource(ComtradeConfig config, ComtradeDataReader reader, CaptureInfo info,
+        List<CaptureWarning> warnings, double[] scale, double[] offset, int[] residual, double[] residualWeight)
+    {
+        Config = config;
+        _reader = reader;
+        Info = info;
+        _warnings = warnings;
+        _scale = scale;
+        _offset = offset;
+        _held = new double[scale.Length];
+        _residual = residual;
+        _residualWeight = residualWeight;
+        _missingBefore = reader.Position;
+    }
+
+    /// <summary>The parsed configuration.</summary>
+    public ComtradeConfig Config { get; }
+
+    /// <inheritdoc />
+    public CaptureInfo Info { get; }
+
+    /// <inheritdoc />
+    public IReadOnlyList<CaptureWarning> Warnings => _warnings;
+
+    /// <summary>Opens a COMTRADE record for streaming.</summary>
+    /// <param name="path">A .cfg (its .dat or .DAT beside it) or a .cff.</param>
+    /// <param name="options">Channel choice, primary/secondary, sensitivity for a voltage channel, sensor coupling.</param>
+    /// <returns>A source positioned at the first sample of the delivered rate section; the caller disposes it.</returns>
+    /// <exception cref="CaptureFormatException">Missing files, a cfg line that does not parse (line and field),
+    /// a data file shorter than the cfg says, a voltage channel without a sensitivity.</exception>
+    /// <exception cref="OptionValueException">A channel named in the options is not in the cfg.</exception>
+    public static ICaptureSource Open(string path, ImportOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        ArgumentNullException.ThrowIfNull(options);
+        if (!File.Exists(path))
+        {
+            throw new CaptureFormatException(path, "no such file");
+        }
+
+        var container = ComtradeContainer.Locate(path);
+        var warnings = new List<CaptureWarning>();
+        var config = ComtradeConfigParser.Parse(container.CfgPath, container.CfgLines, container.CfgFirstLine, warnings);
+        if (config.Analog.Count == 0)
+        {
+            throw new CaptureFormatException(path, "the cfg has no analog channels: there is no current to analyse");
+        }
+
+        var reader = OpenReader(container, config);
+        try
+        {
+            return Build(container, config, reader, options, warnings);
+        }
+        catch
+        {
+            reader.Dispose();
+            throw;
+        }
+    }
+
+    /// <inheritdoc />
+    public CaptureBlock CreateBlock(int capacity = 65536) => new(Config.Analog.Count, capacity, Info.SampleRateHz);
+
+    /// <inheritdoc />
+    public bool Read(CaptureBlock block)
+    {
+        ArgumentNullException.ThrowIfNull(block);
+        var analogCount = Config.Analog.Count;
+        var wanted = (int)Math.Min(block.Capacity, Info.SampleCount - _delivered);
+        block.StartSample = _delivered;
+        block.Length = 0;
+        if (wanted <= 0)
+        {
+            Finish();
+            return false;
+        }
+
+        var raw = ArrayPool<double>.Shared.Rent(wanted * analogCount);
+        var stamps = ArrayPool<long>.Shared.Rent(wanted);
+        try
+        {
+            var got = _reader.Read(raw, stamps, wanted);
+            if (got < wanted)
+            {
+                throw new CaptureFormatException(_reader.FilePath,
+                    $"the data ends after {_reader.Position} samples at {_reader.Place}; the cfg says {Config.TotalSamples}",
+                    sampleIndex: _reader.Position);
+            }
+
+            Calibrate(raw.AsSpan(0, got * analogCount), block, got);
+        }
+        finally
+        {
+            ArrayPool<double>.Shared.Return(raw);
+            ArrayPool<long>.Shared.Return(stamps);
+        }
+
+        block.Length = wanted;
+        _delivered += wanted;
+        if (_delivered == Info.SampleCount)
+        {
+            Finish();
+        }
+
+        return true;
+    }
+
+    /// <inheritdoc />
+    public void Dispose() => _reader.Dispose();
+
+    private void Calibrate(ReadOnlySpan<double> raw, CaptureBlock block, int frames)
+    {
+        var analogCount = _scale.Length;
+        for (var c = 0; c < analogCount; c++)
+        {
+            var output = block.ChannelBuffer(c);
+            double scale = _scale[c], offset = _offset[c], held = _held[c];
+            for (var i = 0; i < frames; i++)
+            {
+                var x = raw[(i * analogCount) + c];
+                if (double.IsNaN(x))
+                {
+                    NoteMissing(i, c);
+                    output[i] = held;
+                    continue;
+                }
+
+                held = (x * scale) + offset;
+                output[i] = held;
+            }
+
+            _held[c] = held;
+        }
+
+        var residual = block.ResidualBuffer[..frames];
+        residual.Clear();
+        for (var k = 0; k < _residual.Length; k++)
+        {
+            var weight = _residualWeight[k];
+            var channel = block.ChannelBuffer(_residual[k])[..frames];
+            for (var i = 0; i < frames; i++)
+            {
+                residual[i] += channel[i] * weight;
+            }
+        }
+    }
+
+    private void NoteMissing(int frameInBlock, int channel)
+    {
+        if (_missing++ == 0)
+        {
+            _firstMissing = _delivered + frameInBlock;
+            _firstMissingChannel = channel;
+        }
+    }
+
+    private void Finish()
+    {
+        if (_finished)
+        {
+            return;
+        }
+
+        _finished = true;
+        if (_missing > 0)
+        {
+            _warnings.Add(new CaptureWarning("missing-values",
+                $"{_missing} values are marked missing in the data (first at sample {_firstMissing + _missingBefore + 1} of the file, channel '{Config.Analog[_firstMissingChannel].Id}'); each was replaced by the channel's previous value",
+                _firstMissing / Info.SampleRateHz));
+        }
+
+        if (_reader.Position == Config.TotalSamples && _reader.HasExtraData())
+        {
+            _warnings.Add(new CaptureWarning("extra-data",
+                $"the data file holds more than the {Config.TotalSamples} samples the cfg declares; the rest is ignored"));
+        }
+    }
+
+    private static ComtradeDataReader OpenReader(ComtradeContainer container, ComtradeConfig config)
+    {
+        var stream = new FileStream(container.DataPath, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
+        try
+        {
+            stream.Seek(container.DataOffset, SeekOrigin.Begin);
+            return ComtradeDataReader.Create(container.DataPath, stream, config, container.DataBytes, container.DataFirstLine);
+        }
+        catch
+        {
+            stream.Dispose();
+            throw;
+        }
+    }
+
+    private static ComtradeCaptureSource Build(ComtradeContainer container, ComtradeConfig config,
+        ComtradeDataReader reader, ImportOptions options, List<CaptureWarning> warnings)
+    {
+        var path = container.CfgPath;
+        var (section, sectionStartS) = ChooseSection(config, warnings);
+        var rateHz = section.RateHz;
+        if (config.TimestampsOnly)
+        {
+            rateHz = RateFromTimestamps(container, config, warnings);
+        }
+
+        var conversions = new ChannelConversion[config.Analog.Count];
+        var channels = new ChannelInfo[config.Analog.Count];
+        for (var c = 0; c < conversions.Length; c++)
+        {
+            conversions[c] = ChannelConversion.For(config.Analog[c], options.Primary);
+            channels[c] = conversions[c].Info(c, config.Analog[c]);
+        }
+
+        var residual = ChooseResidual(path, config, channels, options, warnings);
+        var weights = new double[residual.Length];
+        for (var k = 0; k < residual.Length; k++)
+        {
+            var ch = channels[residual[k]];
+            weights[k] = ch.Quantity switch
+            {
+                ChannelQuantity.Current => 1.0,
+                ChannelQuantity.Voltage when options.SensitivityVPerA is > 0 => 1.0 / options.SensitivityVPerA.Value,
+                ChannelQuantity.Voltage => throw new CaptureFormatException(path,
+                    $"channel '{ch.Name}' is a voltage ({ch.SourceUnit}): give the sensor's sensitivity (--sensitivity) to read it as a current"),
+                _ => throw new CaptureFormatException(path,
+                    $"channel '{ch.Name}' is in '{ch.SourceUnit}', neither a current nor a voltage; choose another with --channel"),
+            };
+            if (conversions[residual[k]].Note is { } note)
+            {
+                warnings.Add(new CaptureWarning("primary-secondary", $"channel '{ch.Name}': {note}"));
+            }
+        }
+
+        if (!config.TimeZoneStated)
+        {
+            warnings.Add(new CaptureWarning("time-zone-unstated",
+                $"the {config.RevisionYear} cfg does not state the time zone of its time stamps; they are shown as written, with offset +00:00"));
+        }
+
+        reader.Skip(section.FirstSample - 1);
+        var single = residual.Length == 1;
+        var first = conversions[residual[0]];
+        var calibration = single
+            ? new Calibration(first.Scale * weights[0], first.Offset * weights[0],
+                $"cfg a·x+b of '{channels[residual[0]].Name}' ({first.Describe(config.Analog[residual[0]])}"
+                + (weights[0] != 1.0 ? $", sensitivity {(1 / weights[0]).ToString(CultureInfo.InvariantCulture)} V/A)" : ")"))
+            : Calibration.Amperes("sum of channels, each a·x+b from the cfg");
+        var scale = new double[conversions.Length];
+        var offset = new double[conversions.Length];
+        for (var c = 0; c < conversions.Length; c++)
+        {
+            scale[c] = conversions[c].Scale;
+            offset[c] = conversions[c].Offset;
+        }
+
+        var info = new CaptureInfo
+        {
+            FilePath = path,
+            Format = "comtrade",
+            Encoding = $"C37.111-{config.RevisionYear} {config.FileType.ToString().ToUpperInvariant()}{(container.SingleFile ? " (.cff)" : string.Empty)}, "
+                + $"{config.Analog.Count} analog + {config.Digital.Count} digital channels, station '{config.StationName}', device '{config.DeviceId}'",
+            Channels = channels,
+            ResidualSource = string.Join("+", residual.Select(i => channels[i].Name)),
+            ResidualChannels = residual,
+            SampleRateHz = rateHz,
+            SampleCount = section.SampleCount,
+            StartTime = config.StartTime?.AddTicks((long)Math.Round(sectionStartS * TimeSpan.TicksPerSecond)),
+            TriggerTime = config.TriggerTime,
+            Calibration = calibration,
+            SensorCoupling = options.Sensor,
+            FullScaleA = single && channels[residual[0]].FullScaleSi is { } fs ? fs * weights[0] : null,
+        };
+        return new ComtradeCaptureSource(config, reader, info, warnings, scale, offset, residual, weights);
+    }
+
+    private static (ComtradeRateSection Section, double StartS) ChooseSection(ComtradeConfig config, List<CaptureWarning> warnings)
+    {
+        var sections = config.RateSections;
+        var best = 0;
+        for (var i = 1; i < sections.Count; i++)
+        {
+            var (d, bd) = (sections[i].DurationS, sections[best].DurationS);
+            if (d > bd || (d == bd && sections[i].RateHz > sections[best].RateHz))
+            {
+                best = i;
+            }
+        }
+
+        var startS = 0.0;
+        for (var i = 0; i < best; i++)
+        {
+            startS += sections[i].DurationS;
+        }
+
+        if (sections.Count > 1)
+        {
+            var list = string.Join("; ", sections.Select(s =>
+                $"{s.RateHz.ToString(CultureInfo.InvariantCulture)} Hz for samples {s.FirstSample}-{s.LastSample} ({s.DurationS.ToString("0.###", CultureInfo.InvariantCulture)} s)"));
+            var chosen = sections[best];
+            warnings.Add(new CaptureWarning("rate-sections",
+                $"the record has {sections.Count} sample-rate sections ({list}); only the longest, {chosen.RateHz.ToString(CultureInfo.InvariantCulture)} Hz for samples {chosen.FirstSample}-{chosen.LastSample}, is analysed; times count from its start",
+                startS));
+        }
+
+        return (sections[best], startS);
+    }
+
+    private static double RateFromTimestamps(ComtradeContainer container, ComtradeConfig config, List<CaptureWarning> warnings)
+    {
+        var frames = (int)Math.Min(config.TotalSamples, RateProbeFrames);
+        var raw = ArrayPool<double>.Shared.Rent(frames * config.Analog.Count);
+        var stamps = ArrayPool<long>.Shared.Rent(frames);
+        try
+        {
+            using var probe = OpenReader(container, config);
+            var got = probe.Read(raw, stamps, frames);
+            int first = -1, last = -1;
+            for (var i = 0; i < got; i++)
+            {
+                if (stamps[i] >= 0)
+                {
+                    first = first < 0 ? i : first;
+                    last = i;
+                }
+            }
+
+            var spanS = first >= 0 ? (stamps[last] - stamps[first]) * config.TimeMultiplier * config.TimestampBaseS : 0;
+            if (last <= first || !(spanS > 0))
+            {
+                throw new CaptureFormatException(container.DataPath,
+                    "the cfg gives no sample rate (nrates = 0) and the data's time stamps do not increase, so no rate can be derived");
+            }
+
+            var rateHz = (last - first) / spanS;
+            warnings.Add(new CaptureWarning("rate-from-timestamps",
+                $"the cfg gives no sample rate (nrates = 0); {rateHz.ToString("0.###", CultureInfo.InvariantCulture)} Hz is derived from the time stamps of samples {first + 1} to {last + 1} (time multiplier {config.TimeMultiplier.ToString(CultureInfo.InvariantCulture)})"));
+            return rateHz;
+        }
+        finally
+        {
+            ArrayPool<double>.Shared.Return(raw);
+            ArrayPool<long>.Shared.Return(stamps);
+        }
+    }
+
+    private static int[] ChooseResidual(string path, ComtradeConfig config, ChannelInfo[] channels,
+        ImportOptions options, List<CaptureWarning> warnings)
+    {
+        if (options.SumChannels is { Count: > 0 } sum)
+        {
+            var picked = new int[sum.Count];
+            for (var k = 0; k < sum.Count; k++)
+            {
+                picked[k] = Find(channels, sum[k], "--sum");
+            }
+
+            return picked;
+        }
+
+        if (!string.IsNullOrWhiteSpace(options.Channel))
+        {
+            return [Find(channels, options.Channel, "--channel")];
+        }
+
+        var currents = channels.Where(c => c.Quantity == ChannelQuantity.Current).ToList();
+        var residualLike = currents.Where(c => SuggestsResidual(config.Analog[c.Index])).ToList();
+        if (residualLike.Count == 1)
+        {
+            return [residualLike[0].Index];
+        }
+
+        if (currents.Count == 0)
+        {
+            throw new CaptureFormatException(path,
+                "no analog channel is a current (A, kA, mA); choose one with --channel (and --sensitivity for a voltage)");
+        }
+
+        var chosen = currents[0];
+        var others = string.Join(", ", currents.Skip(1).Select(c => $"'{c.Name}'"));
+        warnings.Add(new CaptureWarning("channel-guess",
+            $"no single channel is named as residual or earth current (N, IN, 3I0, Ires, IE, E); using the first current channel '{chosen.Name}'"
+            + (others.Length > 0 ? $"; other current channels: {others} (choose with --channel, or --sum to add them)" : string.Empty)));
+        return [chosen.Index];
+    }
+
+    private static bool SuggestsResidual(ComtradeAnalogChannel channel)
+    {
+        if (ResidualWords.Contains(channel.Phase.Trim()) || ResidualWords.Contains(channel.Id.Trim()))
+        {
+            return true;
+        }
+
+        foreach (var word in channel.Id.Split([' ', '_', '-', '.', '/'], StringSplitOptions.RemoveEmptyEntries))
+        {
+            if (ResidualWords.Contains(word))
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
+
+    private static int Find(ChannelInfo[] channels, string wanted, string option)
+    {
+        var text = wanted.Trim();
+        foreach (var c in channels)
+        {
+            if (c.Name.Equals(text, StringComparison.OrdinalIgnoreCase))
+            {
+                return c.Index;
+            }
+        }
+
+        if (int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out var number) && number >= 1 &&
+            number <= channels.Length)
+        {
+            return number - 1;
+        }
+
+        throw new OptionValueException(option, wanted,
+            $"an analog channel name ({string.Join(", ", channels.Select(c => c.Name))}) or a number 1 to {channels.Length}");
+    }
+
+    /// <summary>From a stored value to the SI value delivered: unit prefix and the primary/secondary ratio.</summary>
+    private readonly record struct ChannelConversion(double Scale, double Offset, ChannelQuantity Quantity,
+        double UnitFactor, double RatioFactor, string Side, string? Note)
+    {
+        public static ChannelConversion For(ComtradeAnalogChannel ch, bool wantPrimary)
+        {
+            var (quantity, unitFactor) = ch.Unit.Trim() switch
+            {
+                "A" or "a" => (ChannelQuantity.Current, 1.0),
+                "kA" or "KA" => (ChannelQuantity.Current, 1e3),
+                "mA" => (ChannelQuantity.Current, 1e-3),
+                "uA" or "µA" or "μA" => (ChannelQuantity.Current, 1e-6),
+                "V" or "v" => (ChannelQuantity.Voltage, 1.0),
+                "kV" or "KV" => (ChannelQuantity.Voltage, 1e3),
+                "mV" => (ChannelQuantity.Voltage, 1e-3),
+                _ => (ChannelQuantity.Unscaled, 1.0),
+            };
+
+            // 1999 clause 6.4.3 / 2013 clause 7.4.3: a·x+b gives the side named by PS; primary/secondary is the
+            // transformer ratio. Converting P→S divides by primary/secondary, S→P multiplies.
+            var wanted = wantPrimary ? 'P' : 'S';
+            var ratio = 1.0;
+            string? note = null;
+            var side = ch.PrimaryOrSecondary is { } ps ? (ps == 'P' ? "primary" : "secondary") : "as recorded";
+            if (ch.PrimaryOrSecondary is null)
+            {
+                note = wantPrimary ? "the cfg (1991) does not say whether values are primary or secondary; they are delivered as recorded" : null;
+            }
+            else if (ch.PrimaryOrSecondary != wanted)
+            {
+                if (ch.Primary > 0 && ch.Secondary > 0)
+                {
+                    ratio = wantPrimary ? ch.Primary / ch.Secondary : ch.Secondary / ch.Primary;
+                    side = wantPrimary ? "secondary → primary" : "primary → secondary";
+                }
+                else
+                {
+                    note = $"the cfg gives no usable transformer ratio (primary {ch.Primary.ToString(CultureInfo.InvariantCulture)}, secondary {ch.Secondary.ToString(CultureInfo.InvariantCulture)}); values stay {side}";
+                }
+            }
+
+            var factor = unitFactor * ratio;
+            return new ChannelConversion(ch.A * factor, ch.B * factor, quantity, unitFactor, ratio, side, note);
+        }
+
+        public ChannelInfo Info(int index, ComtradeAnalogChannel ch)
+        {
+            var fullScale = Math.Max(Math.Abs((ch.Min * Scale) + Offset), Math.Abs((ch.Max * Scale) + Offset));
+            return new ChannelInfo(index, ch.Id, ch.Unit, Quantity, Scale, fullScale > 0 ? fullScale : null);
+        }
+
+        public string Describe(ComtradeAnalogChannel ch) =>
+            $"a={ch.A.ToString(CultureInfo.InvariantCulture)}, b={ch.B.ToString(CultureInfo.InvariantCulture)} {ch.Unit}, {Side}"
+            + (RatioFactor != 1.0 ? $" × {RatioFactor.ToString("G6", CultureInfo.InvariantCulture)}" : string.Empty);
+    }
+}
