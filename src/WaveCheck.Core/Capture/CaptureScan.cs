@@ -83,11 +83,12 @@ public sealed class CaptureScan
         info ??= _info;
         var stats = new List<ChannelStats>(_accumulators.Length);
         var warnings = new List<CaptureWarning>();
-        foreach (var a in _accumulators)
+        for (var i = 0; i < _accumulators.Length; i++)
         {
-            var s = a.Result();
+            var s = _accumulators[i].Result();
             stats.Add(s);
-            if (s.SampleCount == 0)
+            var residualRepeatsAChannel = i == _accumulators.Length - 1 && info.ResidualChannels.Count == 1;
+            if (s.SampleCount == 0 || residualRepeatsAChannel)
             {
                 continue;
             }
