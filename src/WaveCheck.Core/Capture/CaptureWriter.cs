@@ -192,8 +192,8 @@ public static class CaptureWriter
     private static WaveFormat CreateFormat(int rate, int channels, WavSampleFormat format) => format switch
     {
         WavSampleFormat.Pcm16 => new WaveFormat(rate, 16, channels),
-        WavSampleFormat.Pcm24 => new WaveFormatExtensible(rate, 24, channels),
-        WavSampleFormat.Pcm32 => new WaveFormatExtensible(rate, 32, channels),
+        WavSampleFormat.Pcm24 => new WaveFormatExtensible(rate, 24, channels, false, 24, 0),
+        WavSampleFormat.Pcm32 => new WaveFormatExtensible(rate, 32, channels, false, 32, 0),
         WavSampleFormat.Float32 => WaveFormat.CreateIeeeFloatWaveFormat(rate, channels),
         WavSampleFormat.Float64 => WaveFormat.CreateCustomFormat(WaveFormatEncoding.IeeeFloat, rate, channels,
             rate * channels * 8, channels * 8, 64),

@@ -138,7 +138,7 @@ public sealed class CsvCaptureSource : ICaptureSource
 
                 _toAmperes[k] = 1.0 / sensitivity;
                 units.Add(string.Create(CultureInfo.InvariantCulture,
-                    $"column unit {column.Unit} / sensitivity {sensitivity * 1e-3:G6} mV/mA"));
+                    $"column unit {column.Unit} / sensitivity {sensitivity:G6} mV/mA"));
             }
             else
             {

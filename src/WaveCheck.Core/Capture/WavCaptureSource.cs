@@ -289,11 +289,13 @@ public sealed class WavCaptureSource : ICaptureSource
     {
         var encoding = format.Encoding;
         var extensible = false;
-        if (encoding == WaveFormatEncoding.Extensible && format is WaveFormatExtensible ext)
+        if (encoding == WaveFormatEncoding.Extensible)
         {
+            // The SubFormat GUID sits 24 bytes into the fmt data; its first two bytes are the plain format tag.
             extensible = true;
-            encoding = ext.SubFormat == PcmSubFormat ? WaveFormatEncoding.Pcm
-                : ext.SubFormat == FloatSubFormat ? WaveFormatEncoding.IeeeFloat
+            var subFormat = ReadSubFormat(formatOffset);
+            encoding = subFormat == PcmSubFormat ? WaveFormatEncoding.Pcm
+                : subFormat == FloatSubFormat ? WaveFormatEncoding.IeeeFloat
                 : WaveFormatEncoding.Unknown;
         }
 
@@ -312,6 +314,13 @@ public sealed class WavCaptureSource : ICaptureSource
         throw new CaptureFormatException(_path,
             $"WAV encoding {format.Encoding} with {bits} bits is not supported: expected PCM 8/16/24/32-bit or IEEE float 32/64-bit",
             byteOffset: formatOffset);
+    }
+
+    private Guid? ReadSubFormat(long formatOffset)
+    {
+        Span<byte> guid = stackalloc byte[16];
+        _stream.Position = formatOffset + 8 + 24;
+        return _stream.ReadAtLeast(guid, 16, throwOnEndOfStream: false) == 16 ? new Guid(guid) : null;
     }
 
     private (double? FullScaleA, SensorCoupling? Sensor) ReadOwnChunk(RiffLayout layout)
@@ -342,7 +351,7 @@ public sealed class WavCaptureSource : ICaptureSource
         {
             var fullScale = range / sensitivity;
             var source = string.Create(CultureInfo.InvariantCulture,
-                $"range {range:G6} V / sensitivity {sensitivity * 1e-3:G6} mV/mA = {fullScale:G6} A full scale");
+                $"range {range:G6} V / sensitivity {sensitivity:G6} mV/mA = {fullScale:G6} A full scale");
             return new Calibration(fullScale, 0, fromFile is null ? source : $"{source} (overrides the file's {fromFile})");
         }
 
