@@ -628,25 +628,34 @@ public sealed class CsvCaptureSource : ICaptureSource
             return t.IsEmpty || t[0] is '#' or '%' or '!' || t.StartsWith("//", StringComparison.Ordinal);
         }
 
-        /// <summary>Tab, then semicolon, then comma: the first that splits the last lines into the same count of two or more fields.</summary>
+        /// <summary>Tab, then semicolon, then comma: the first for which at least 80 % of the last content lines split into
+        /// the same count of two or more fields (a preamble line or a faulty row does not spoil the choice).</summary>
         private static (char Delimiter, int FieldCount) ChooseDelimiter(List<string> lines, List<int> content)
         {
-            var sample = content.Skip(Math.Max(1, content.Count - 50)).ToList();
-            if (sample.Count == 0)
-            {
-                sample = content;
-            }
-
+            var sample = content.Skip(Math.Max(0, content.Count - 50)).ToList();
             foreach (var candidate in new[] { '\t', ';', ',' })
             {
-                var count = Split(lines[sample[0]], candidate).Length;
-                if (count >= 2 && sample.All(i => Split(lines[i], candidate).Length == count))
+                var (count, share) = CommonFieldCount(lines, sample, candidate);
+                if (count >= 2 && share >= 0.8)
                 {
                     return (candidate, count);
                 }
             }
 
-            return (',', Split(lines[sample[^1]], ',').Length);
+            return (',', CommonFieldCount(lines, sample, ',').Count);
+        }
+
+        private static (int Count, double Share) CommonFieldCount(List<string> lines, List<int> sample, char delimiter)
+        {
+            var counts = new Dictionary<int, int>();
+            foreach (var i in sample)
+            {
+                var n = Split(lines[i], delimiter).Length;
+                counts[n] = counts.GetValueOrDefault(n) + 1;
+            }
+
+            var best = counts.MaxBy(kv => (kv.Value, kv.Key));
+            return (best.Key, best.Value / (double)sample.Count);
         }
 
         /// <summary>A <c>key: value</c> or <c>key=value</c> line of a logger's preamble.</summary>
