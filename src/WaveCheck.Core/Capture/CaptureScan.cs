@@ -246,7 +246,12 @@ public sealed class CaptureScan
         {
             var clipped = _clipped;
             var first = _firstClipS;
-            if (fullScale is null)
+            if (fullScale is null && _max == _min)
+            {
+                clipped = 0; // a flat channel is reported as flat, not as clipped
+                first = null;
+            }
+            else if (fullScale is null)
             {
                 clipped = _maxClipped + _minClipped;
                 first = (_maxFirstS, _minFirstS) switch
