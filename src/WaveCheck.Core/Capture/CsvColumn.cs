@@ -32,15 +32,24 @@ internal sealed partial record CsvColumn(int FileColumn, string Name, string Uni
     private static readonly Dictionary<string, (CsvColumnKind Kind, double Factor)> Units =
         new(StringComparer.OrdinalIgnoreCase)
         {
-            ["A"] = (CsvColumnKind.Current, 1), ["mA"] = (CsvColumnKind.Current, 1e-3),
-            ["uA"] = (CsvColumnKind.Current, 1e-6), ["µA"] = (CsvColumnKind.Current, 1e-6),
-            ["μA"] = (CsvColumnKind.Current, 1e-6), ["kA"] = (CsvColumnKind.Current, 1e3),
-            ["V"] = (CsvColumnKind.Voltage, 1), ["mV"] = (CsvColumnKind.Voltage, 1e-3),
-            ["uV"] = (CsvColumnKind.Voltage, 1e-6), ["µV"] = (CsvColumnKind.Voltage, 1e-6),
-            ["μV"] = (CsvColumnKind.Voltage, 1e-6), ["kV"] = (CsvColumnKind.Voltage, 1e3),
-            ["s"] = (CsvColumnKind.TimeSeconds, 1), ["sec"] = (CsvColumnKind.TimeSeconds, 1),
-            ["ms"] = (CsvColumnKind.TimeSeconds, 1e-3), ["us"] = (CsvColumnKind.TimeSeconds, 1e-6),
-            ["µs"] = (CsvColumnKind.TimeSeconds, 1e-6), ["μs"] = (CsvColumnKind.TimeSeconds, 1e-6),
+            ["A"] = (CsvColumnKind.Current, 1),
+            ["mA"] = (CsvColumnKind.Current, 1e-3),
+            ["uA"] = (CsvColumnKind.Current, 1e-6),
+            ["µA"] = (CsvColumnKind.Current, 1e-6),
+            ["μA"] = (CsvColumnKind.Current, 1e-6),
+            ["kA"] = (CsvColumnKind.Current, 1e3),
+            ["V"] = (CsvColumnKind.Voltage, 1),
+            ["mV"] = (CsvColumnKind.Voltage, 1e-3),
+            ["uV"] = (CsvColumnKind.Voltage, 1e-6),
+            ["µV"] = (CsvColumnKind.Voltage, 1e-6),
+            ["μV"] = (CsvColumnKind.Voltage, 1e-6),
+            ["kV"] = (CsvColumnKind.Voltage, 1e3),
+            ["s"] = (CsvColumnKind.TimeSeconds, 1),
+            ["sec"] = (CsvColumnKind.TimeSeconds, 1),
+            ["ms"] = (CsvColumnKind.TimeSeconds, 1e-3),
+            ["us"] = (CsvColumnKind.TimeSeconds, 1e-6),
+            ["µs"] = (CsvColumnKind.TimeSeconds, 1e-6),
+            ["μs"] = (CsvColumnKind.TimeSeconds, 1e-6),
             ["ns"] = (CsvColumnKind.TimeSeconds, 1e-9),
         };
 

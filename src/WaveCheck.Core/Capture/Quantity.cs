@@ -14,7 +14,14 @@ public static partial class Quantity
 
     private static readonly Dictionary<string, double> Prefix = new(StringComparer.Ordinal)
     {
-        [""] = 1, ["k"] = 1e3, ["M"] = 1e6, ["m"] = 1e-3, ["u"] = 1e-6, ["µ"] = 1e-6, ["μ"] = 1e-6, ["n"] = 1e-9,
+        [""] = 1,
+        ["k"] = 1e3,
+        ["M"] = 1e6,
+        ["m"] = 1e-3,
+        ["u"] = 1e-6,
+        ["µ"] = 1e-6,
+        ["μ"] = 1e-6,
+        ["n"] = 1e-9,
     };
 
     /// <summary>Parses a current; a bare number is taken in <paramref name="bareUnit"/> (default amperes).</summary>
