@@ -150,12 +150,8 @@ public sealed class CaptureScan
         private double? _firstClipS;
 
         // Full scale unknown: runs at the current extreme, restarted whenever a new extreme appears.
-        private long _maxRun;
-        private long _maxClipped;
-        private double? _maxFirstS;
-        private long _minRun;
-        private long _minClipped;
-        private double? _minFirstS;
+        private ExtremeRuns _atMax;
+        private ExtremeRuns _atMin;
 
         public void Push(ReadOnlySpan<double> x, long startSample, double rateHz)
         {
@@ -193,53 +189,8 @@ public sealed class CaptureScan
 
         private void TrackExtremes(double v, long index, double rateHz)
         {
-            if (v > _max)
-            {
-                _maxRun = 1;
-                _maxClipped = 0;
-                _maxFirstS = null;
-            }
-            else if (v == _max)
-            {
-                _maxRun++;
-                if (_maxRun == ClipRun)
-                {
-                    _maxClipped += ClipRun;
-                    _maxFirstS ??= (index - ClipRun + 1) / rateHz;
-                }
-                else if (_maxRun > ClipRun)
-                {
-                    _maxClipped++;
-                }
-            }
-            else
-            {
-                _maxRun = 0;
-            }
-
-            if (v < _min)
-            {
-                _minRun = 1;
-                _minClipped = 0;
-                _minFirstS = null;
-            }
-            else if (v == _min)
-            {
-                _minRun++;
-                if (_minRun == ClipRun)
-                {
-                    _minClipped += ClipRun;
-                    _minFirstS ??= (index - ClipRun + 1) / rateHz;
-                }
-                else if (_minRun > ClipRun)
-                {
-                    _minClipped++;
-                }
-            }
-            else
-            {
-                _minRun = 0;
-            }
+            _atMax.Track(v > _max, v == _max, index, rateHz);
+            _atMin.Track(v < _min, v == _min, index, rateHz);
         }
 
         public ChannelStats Result()
@@ -253,8 +204,8 @@ public sealed class CaptureScan
             }
             else if (fullScale is null)
             {
-                clipped = _maxClipped + _minClipped;
-                first = (_maxFirstS, _minFirstS) switch
+                clipped = _atMax.Clipped + _atMin.Clipped;
+                first = (_atMax.FirstS, _atMin.FirstS) switch
                 {
                     ({ } a, { } b) => Math.Min(a, b),
                     ({ } a, null) => a,
@@ -265,6 +216,43 @@ public sealed class CaptureScan
             return _count == 0
                 ? new ChannelStats(name, unit, double.NaN, double.NaN, double.NaN, 0, 0, 0, null, fullScale)
                 : new ChannelStats(name, unit, _min, _max, _sum / _count, _count, clipped, clipped / (double)_count, first, fullScale);
+        }
+    }
+
+    /// <summary>Samples in runs of <see cref="ClipRun"/> or more at one extreme; starts over when a new extreme appears.</summary>
+    private struct ExtremeRuns
+    {
+        private long _run;
+
+        public long Clipped { get; private set; }
+
+        public double? FirstS { get; private set; }
+
+        public void Track(bool newExtreme, bool atExtreme, long index, double rateHz)
+        {
+            if (newExtreme)
+            {
+                _run = 1;
+                Clipped = 0;
+                FirstS = null;
+            }
+            else if (atExtreme)
+            {
+                _run++;
+                if (_run == ClipRun)
+                {
+                    Clipped += ClipRun;
+                    FirstS ??= (index - ClipRun + 1) / rateHz;
+                }
+                else if (_run > ClipRun)
+                {
+                    Clipped++;
+                }
+            }
+            else
+            {
+                _run = 0;
+            }
         }
     }
 }
