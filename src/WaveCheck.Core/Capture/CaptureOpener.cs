@@ -32,7 +32,9 @@ public static class CaptureOpener
         var length = new FileInfo(path).Length;
         if (length == 0)
         {
-            throw new CaptureFormatException(path, "empty file (0 bytes)");
+            throw extension is ".csv" or ".txt" or ".tsv"
+                ? new CaptureFormatException(path, "empty file (0 bytes)", line: 1, column: 1)
+                : new CaptureFormatException(path, "empty file (0 bytes)", byteOffset: 0);
         }
 
         if (LooksLikeRiffWave(path) || extension == ".wav")

@@ -13,7 +13,10 @@ public sealed class CaptureOpenerTests : IDisposable
     {
         Assert.Contains("no such file", Open(_folder.File("nope.wav")).Message);
         Assert.Contains("is a directory", Open(_folder.Path).Message);
-        Assert.Contains("empty file (0 bytes)", Open(_folder.Write("empty.csv", "")).Message);
+        var emptyCsv = Open(_folder.Write("empty.csv", ""));
+        Assert.Equal((1L, 1L), (emptyCsv.Line!.Value, emptyCsv.Column!.Value));
+        Assert.Contains("empty file (0 bytes)", emptyCsv.Message);
+        Assert.Equal(0, Open(_folder.Write("empty.wav", "")).ByteOffset);
         Assert.Contains("unknown capture format (extension '.xyz'", Open(_folder.Write("data.xyz", "hello")).Message);
         Assert.Contains("COMTRADE support is not built in this build", Open(_folder.Write("record.cfg", "station,1\n")).Message);
     }

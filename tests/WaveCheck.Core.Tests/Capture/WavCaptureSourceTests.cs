@@ -105,6 +105,22 @@ public sealed class WavCaptureSourceTests : IDisposable
     }
 
     [Fact]
+    public void EightBitUnsignedPcmIsCentredOn128()
+    {
+        // WAV 8-bit PCM is unsigned with 128 as zero (Microsoft RIFF specification); codes 0, 64, 128, 192, 255.
+        var path = _folder.File("eight.wav");
+        using (var writer = new WaveFileWriter(path, new WaveFormat(8000, 8, 1)))
+        {
+            writer.Write([0, 64, 128, 192, 255], 0, 5);
+        }
+
+        using var source = CaptureOpener.Open(path, new ImportOptions { ScaleA = 0.1 });
+        Assert.Equal("PCM 8-bit, 1 channel", source.Info.Encoding);
+        // closed form: (code − 128) / 128 of full scale 0.1 A.
+        Assert.Equal([-0.1, -0.05, 0, 0.05, 0.1 * 127 / 128], Signals.ReadAll(source).Residual);
+    }
+
+    [Fact]
     public void ExplicitScaleWinsOverTheFileAndSaysSo()
     {
         var path = _folder.File("own.wav");
