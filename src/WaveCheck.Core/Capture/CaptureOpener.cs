@@ -22,6 +22,41 @@ public static class CaptureOpener
             throw new CaptureFormatException(path, "no such file");
         }
 
-        throw new CaptureFormatException(path, "unknown capture format: expected WAV or CSV");
+        var extension = Path.GetExtension(path).ToLowerInvariant();
+        if (extension is ".cfg" or ".cff")
+        {
+            throw new CaptureFormatException(path,
+                "COMTRADE support is not built in this build: export the record as WAV or CSV");
+        }
+
+        var length = new FileInfo(path).Length;
+        if (length == 0)
+        {
+            throw extension is ".csv" or ".txt" or ".tsv"
+                ? new CaptureFormatException(path, "empty file (0 bytes)", line: 1, column: 1)
+                : new CaptureFormatException(path, "empty file (0 bytes)", byteOffset: 0);
+        }
+
+        if (LooksLikeRiffWave(path) || extension == ".wav")
+        {
+            // A .wav whose bytes are not RIFF/WAVE is reported by the reader with the byte offset.
+            return new WavCaptureSource(path, options);
+        }
+
+        if (extension is ".csv" or ".txt" or ".tsv")
+        {
+            return new CsvCaptureSource(path, options);
+        }
+
+        throw new CaptureFormatException(path,
+            $"unknown capture format (extension '{(extension.Length == 0 ? "none" : extension)}', content not RIFF/WAVE): expected .wav, .csv, .txt or .tsv");
+    }
+
+    private static bool LooksLikeRiffWave(string path)
+    {
+        Span<byte> head = stackalloc byte[12];
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1);
+        return stream.ReadAtLeast(head, 12, throwOnEndOfStream: false) == 12 &&
+               head[..4].SequenceEqual("RIFF"u8) && head[8..].SequenceEqual("WAVE"u8);
     }
 }

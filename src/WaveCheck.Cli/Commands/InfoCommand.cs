@@ -1,0 +1,131 @@
+using System.CommandLine;
+using System.Globalization;
+using Spectre.Console;
+using WaveCheck.Core.Capture;
+using WaveCheck.Core.Results;
+
+namespace WaveCheck.Cli.Commands;
+
+/// <summary><c>wavecheck info FILE</c>: what a capture holds and whether it can be trusted, without analysing it.</summary>
+internal static class InfoCommand
+{
+    public static Command Create()
+    {
+        var file = new Argument<string>("file") { Description = "Capture file: WAV, CSV/TXT/TSV." };
+        var json = new Option<string?>("--json") { Description = "Also write the facts as JSON to this file, or '-' for stdout (then no table)." };
+        var import = new ImportOptionSet();
+        var command = new Command("info", "Show a capture's format, channels, rate, calibration, range and warnings.");
+        command.Arguments.Add(file);
+        command.Options.Add(json);
+        import.AddTo(command);
+        command.SetAction(parse => CliRun.Guard(() =>
+        {
+            var options = import.Read(parse);
+            var path = parse.GetValue(file)!;
+            var jsonPath = parse.GetValue(json);
+            using var source = CaptureOpener.Open(path, options);
+            var scan = CaptureScan.Run(source, options.BandOfInterestHz);
+            var info = source.Info;
+            List<CaptureWarning> warnings = [.. source.Warnings, .. scan.Warnings];
+            if (jsonPath is not null)
+            {
+                ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings));
+                if (jsonPath == "-")
+                {
+                    return CliRun.Ok;
+                }
+            }
+
+            Print(CreateConsole(), info, scan, warnings);
+            return CliRun.Ok;
+        }));
+        return command;
+    }
+
+    private static void Print(IAnsiConsole console, CaptureInfo info, CaptureScanResult scan, List<CaptureWarning> warnings)
+    {
+        var facts = new Table().Border(TableBorder.Rounded).Title(Markup.Escape(info.FilePath));
+        facts.AddColumn("capture");
+        facts.AddColumn("value");
+        void Row(string name, string value) => facts.AddRow(new Text(name), new Text(value));
+
+        Row("format", info.Format);
+        Row("encoding", info.Encoding);
+        Row("channels", string.Join(", ", info.Channels.Select(c => $"{c.Name} [{c.SourceUnit}]")));
+        Row("residual current", info.ResidualSource);
+        Row("sample rate", Hz(info.SampleRateHz) + (info.MeasuredSampleRateHz is { } m ? $" (measured {Hz(m)})" : " (stated by the file)"));
+        Row("samples", info.SampleCount.ToString("N0", CultureInfo.InvariantCulture) + (info.SampleCountExact ? "" : " (estimate)"));
+        Row("duration", string.Create(CultureInfo.InvariantCulture, $"{info.DurationS:0.######} s"));
+        Row("Nyquist", Hz(info.NyquistHz));
+        Row("scale", string.Create(CultureInfo.InvariantCulture, $"{info.Calibration.ScaleA:G6} A per stored unit: {info.Calibration.Source}"));
+        Row("full scale", info.FullScaleA is { } fs ? CurrentText.WithUnit(fs) : "not known");
+        Row("sensor coupling", info.SensorCoupling.ToString().ToLowerInvariant());
+        if (info.StartTime is { } start)
+        {
+            Row("start", start.ToString("O", CultureInfo.InvariantCulture));
+        }
+
+        var gaps = warnings.Count(w => w.Code == "time-gap");
+        Row("time gaps", gaps == 0 ? "none found" : $"{gaps} warning{(gaps == 1 ? "" : "s")}, see below");
+        console.Write(facts);
+
+        var channels = new Table().Border(TableBorder.Rounded);
+        foreach (var heading in new[] { "channel", "unit", "min", "max", "mean", "clipped" })
+        {
+            channels.AddColumn(heading);
+        }
+
+        foreach (var s in scan.Channels)
+        {
+            var clipped = s.ClippedSamples == 0
+                ? "no"
+                : string.Create(CultureInfo.InvariantCulture, $"{s.ClippedSamples} ({100 * s.ClippedShare:0.###} %) from {s.FirstClipS:0.######} s");
+            channels.AddRow(new Text(s.Name), new Text(s.Unit == "A" ? "mA" : s.Unit), new Text(Value(s.MinSi, s.Unit)),
+                new Text(Value(s.MaxSi, s.Unit)), new Text(Value(s.MeanSi, s.Unit)), new Text(clipped));
+        }
+
+        console.Write(channels);
+        if (warnings.Count == 0)
+        {
+            console.WriteLine("No warnings.");
+            return;
+        }
+
+        console.WriteLine("Warnings:");
+        foreach (var w in warnings)
+        {
+            console.Write(new Text($"  [{w.Code}] {w.Message}\n"));
+        }
+    }
+
+    /// <summary>A Spectre console on <see cref="Console.Out"/>, plain text (no ANSI codes) when NO_COLOR is set or the
+    /// output is not a terminal.</summary>
+    private static IAnsiConsole CreateConsole()
+    {
+        var output = new AnsiConsoleOutput(Console.Out);
+        var plain = !string.IsNullOrEmpty(Environment.GetEnvironmentVariable("NO_COLOR")) ||
+                    Console.IsOutputRedirected || !output.IsTerminal;
+        var console = AnsiConsole.Create(new AnsiConsoleSettings
+        {
+            Ansi = plain ? AnsiSupport.No : AnsiSupport.Detect,
+            ColorSystem = plain ? ColorSystemSupport.NoColors : ColorSystemSupport.Detect,
+            Interactive = InteractionSupport.No,
+            Out = output,
+        });
+        if (plain)
+        {
+            console.Profile.Width = 160;
+        }
+
+        return console;
+    }
+
+    private static string Value(double si, string unit) =>
+        unit == "A" ? CurrentText.Milliamps(si) : si.ToString("G4", CultureInfo.InvariantCulture);
+
+    private static string Hz(double hz) => string.Create(CultureInfo.InvariantCulture, $"{hz:G7} Hz");
+
+    /// <summary>The JSON form of <c>info</c>.</summary>
+    internal sealed record InfoReport(string Schema, CaptureInfo Capture, IReadOnlyList<ChannelStats> Channels,
+        IReadOnlyList<CaptureWarning> Warnings);
+}

@@ -1,0 +1,246 @@
+using System.Buffers;
+using System.Buffers.Binary;
+using System.Globalization;
+using System.Text;
+using NAudio.Wave;
+using WaveCheck.Core.Results;
+
+namespace WaveCheck.Core.Capture;
+
+/// <summary>Sample encodings <see cref="CaptureWriter.WriteWav(string, IEnumerable{double[][]}, double, double, WavSampleFormat, SensorCoupling)"/> can write.</summary>
+public enum WavSampleFormat
+{
+    /// <summary>16-bit signed integer PCM.</summary>
+    Pcm16,
+
+    /// <summary>24-bit signed integer PCM (WAVE_FORMAT_EXTENSIBLE).</summary>
+    Pcm24,
+
+    /// <summary>32-bit signed integer PCM (WAVE_FORMAT_EXTENSIBLE).</summary>
+    Pcm32,
+
+    /// <summary>32-bit IEEE float.</summary>
+    Float32,
+
+    /// <summary>64-bit IEEE float.</summary>
+    Float64,
+}
+
+/// <summary>
+/// Writes captures as WAV (with our own <c>wvck</c> chunk holding the full-scale amperes, so the file calibrates itself)
+/// or as CSV (<c>time [s]</c>, <c>I [mA]</c>, invariant culture). Streams block by block; each file is written whole
+/// or not at all (<see cref="AtomicFile"/>).
+/// </summary>
+public static class CaptureWriter
+{
+    /// <summary>Writes a multi-channel WAV file.</summary>
+    /// <param name="path">Target file.</param>
+    /// <param name="blocksA">Blocks of samples, amperes; each block is one array per channel, all of the same length.</param>
+    /// <param name="sampleRateHz">Sample rate, hertz (a whole number for WAV).</param>
+    /// <param name="fullScaleA">Amperes stored as full scale 1.0; larger values clip, as a recorder would.</param>
+    /// <param name="format">Sample encoding.</param>
+    /// <param name="sensor">Sensor coupling, stored in the chunk.</param>
+    /// <returns>Frames written.</returns>
+    public static long WriteWav(string path, IEnumerable<double[][]> blocksA, double sampleRateHz, double fullScaleA,
+        WavSampleFormat format, SensorCoupling sensor = SensorCoupling.Unknown)
+    {
+        ArgumentNullException.ThrowIfNull(blocksA);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(fullScaleA);
+        if (sampleRateHz <= 0 || sampleRateHz != Math.Round(sampleRateHz) || sampleRateHz > int.MaxValue)
+        {
+            throw new ArgumentOutOfRangeException(nameof(sampleRateHz), sampleRateHz, "WAV needs a positive whole number of hertz");
+        }
+
+        long frames = 0;
+        AtomicFile.Write(path, stream =>
+        {
+            WaveFileWriter? writer = null;
+            var bytes = Array.Empty<byte>();
+            var channels = 0;
+            try
+            {
+                foreach (var block in blocksA)
+                {
+                    if (writer is null)
+                    {
+                        channels = block.Length;
+                        ArgumentOutOfRangeException.ThrowIfLessThan(channels, 1, nameof(blocksA));
+                        writer = new WaveFileWriter(stream, CreateFormat((int)sampleRateHz, channels, format));
+                        writer.AddChunk(WaveCheckChunk.Id, WaveCheckChunk.Format(fullScaleA, sensor), ChunkPosition.BeforeData);
+                    }
+                    else if (block.Length != channels)
+                    {
+                        throw new ArgumentException($"every block needs {channels} channels (got {block.Length})", nameof(blocksA));
+                    }
+
+                    var length = block[0].Length;
+                    var needed = length * channels * BytesPerSample(format);
+                    if (bytes.Length < needed)
+                    {
+                        ArrayPool<byte>.Shared.Return(bytes);
+                        bytes = ArrayPool<byte>.Shared.Rent(needed);
+                    }
+
+                    Encode(block, length, 1.0 / fullScaleA, format, bytes);
+                    writer.Write(bytes.AsSpan(0, needed));
+                    frames += length;
+                }
+
+                writer ??= new WaveFileWriter(stream, CreateFormat((int)sampleRateHz, 1, format));
+            }
+            finally
+            {
+                writer?.Dispose();
+                ArrayPool<byte>.Shared.Return(bytes);
+            }
+        });
+        return frames;
+    }
+
+    /// <summary>Writes a mono WAV file.</summary>
+    /// <param name="path">Target file.</param>
+    /// <param name="blocksA">Blocks of samples, amperes.</param>
+    /// <param name="sampleRateHz">Sample rate, hertz (whole number).</param>
+    /// <param name="fullScaleA">Amperes stored as full scale.</param>
+    /// <param name="format">Sample encoding.</param>
+    /// <param name="sensor">Sensor coupling, stored in the chunk.</param>
+    /// <returns>Frames written.</returns>
+    public static long WriteWav(string path, IEnumerable<double[]> blocksA, double sampleRateHz, double fullScaleA,
+        WavSampleFormat format, SensorCoupling sensor = SensorCoupling.Unknown)
+    {
+        ArgumentNullException.ThrowIfNull(blocksA);
+        return WriteWav(path, blocksA.Select(b => new[] { b }), sampleRateHz, fullScaleA, format, sensor);
+    }
+
+    /// <summary>Writes the residual current of <paramref name="source"/> as a mono WAV file.</summary>
+    /// <param name="path">Target file.</param>
+    /// <param name="source">Capture to copy; read to its end.</param>
+    /// <param name="fullScaleA">Amperes stored as full scale.</param>
+    /// <param name="format">Sample encoding.</param>
+    /// <returns>Frames written.</returns>
+    public static long WriteWav(string path, ICaptureSource source, double fullScaleA, WavSampleFormat format)
+    {
+        ArgumentNullException.ThrowIfNull(source);
+        return WriteWav(path, ResidualBlocks(source), source.Info.SampleRateHz, fullScaleA, format, source.Info.SensorCoupling);
+    }
+
+    /// <summary>Writes a CSV file with a <c>time [s]</c> column and an <c>I [mA]</c> column (invariant culture, round-trip precision).</summary>
+    /// <param name="path">Target file.</param>
+    /// <param name="blocksA">Blocks of samples, amperes.</param>
+    /// <param name="sampleRateHz">Sample rate, hertz.</param>
+    /// <returns>Rows written.</returns>
+    public static long WriteCsv(string path, IEnumerable<double[]> blocksA, double sampleRateHz)
+    {
+        ArgumentNullException.ThrowIfNull(blocksA);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(sampleRateHz);
+        long rows = 0;
+        AtomicFile.Write(path, stream =>
+        {
+            using var writer = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16, leaveOpen: true);
+            writer.Write("time [s],I [mA]\n");
+            Span<char> buffer = stackalloc char[64];
+            foreach (var block in blocksA)
+            {
+                foreach (var amperes in block)
+                {
+                    WriteNumber(writer, rows / sampleRateHz, buffer);
+                    writer.Write(',');
+                    WriteNumber(writer, amperes * 1000.0, buffer);
+                    writer.Write('\n');
+                    rows++;
+                }
+            }
+        });
+        return rows;
+    }
+
+    /// <summary>Writes the residual current of <paramref name="source"/> as CSV.</summary>
+    /// <param name="path">Target file.</param>
+    /// <param name="source">Capture to copy; read to its end.</param>
+    /// <returns>Rows written.</returns>
+    public static long WriteCsv(string path, ICaptureSource source)
+    {
+        ArgumentNullException.ThrowIfNull(source);
+        return WriteCsv(path, ResidualBlocks(source), source.Info.SampleRateHz);
+    }
+
+    private static void WriteNumber(StreamWriter writer, double value, Span<char> buffer)
+    {
+        value.TryFormat(buffer, out var written, "R", CultureInfo.InvariantCulture);
+        writer.Write(buffer[..written]);
+    }
+
+    /// <summary>Copies each block's residual current, since the source reuses its block.</summary>
+    private static IEnumerable<double[]> ResidualBlocks(ICaptureSource source)
+    {
+        var block = source.CreateBlock();
+        while (source.Read(block))
+        {
+            yield return block.ResidualA.ToArray();
+        }
+    }
+
+    private static int BytesPerSample(WavSampleFormat format) => format switch
+    {
+        WavSampleFormat.Pcm16 => 2,
+        WavSampleFormat.Pcm24 => 3,
+        WavSampleFormat.Pcm32 or WavSampleFormat.Float32 => 4,
+        WavSampleFormat.Float64 => 8,
+        _ => throw new ArgumentOutOfRangeException(nameof(format), format, null),
+    };
+
+    private static WaveFormat CreateFormat(int rate, int channels, WavSampleFormat format) => format switch
+    {
+        WavSampleFormat.Pcm16 => new WaveFormat(rate, 16, channels),
+        WavSampleFormat.Pcm24 => new WaveFormatExtensible(rate, 24, channels, false, 24, 0),
+        WavSampleFormat.Pcm32 => new WaveFormatExtensible(rate, 32, channels, false, 32, 0),
+        WavSampleFormat.Float32 => WaveFormat.CreateIeeeFloatWaveFormat(rate, channels),
+        WavSampleFormat.Float64 => WaveFormat.CreateCustomFormat(WaveFormatEncoding.IeeeFloat, rate, channels,
+            rate * channels * 8, channels * 8, 64),
+        _ => throw new ArgumentOutOfRangeException(nameof(format), format, null),
+    };
+
+    private static void Encode(double[][] block, int length, double perA, WavSampleFormat format, Span<byte> bytes)
+    {
+        var channels = block.Length;
+        var size = BytesPerSample(format);
+        for (var c = 0; c < channels; c++)
+        {
+            var samples = block[c];
+            if (samples.Length != length)
+            {
+                throw new ArgumentException("every channel of a block needs the same length");
+            }
+
+            for (var n = 0; n < length; n++)
+            {
+                var x = Math.Clamp(samples[n] * perA, -1.0, 1.0);
+                var target = bytes.Slice((n * channels + c) * size, size);
+                switch (format)
+                {
+                    case WavSampleFormat.Pcm16:
+                        BinaryPrimitives.WriteInt16LittleEndian(target, (short)Math.Clamp(Math.Round(x * 32768.0), short.MinValue, short.MaxValue));
+                        break;
+                    case WavSampleFormat.Pcm24:
+                        {
+                            var v = (int)Math.Clamp(Math.Round(x * 8388608.0), -8388608, 8388607);
+                            target[0] = (byte)v;
+                            target[1] = (byte)(v >> 8);
+                            target[2] = (byte)(v >> 16);
+                            break;
+                        }
+
+                    case WavSampleFormat.Pcm32:
+                        BinaryPrimitives.WriteInt32LittleEndian(target, (int)Math.Clamp(Math.Round(x * 2147483648.0), int.MinValue, int.MaxValue));
+                        break;
+                    case WavSampleFormat.Float32:
+                        BinaryPrimitives.WriteSingleLittleEndian(target, (float)x);
+                        break;
+                    default:
+                        BinaryPrimitives.WriteDoubleLittleEndian(target, x);
+                        break;
+                }
+            }
+        }
+    }
+}
