@@ -25,8 +25,7 @@ public static class CaptureOpener
         var extension = Path.GetExtension(path).ToLowerInvariant();
         if (extension is ".cfg" or ".cff")
         {
-            throw new CaptureFormatException(path,
-                "COMTRADE support is not built in this build: export the record as WAV or CSV");
+            return Comtrade.ComtradeCaptureSource.Open(path, options);
         }
 
         var length = new FileInfo(path).Length;
