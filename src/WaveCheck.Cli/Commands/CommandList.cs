@@ -8,5 +8,6 @@ internal static class CommandList
     public static IEnumerable<Command> All()
     {
         yield return InfoCommand.Create();
+        yield return SynthCommand.Create();
     }
 }

@@ -36,7 +36,7 @@ internal static class InfoCommand
                 }
             }
 
-            Print(CreateConsole(), info, scan, warnings);
+            Print(ConsoleOutput.Create(), info, scan, warnings);
             return CliRun.Ok;
         }));
         return command;
@@ -100,26 +100,6 @@ internal static class InfoCommand
 
     /// <summary>A Spectre console on <see cref="Console.Out"/>, plain text (no ANSI codes) when NO_COLOR is set or the
     /// output is not a terminal.</summary>
-    private static IAnsiConsole CreateConsole()
-    {
-        var output = new AnsiConsoleOutput(Console.Out);
-        var plain = !string.IsNullOrEmpty(Environment.GetEnvironmentVariable("NO_COLOR")) ||
-                    Console.IsOutputRedirected || !output.IsTerminal;
-        var console = AnsiConsole.Create(new AnsiConsoleSettings
-        {
-            Ansi = plain ? AnsiSupport.No : AnsiSupport.Detect,
-            ColorSystem = plain ? ColorSystemSupport.NoColors : ColorSystemSupport.Detect,
-            Interactive = InteractionSupport.No,
-            Out = output,
-        });
-        if (plain)
-        {
-            console.Profile.Width = 160;
-        }
-
-        return console;
-    }
-
     private static string Value(double si, string unit) =>
         unit == "A" ? CurrentText.Milliamps(si) : si.ToString("G4", CultureInfo.InvariantCulture);
 

@@ -43,6 +43,25 @@ public static partial class Quantity
     public static double ParseFrequencyHz(string option, string text) =>
         Parse(option, text, "Hz", "Hz", "a frequency such as 50, 60Hz or 20kHz");
 
+    /// <summary>Parses a duration (<c>2s</c>, <c>500ms</c>, <c>10min</c>, <c>1h</c>); a bare number is seconds.</summary>
+    /// <returns>Seconds.</returns>
+    public static double ParseDurationS(string option, string text)
+    {
+        const string expected = "a duration such as 2s, 500ms, 10min or 1h";
+        var trimmed = (text ?? string.Empty).Trim();
+        foreach (var (suffix, factor) in new[] { ("min", 60.0), ("h", 3600.0) })
+        {
+            if (trimmed.EndsWith(suffix, StringComparison.OrdinalIgnoreCase) &&
+                double.TryParse(trimmed[..^suffix.Length], NumberStyles.Float, CultureInfo.InvariantCulture, out var n) &&
+                double.IsFinite(n))
+            {
+                return n * factor;
+            }
+        }
+
+        return Parse(option, trimmed, "s", "s", expected);
+    }
+
     /// <summary>Parses a clamp sensitivity (<c>10 mV/mA</c>, <c>0.1 V/A</c>, <c>100mV/A</c>); a bare number is V/A.</summary>
     /// <returns>Volts per ampere.</returns>
     public static double ParseSensitivityVPerA(string option, string text)
