@@ -81,6 +81,12 @@ public sealed record AssessmentOptions
         CheckFraction("--leakage-budget", LeakageBudgetFraction);
         CheckFraction("--risk-possible", PossibleRiskFraction);
         CheckFraction("--risk-likely", LikelyRiskFraction);
+        if ((TypeASmoothDcToleranceA ?? Limits.TypeASmoothDcToleranceA) > (TypeFSmoothDcToleranceA ?? Limits.TypeFSmoothDcToleranceA))
+        {
+            throw new OptionValueException("--type-a-dc", Text(TypeASmoothDcToleranceA ?? Limits.TypeASmoothDcToleranceA) + " A",
+                $"a tolerance no greater than type F's {Text(TypeFSmoothDcToleranceA ?? Limits.TypeFSmoothDcToleranceA)} A (types are ordered by capability)");
+        }
+
         if ((PossibleRiskFraction ?? Limits.PossibleRiskFraction) > (LikelyRiskFraction ?? Limits.LikelyRiskFraction))
         {
             throw new OptionValueException("--risk-possible",
