@@ -7,14 +7,21 @@ namespace WaveCheck.Core.Signal;
 /// keeps the peak and RMS of each weighted reading and the DC of the unweighted one. Memory is constant.
 /// </summary>
 /// <remarks>
-/// The filters start from rest; their time constants are below 0.35 ms, so the start-up transient is over within
-/// the first few milliseconds and cannot raise a peak above the steady value for a step from rest. NaN samples make
-/// the figures NaN (the analysis reports such data before this point). With no samples the figures are 0.
-/// Not thread-safe: one instance per stream.
+/// The filters start from rest, and a waveform that begins mid-cycle makes them ring (a 1 kHz sine started at zero
+/// overshoots the let-go reading's steady peak by some 20 %). The first <see cref="SettlingS"/> (5 ms) of samples
+/// therefore feed the filters but not the figures (engineering choice: over 15 times the slowest time constant,
+/// 0.30 ms of the let-go network's 524 Hz pole, so the start-up term has decayed below 1e-6). NaN samples make the
+/// figures NaN (the analysis reports such data before this point). With no samples past the settling time the
+/// figures are 0. Not thread-safe: one instance per stream.
 /// </remarks>
 public sealed class TouchCurrentMeter : ISampleSink
 {
     private readonly TouchCurrentFilter _unweighted, _perception, _letGo;
+    /// <summary>Start-up time excluded from the figures, seconds.</summary>
+    public const double SettlingS = 0.005;
+
+    private readonly long _settlingSamples;
+    private long _seen;
     private long _count;
     private double _sumU, _sumSqU, _sumSqP, _sumSqL, _peakU, _peakP, _peakL;
 
@@ -26,6 +33,7 @@ public sealed class TouchCurrentMeter : ISampleSink
         _unweighted = TouchCurrentNetworks.Discretise(TouchCurrentNetworks.Unweighted(), sampleRateHz);
         _perception = TouchCurrentNetworks.Discretise(TouchCurrentNetworks.Perception(), sampleRateHz);
         _letGo = TouchCurrentNetworks.Discretise(TouchCurrentNetworks.LetGo(), sampleRateHz);
+        _settlingSamples = (long)Math.Ceiling(SettlingS * sampleRateHz);
     }
 
     /// <inheritdoc />
@@ -36,6 +44,12 @@ public sealed class TouchCurrentMeter : ISampleSink
             var u = _unweighted.Process(x);
             var p = _perception.Process(x);
             var l = _letGo.Process(x);
+            if (_seen++ < _settlingSamples)
+            {
+                continue;
+            }
+
+            _count++;
             _sumU += u;
             _sumSqU += u * u;
             _sumSqP += p * p;
@@ -44,8 +58,6 @@ public sealed class TouchCurrentMeter : ISampleSink
             _peakP = Math.Max(_peakP, Math.Abs(p));
             _peakL = Math.Max(_peakL, Math.Abs(l)); // Math.Max propagates NaN
         }
-
-        _count += samplesA.Length;
     }
 
     /// <summary>Figures so far, amperes (reading = network output voltage / 500 Ω).</summary>
