@@ -33,7 +33,7 @@ public sealed class TouchCurrentMeter : ISampleSink
         _unweighted = TouchCurrentNetworks.Discretise(TouchCurrentNetworks.Unweighted(), sampleRateHz);
         _perception = TouchCurrentNetworks.Discretise(TouchCurrentNetworks.Perception(), sampleRateHz);
         _letGo = TouchCurrentNetworks.Discretise(TouchCurrentNetworks.LetGo(), sampleRateHz);
-        _settlingSamples = (long)Math.Ceiling(SettlingS * sampleRateHz);
+        _settlingSamples = (long)Math.Ceiling((SettlingS * sampleRateHz) - 1e-9); // 1e-9: 0.005 x 1e5 is not exactly 500
     }
 
     /// <inheritdoc />
