@@ -38,21 +38,21 @@ public class TouchCurrentNetworksTests
             case "unweighted":
                 return rb / 500.0; // U1 = I RB
             case "perception":
-            {
-                var branch = 10e3 + Cap(0.022e-6);
-                var vt = Par(rb, branch);
-                return vt * Cap(0.022e-6) / branch / 500.0; // U2 across C1
-            }
+                {
+                    var branch = 10e3 + Cap(0.022e-6);
+                    var vt = Par(rb, branch);
+                    return vt * Cap(0.022e-6) / branch / 500.0; // U2 across C1
+                }
 
             default:
-            {
-                var zb = 20e3 + Cap(9.1e-9);
-                var zp = Par(Cap(6.2e-9), zb);
-                var zl = 10e3 + zp;
-                var vt = Par(rb, zl);
-                var v1 = vt * zp / zl;
-                return v1 * Cap(9.1e-9) / zb / 500.0; // U3 across C2
-            }
+                {
+                    var zb = 20e3 + Cap(9.1e-9);
+                    var zp = Par(Cap(6.2e-9), zb);
+                    var zl = 10e3 + zp;
+                    var vt = Par(rb, zl);
+                    var v1 = vt * zp / zl;
+                    return v1 * Cap(9.1e-9) / zb / 500.0; // U3 across C2
+                }
         }
     }
 
