@@ -59,29 +59,12 @@ internal sealed class AnalysisBuilder
     /// </summary>
     public AnalysisBuilder HalfWave(double peakA, double delayAngleDeg)
     {
-        const int n = 8000;
-        var alpha = delayAngleDeg * Math.PI / 180;
-        var x = new double[n];
-        double mean = 0;
-        for (var i = 0; i < n; i++)
-        {
-            var th = 2 * Math.PI * (i + 0.5) / n;
-            x[i] = th > alpha && th < Math.PI ? peakA * Math.Sin(th) : 0;
-            mean += x[i] / n;
-        }
-
+        var x = IdealHalfWave.Cycle(peakA, delayAngleDeg, 8000);
+        var mean = x.Average();
         double above1kSq = 0;
         for (var k = 1; k <= 400; k++)
         {
-            double re = 0, im = 0;
-            for (var i = 0; i < n; i++)
-            {
-                var ph = 2 * Math.PI * k * (i + 0.5) / n;
-                re += x[i] * Math.Cos(ph);
-                im += x[i] * Math.Sin(ph);
-            }
-
-            var rms = Math.Sqrt((re * re) + (im * im)) * 2 / n / Math.Sqrt(2);
+            var rms = IdealHalfWave.HarmonicRms(x, k);
             if (k == 1)
             {
                 Sine(rms);
