@@ -218,6 +218,25 @@ public class DeviceTypeAssessorTests
     }
 
     [Fact]
+    public void DcSignificanceScalesWithTheCurrent()
+    {
+        // max(1 mA, 5 % of the worst-window RMS): on a 100 mA sine, 3 mA DC is under 5 mA (a clamp's range-scaled
+        // offset); the same 3 mA on a 10 mA sine is over max(1 mA, 0.52 mA) = 1 mA.
+        Assert.Equal("AC", Assess(new AnalysisBuilder().Sine(0.100).SmoothDc(0.003)).RequiredType);
+        Assert.Equal("A", Assess(new AnalysisBuilder().Sine(0.010).SmoothDc(0.003)).RequiredType);
+    }
+
+    [Fact]
+    public void AssessmentSerialisesWithNonFiniteFactorsAsNull()
+    {
+        // ResultJson writes non-finite numbers as null; type A's smooth-DC factor is infinite (does not respond).
+        var r = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.004), new AssessmentOptions { InstalledType = DeviceType.A });
+        var json = ResultJson.Serialize(r);
+        Assert.Contains("\"tripFactor\": null", json);
+        Assert.Contains("\"requiredType\": \"A\"", json);
+    }
+
+    [Fact]
     public void ToleranceAndHighFrequencyOverridesMoveTheVerdict()
     {
         var dc = new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.014);
