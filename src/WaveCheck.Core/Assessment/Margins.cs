@@ -37,7 +37,7 @@ internal static class Margins
             m.HarmonicsTo1kA, harmonicsWeighted > 0 ? m.HarmonicsTo1kA / harmonicsWeighted : 1.0, harmonicsWeighted));
         var hfFactor = TripWeighting.HighFrequencyFactor(type, rated);
         Add("1-20 kHz", Limits.TypeBUpperFrequencyHz, Limits.BPlusUpperFrequencyHz, m.From1kTo20kA, hfFactor);
-        Add("above 20 kHz", Limits.BPlusUpperFrequencyHz, m.SampleRateHz / 2, m.Above20kA, hfFactor);
+        Add("above 20 kHz", Limits.BPlusUpperFrequencyHz, Math.Max(Limits.BPlusUpperFrequencyHz, m.SampleRateHz / 2), m.Above20kA, hfFactor);
 
         double standingSq = 0, rawSq = 0;
         foreach (var p in parts)
@@ -58,6 +58,10 @@ internal static class Margins
             + $"(IEC 61008-1): margin {Ma(margin)} ({margin / limit * 100:0} %); leakage budget {th.LeakageBudgetFraction:0.##} IΔn = {Ma(budget)} "
             + $"(IEC 60364-5-53 §531.3.2) {(standing <= budget ? "kept" : "exceeded")}. Risk {risk}: likely from {th.LikelyFraction:0.##} IΔn, "
             + $"possible from {th.PossibleFraction:0.##} IΔn (engineering choice). A device may trip from 0.5 IΔn at any frequency; the weighting models a typical one.";
+        if (double.IsPositiveInfinity(TripWeighting.SmoothDcFactor(type)) && m.SmoothDcA > 0)
+        {
+            explanation += $" Smooth DC ({Ma(m.SmoothDcA)}) is not counted: a type {name} device does not respond to it (see blinding).";
+        }
         return new NuisanceTripResult(risk, name, standing, limit, margin, margin / limit * 100, budget, standing <= budget,
             parts, explanation);
     }
@@ -91,7 +95,7 @@ internal static class Margins
     public static EvChargingResult EvCharging(MeasuredFigures m, AppliedThresholds th, bool dcKnown, bool evPoint)
     {
         bool? above = m.SmoothDcA >= th.RdcDdA ? true : dcKnown ? false : null;
-        var lead = evPoint ? "EV charging point (IEC 60364-7-722): its own RCD, at least type A. " : "Not declared an EV charging point; if it is one (IEC 60364-7-722): ";
+        var lead = evPoint ? "EV charging point (IEC 60364-7-722): its own RCD, at least type A; " : "Not declared an EV charging point; if it is one (IEC 60364-7-722): ";
         var rec = above switch
         {
             true => $"smooth DC {Ma(m.SmoothDcA)} reaches the {Ma(th.RdcDdA)} at which an RDC-DD disconnects (IEC 62955): fit type B (type A + RDC-DD would disconnect).",

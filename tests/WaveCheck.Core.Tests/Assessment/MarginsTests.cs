@@ -57,6 +57,8 @@ public class MarginsTests
         Assert.Equal(Math.Sqrt((0.010 * 0.010) + (0.005 * 0.005)), nb.StandingA, 12); // quadrature (Parseval)
         Assert.Equal(0.005, Nuisance(b, DeviceType.A).StandingA, 12);
         Assert.True(double.IsPositiveInfinity(Nuisance(b, DeviceType.A).Contributions[0].TripFactor));
+        Assert.Contains("Smooth DC (20.0 mA) is not counted", Nuisance(b, DeviceType.A).Explanation);
+        Assert.DoesNotContain("is not counted", nb.Explanation);
     }
 
     [Fact]
