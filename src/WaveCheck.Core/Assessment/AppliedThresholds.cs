@@ -1,0 +1,103 @@
+using WaveCheck.Core.Results;
+
+namespace WaveCheck.Core.Assessment;
+
+/// <summary>
+/// The thresholds of one assessment after the user's overrides, with the list that records them
+/// (<see cref="AssessmentResult.Thresholds"/>). Significance thresholds scale with the capture's own figures.
+/// </summary>
+internal sealed class AppliedThresholds
+{
+    private const string Overridden = " (overridden)";
+    private readonly List<ThresholdUse> _uses = [];
+
+    public AppliedThresholds(AssessmentOptions o, MeasuredFigures m)
+    {
+        RatedA = o.RatedResidualCurrentA;
+        Add("ratedResidualCurrentA", RatedA, "A", "IΔn of the device assessed (--rated; default 30 mA, practice)");
+
+        DcA = Significance("dcSignificanceA", o.DcThresholdA, Limits.DcSignificanceFraction, m.WindowRmsA,
+            "worst-window RMS", "engineering choice: above a DC clamp's offset, which scales with its range");
+        BelowMainsA = Significance("belowMainsSignificanceA", o.BelowMainsThresholdA, Limits.BelowMainsSignificanceFraction,
+            m.WindowRmsA, "worst-window RMS", "engineering choice: a converter's motor-frequency part is of the order of its mains part");
+        HarmonicA = Significance("harmonicSignificanceA", o.HarmonicThresholdA, Limits.HarmonicSignificanceFraction,
+            m.MainsA, "mains component", "engineering choice: beyond it a mains-frequency rating no longer describes the current");
+        HighFrequencyA = Significance("highFrequencySignificanceA", o.HighFrequencyThresholdA,
+            Limits.HighFrequencySignificanceFraction, m.WindowRmsA, "worst-window RMS",
+            "engineering choice: content above 1 kHz, after a firing edge's own share");
+
+        PulsatingShare = Value("pulsatingShareThreshold", o.PulsatingShareThreshold, Limits.PulsatingShareThreshold, "1",
+            "engineering choice: share of windows judged pulsating DC");
+        TypeADcA = Value("typeASmoothDcToleranceA", o.TypeASmoothDcToleranceA, Limits.TypeASmoothDcToleranceA, "A",
+            "IEC 61008-1 / IEC 61009-1 type A, 6 mA smooth DC (std)");
+        TypeFDcA = Value("typeFSmoothDcToleranceA", o.TypeFSmoothDcToleranceA, Limits.TypeFSmoothDcToleranceA, "A",
+            "IEC 62423 type F, 10 mA smooth DC (std)");
+        TypeBDcA = Limits.TypeBSmoothDcToleranceA(RatedA);
+        Add("typeBSmoothDcToleranceA", TypeBDcA, "A", "IEC 62423 type B, max(0.4 IΔn, 10 mA) (std)");
+        RdcDdA = Value("rdcDdThresholdA", o.RdcDdThresholdA, Limits.RdcDdThresholdA, "A", "IEC 62955 RDC-DD, 6 mA smooth DC (std)");
+        LeakageBudgetFraction = Value("leakageBudgetFraction", o.LeakageBudgetFraction, Limits.LeakageBudgetFraction, "1",
+            "IEC 60364-5-53:2015 §531.3.2, 0.3 IΔn (std)");
+        PossibleFraction = Value("possibleRiskFraction", o.PossibleRiskFraction, Limits.PossibleRiskFraction, "1",
+            "engineering choice: nuisance risk 'possible' from the 0.3 IΔn leakage budget");
+        LikelyFraction = Value("likelyRiskFraction", o.LikelyRiskFraction, Limits.LikelyRiskFraction, "1",
+            "engineering choice: nuisance risk 'likely' from the 0.5 IΔn non-operating limit (IEC 61008-1)");
+        Add("nonOperatingFraction", Limits.NonOperatingFraction, "1", "IEC 61008-1 / IEC 61009-1 Table 1, 0.5 IΔn (std)");
+        Add("frequencyFactor150Hz", Limits.FrequencyFactor150Hz, "1", "IEC 62423 §5.3 upper limit 2.4 IΔn at 150 Hz (from memory)");
+        Add("frequencyFactor400Hz", Limits.FrequencyFactor400Hz, "1", "IEC 62423 §5.3 upper limit 6 IΔn at 400 Hz (from memory)");
+        Add("frequencyFactor1kHz", Limits.FrequencyFactor1kHz, "1", "IEC 62423 §5.3 upper limit 14 IΔn at 1 kHz (from memory)");
+        Add("typeBSmoothDcFactor", Limits.TypeBSmoothDcFactor, "1", "IEC 62423 type B smooth DC upper limit 2 IΔn (std)");
+        Add("pulsatingDcFactor", Limits.PulsatingDcFactor, "1", "IEC 61008-1 pulsating DC upper limit 1.4 IΔn (std)");
+        Add("bPlusUpperLimitA", Limits.BPlusUpperLimitA, "A", "DIN VDE 0664-400 B+ upper limit 420 mA to 20 kHz (from memory)");
+        Add("harmonicRippleRatio", Limits.MultiPhaseRippleRatio, "1",
+            "engineering choice: ripple above the mains component on smooth DC reads as multi-phase rectified");
+        Add("nonMainsDominanceRatio", Limits.NonMainsDominanceRatio, "1",
+            "engineering choice: harmonics above the mains component with no sub-mains part read as non-mains AC (type B)");
+    }
+
+    public double RatedA { get; }
+    public double DcA { get; }
+    public double BelowMainsA { get; }
+    public double HarmonicA { get; }
+    public double HighFrequencyA { get; }
+    public double PulsatingShare { get; }
+    public double TypeADcA { get; }
+    public double TypeFDcA { get; }
+    public double TypeBDcA { get; }
+    public double RdcDdA { get; }
+    public double LeakageBudgetFraction { get; }
+    public double PossibleFraction { get; }
+    public double LikelyFraction { get; }
+
+    public IReadOnlyList<ThresholdUse> Uses => _uses;
+
+    /// <summary>Smooth-DC tolerance of a type; null for AC (none: any significant DC).</summary>
+    public double? DcTolerance(DeviceType type) => type switch
+    {
+        DeviceType.AC => null,
+        DeviceType.A => TypeADcA,
+        DeviceType.F => TypeFDcA,
+        _ => TypeBDcA,
+    };
+
+    private double Significance(string name, double? given, double fraction, double reference, string referenceName, string why)
+    {
+        if (given is { } g)
+        {
+            Add(name, g, "A", why + Overridden);
+            return g;
+        }
+
+        var value = Math.Max(Limits.SignificanceFloorA, fraction * reference);
+        Add(name, value, "A", $"{why}; max(1 mA, {fraction * 100:0.#} % of the {referenceName})");
+        return value;
+    }
+
+    private double Value(string name, double? given, double fallback, string unit, string source)
+    {
+        var value = given ?? fallback;
+        Add(name, value, unit, given is null ? source : source + Overridden);
+        return value;
+    }
+
+    private void Add(string name, double value, string unit, string source) => _uses.Add(new ThresholdUse(name, value, unit, source));
+}

@@ -1,0 +1,140 @@
+namespace WaveCheck.Core.Assessment;
+
+/// <summary>Which family of protective devices the verdict addresses.</summary>
+public enum Regime
+{
+    /// <summary>IEC residual-current devices (types AC, A, F, B, B+); JSON/CLI text <c>iec</c>.</summary>
+    Iec,
+
+    /// <summary>North America: UL 943 GFCIs in addition to the IEC type verdicts; text <c>na</c>.</summary>
+    Na,
+}
+
+/// <summary>
+/// What the user tells the assessment: the device, the regime, and any threshold they disagree with.
+/// Every threshold property is null for the default in <see cref="Limits"/>; a value given replaces the default
+/// outright (for the significance thresholds: replaces max(floor, fraction × RMS) with the fixed value).
+/// Immutable; safe to share between threads.
+/// </summary>
+public sealed record AssessmentOptions
+{
+    /// <summary>Rated residual operating current IΔn, amperes (CLI <c>--rated</c>).</summary>
+    public double RatedResidualCurrentA { get; init; } = Limits.DefaultRatedResidualCurrentA;
+
+    /// <summary>Installed device type (CLI <c>--device</c>); null when not given: margins are then for the required type.</summary>
+    public DeviceType? InstalledType { get; init; }
+
+    /// <summary>Regime (CLI <c>--regime iec|na</c>).</summary>
+    public Regime Regime { get; init; } = Regime.Iec;
+
+    /// <summary>The circuit feeds an EV charging point (CLI <c>--ev</c>): IEC 60364-7-722 guidance is given as a requirement.</summary>
+    public bool EvChargingPoint { get; init; }
+
+    /// <summary>Smooth DC counted as present, amperes (CLI <c>--dc-threshold</c>); default max(1 mA, 5 % of worst-window RMS).</summary>
+    public double? DcThresholdA { get; init; }
+
+    /// <summary>Sub-mains / non-harmonic content counted as a converter signature, amperes (CLI <c>--below-mains-threshold</c>);
+    /// default max(1 mA, 10 % of worst-window RMS).</summary>
+    public double? BelowMainsThresholdA { get; init; }
+
+    /// <summary>Harmonic content to 1 kHz counted as non-sinusoidal, amperes (CLI <c>--harmonic-threshold</c>);
+    /// default max(1 mA, 50 % of the mains component).</summary>
+    public double? HarmonicThresholdA { get; init; }
+
+    /// <summary>Content above 1 kHz counted as present, amperes (CLI <c>--hf-threshold</c>); default max(1 mA, 10 % of worst-window RMS).</summary>
+    public double? HighFrequencyThresholdA { get; init; }
+
+    /// <summary>Share of windows (0..1) that must be pulsating DC to count (CLI <c>--pulsating-share</c>); default 0.05.</summary>
+    public double? PulsatingShareThreshold { get; init; }
+
+    /// <summary>Type A smooth-DC tolerance, amperes (CLI <c>--type-a-dc</c>); default 6 mA (IEC 61008-1).</summary>
+    public double? TypeASmoothDcToleranceA { get; init; }
+
+    /// <summary>Type F smooth-DC tolerance, amperes (CLI <c>--type-f-dc</c>); default 10 mA (IEC 62423).</summary>
+    public double? TypeFSmoothDcToleranceA { get; init; }
+
+    /// <summary>RDC-DD DC threshold, amperes (CLI <c>--rdc-dd</c>); default 6 mA (IEC 62955).</summary>
+    public double? RdcDdThresholdA { get; init; }
+
+    /// <summary>Leakage budget as a fraction of IΔn (CLI <c>--leakage-budget</c>); default 0.3 (IEC 60364-5-53 §531.3.2).</summary>
+    public double? LeakageBudgetFraction { get; init; }
+
+    /// <summary>Nuisance risk "possible" boundary as a fraction of IΔn (CLI <c>--risk-possible</c>); default 0.3.</summary>
+    public double? PossibleRiskFraction { get; init; }
+
+    /// <summary>Nuisance risk "likely" boundary as a fraction of IΔn (CLI <c>--risk-likely</c>); default 0.5.</summary>
+    public double? LikelyRiskFraction { get; init; }
+
+    /// <summary>Checks every value; the message names the CLI option, the value and the range expected.</summary>
+    /// <exception cref="OptionValueException">A value is out of range.</exception>
+    public void Validate()
+    {
+        CheckCurrent("--rated", RatedResidualCurrentA, allowZero: false);
+        CheckCurrent("--dc-threshold", DcThresholdA);
+        CheckCurrent("--below-mains-threshold", BelowMainsThresholdA);
+        CheckCurrent("--harmonic-threshold", HarmonicThresholdA);
+        CheckCurrent("--hf-threshold", HighFrequencyThresholdA);
+        CheckCurrent("--type-a-dc", TypeASmoothDcToleranceA);
+        CheckCurrent("--type-f-dc", TypeFSmoothDcToleranceA);
+        CheckCurrent("--rdc-dd", RdcDdThresholdA, allowZero: false);
+        CheckFraction("--pulsating-share", PulsatingShareThreshold);
+        CheckFraction("--leakage-budget", LeakageBudgetFraction);
+        CheckFraction("--risk-possible", PossibleRiskFraction);
+        CheckFraction("--risk-likely", LikelyRiskFraction);
+        if ((TypeASmoothDcToleranceA ?? Limits.TypeASmoothDcToleranceA) > (TypeFSmoothDcToleranceA ?? Limits.TypeFSmoothDcToleranceA))
+        {
+            throw new OptionValueException("--type-a-dc", Text(TypeASmoothDcToleranceA ?? Limits.TypeASmoothDcToleranceA) + " A",
+                $"a tolerance no greater than type F's {Text(TypeFSmoothDcToleranceA ?? Limits.TypeFSmoothDcToleranceA)} A (types are ordered by capability)");
+        }
+
+        if ((PossibleRiskFraction ?? Limits.PossibleRiskFraction) > (LikelyRiskFraction ?? Limits.LikelyRiskFraction))
+        {
+            throw new OptionValueException("--risk-possible",
+                Text(PossibleRiskFraction ?? Limits.PossibleRiskFraction),
+                $"a fraction of IΔn no greater than the 'likely' boundary {Text(LikelyRiskFraction ?? Limits.LikelyRiskFraction)}");
+        }
+    }
+
+    private static void CheckCurrent(string option, double? valueA, bool allowZero = true)
+    {
+        if (valueA is not { } v)
+        {
+            return;
+        }
+
+        if (!double.IsFinite(v) || v < 0 || (!allowZero && v == 0) || v > 100)
+        {
+            throw new OptionValueException(option, Text(v) + " A",
+                allowZero ? "a current from 0 to 100 A, such as 6mA" : "a current above 0 and up to 100 A, such as 30mA");
+        }
+    }
+
+    private static void CheckFraction(string option, double? value)
+    {
+        if (value is { } v && (!double.IsFinite(v) || v <= 0 || v > 1))
+        {
+            throw new OptionValueException(option, Text(v), "a fraction above 0 and at most 1, such as 0.3");
+        }
+    }
+
+    private static string Text(double v) => v.ToString("G6", System.Globalization.CultureInfo.InvariantCulture);
+}
+
+/// <summary>Text forms of <see cref="Regime"/>.</summary>
+public static class RegimeNames
+{
+    /// <summary><c>iec</c> or <c>na</c>.</summary>
+    public static string ToText(this Regime regime) => regime == Regime.Na ? "na" : "iec";
+
+    /// <summary>Parses <c>iec</c> or <c>na</c> (case-insensitive).</summary>
+    /// <returns>False when the text is neither.</returns>
+    public static bool TryParse(string? text, out Regime regime)
+    {
+        switch (text?.Trim().ToUpperInvariant())
+        {
+            case "IEC": regime = Regime.Iec; return true;
+            case "NA": regime = Regime.Na; return true;
+            default: regime = Regime.Iec; return false;
+        }
+    }
+}

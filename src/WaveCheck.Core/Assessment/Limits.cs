@@ -1,0 +1,197 @@
+namespace WaveCheck.Core.Assessment;
+
+/// <summary>
+/// Every threshold a verdict uses, in SI units, each with its source and status as listed in the project's
+/// reference table: <b>std</b> (the standard's value as reproduced in public secondary sources), <b>from memory</b>
+/// (not confirmed against the standard's text: overridable and marked so in the output), <b>practice</b>, or
+/// <b>engineering choice</b> with the reasoning. Values a user may reasonably dispute can be overridden through
+/// <see cref="AssessmentOptions"/>; the ones applied travel into <c>AssessmentResult.Thresholds</c>.
+/// </summary>
+public static class Limits
+{
+    /// <summary>Default rated residual operating current IΔn, 0.030 A.</summary>
+    /// <remarks>Practice: 30 mA is the additional-protection rating (IEC 60364-4-41 §415.1); rated values in use are
+    /// 10, 30, 100, 300, 500 mA.</remarks>
+    public const double DefaultRatedResidualCurrentA = 0.030;
+
+    /// <summary>Rated residual non-operating current as a fraction of IΔn: 0.5.</summary>
+    /// <remarks>IEC 61008-1 / IEC 61009-1 (Table 1: AC tripping range 0.5 to 1.0 IΔn), std. A standing current at or
+    /// above it may trip a healthy device.</remarks>
+    public const double NonOperatingFraction = 0.5;
+
+    /// <summary>Leakage budget downstream of an RCD as a fraction of IΔn: 0.3 (9 mA for 30 mA).</summary>
+    /// <remarks>IEC 60364-5-53:2015 §531.3.2 (as in national wiring rules), std.</remarks>
+    public const double LeakageBudgetFraction = 0.3;
+
+    /// <summary>Nuisance risk "likely" at or above this fraction of IΔn of weighted standing current: 0.5.</summary>
+    /// <remarks>Engineering choice: the non-operating limit (IEC 61008-1) itself; above it the standard allows the
+    /// device to trip.</remarks>
+    public const double LikelyRiskFraction = NonOperatingFraction;
+
+    /// <summary>Nuisance risk "possible" at or above this fraction of IΔn: 0.3.</summary>
+    /// <remarks>Engineering choice: the 0.3 IΔn leakage budget (IEC 60364-5-53 §531.3.2); between it and 0.5 IΔn a
+    /// transient (switch-on surge, a second load) can close the remaining gap.</remarks>
+    public const double PossibleRiskFraction = LeakageBudgetFraction;
+
+    /// <summary>Smooth DC a type A device still works with: 0.006 A.</summary>
+    /// <remarks>IEC 61008-1 / IEC 61009-1 type A (pulsating DC with 6 mA smooth DC superimposed), std.</remarks>
+    public const double TypeASmoothDcToleranceA = 0.006;
+
+    /// <summary>Smooth DC a type F device still works with: 0.010 A.</summary>
+    /// <remarks>IEC 62423 type F (pulsating DC on smooth DC up to 10 mA), std.</remarks>
+    public const double TypeFSmoothDcToleranceA = 0.010;
+
+    /// <summary>Type B works with superimposed smooth DC up to this fraction of IΔn (or <see cref="TypeBSmoothDcToleranceMinA"/>, whichever is higher): 0.4.</summary>
+    /// <remarks>IEC 62423 type B, std.</remarks>
+    public const double TypeBSmoothDcToleranceFraction = 0.4;
+
+    /// <summary>Lower bound of the type B smooth-DC tolerance: 0.010 A.</summary>
+    /// <remarks>IEC 62423 type B ("0.4 IΔn or 10 mA, whichever is higher"), std.</remarks>
+    public const double TypeBSmoothDcToleranceMinA = 0.010;
+
+    /// <summary>Smooth DC at which an RDC-DD disconnects: 0.006 A.</summary>
+    /// <remarks>IEC 62955 (threshold std; its trip times 10 s at 6 mA, 0.3 s at 60 mA, 0.1 s at 200 mA from memory).
+    /// IEC 60364-7-722 asks for type B, or type A plus an RDC-DD, where DC ≥ 6 mA cannot be ruled out (std).</remarks>
+    public const double RdcDdThresholdA = 0.006;
+
+    /// <summary>Upper tripping limit of type B (and F, per the same clause) at 150 Hz, multiples of IΔn: 2.4.</summary>
+    /// <remarks>IEC 62423 §5.3, from memory.</remarks>
+    public const double FrequencyFactor150Hz = 2.4;
+
+    /// <summary>Upper tripping limit at 400 Hz, multiples of IΔn: 6.</summary>
+    /// <remarks>IEC 62423 §5.3, from memory.</remarks>
+    public const double FrequencyFactor400Hz = 6.0;
+
+    /// <summary>Upper tripping limit at 1 kHz, multiples of IΔn: 14.</summary>
+    /// <remarks>IEC 62423 §5.3, from memory. Above 1 kHz type B's response is not defined; the weighting holds this
+    /// factor (engineering choice: no credit for a further fall in sensitivity the standard does not promise).</remarks>
+    public const double FrequencyFactor1kHz = 14.0;
+
+    /// <summary>Upper tripping limit of type B smooth DC, multiples of IΔn: 2.</summary>
+    /// <remarks>IEC 62423 (B smooth DC trips between 0.5 and 2 IΔn), std.</remarks>
+    public const double TypeBSmoothDcFactor = 2.0;
+
+    /// <summary>Upper tripping limit of pulsating DC, multiples of IΔn: 1.4 (for IΔn above 10 mA).</summary>
+    /// <remarks>IEC 61008-1 / IEC 61009-1, type A half-wave at 0°, 90°, 135°: upper limit 1.4 IΔn, std.</remarks>
+    public const double PulsatingDcFactor = 1.4;
+
+    /// <summary>Upper limit of B+ (extended type B) up to 20 kHz: 0.420 A.</summary>
+    /// <remarks>DIN VDE 0664-400/-401 (designation std; the 420 mA value from memory). Used as the B+ weighting
+    /// above 1 kHz as 420 mA / IΔn, never above <see cref="FrequencyFactor1kHz"/> (engineering choice: conservative).</remarks>
+    public const double BPlusUpperLimitA = 0.420;
+
+    /// <summary>Upper frequency of B+'s defined tripping: 20 000 Hz.</summary>
+    /// <remarks>DIN VDE 0664-400 (B+ tripping defined up to 20 kHz), std.</remarks>
+    public const double BPlusUpperFrequencyHz = 20_000;
+
+    /// <summary>Upper frequency of type B's defined tripping (and of "composite" content for type F): 1000 Hz.</summary>
+    /// <remarks>IEC 62423 (type B: sinusoidal AC up to 1 kHz; type F's composite test current includes a 1 kHz
+    /// component), std.</remarks>
+    public const double TypeBUpperFrequencyHz = 1000;
+
+    /// <summary>Sample rate at which the B+ question can be answered: 2 × 20 kHz = 40 000 Hz (Nyquist).</summary>
+    /// <remarks>Derived from <see cref="BPlusUpperFrequencyHz"/>. The caution recommends ≥ 50 kS/s
+    /// (<see cref="RecommendedSampleRateHz"/>).</remarks>
+    public const double BPlusMinimumSampleRateHz = 2 * BPlusUpperFrequencyHz;
+
+    /// <summary>Sample rate recommended in cautions: 50 000 Hz.</summary>
+    /// <remarks>Engineering choice: 25 % above the 40 kS/s Nyquist minimum so an anti-alias filter's transition band
+    /// lies above 20 kHz.</remarks>
+    public const double RecommendedSampleRateHz = 50_000;
+
+    /// <summary>Absolute floor of every "significant content" threshold: 0.001 A.</summary>
+    /// <remarks>Engineering choice: above the zero offset of a typical DC-capable leakage clamp (some 0.1 to 0.5 mA)
+    /// and one sixth of the 6 mA type A tolerance, so a real 6 mA question is never hidden; one tenth of a 10 mA
+    /// device's IΔn.</remarks>
+    public const double SignificanceFloorA = 0.001;
+
+    /// <summary>Smooth DC counts as present at or above max(<see cref="SignificanceFloorA"/>, this fraction × worst-window RMS): 0.05.</summary>
+    /// <remarks>Engineering choice: a clamp's DC offset and drift scale with its range, and the range follows the
+    /// current measured; 5 % of the RMS (−26 dB) is about the accuracy of a leakage clamp. It decides type AC only
+    /// (types A and F have their own absolute tolerances).</remarks>
+    public const double DcSignificanceFraction = 0.05;
+
+    /// <summary>Sub-mains content (and non-harmonic tones up to 1 kHz) counts as a frequency-converter
+    /// signature at or above max(<see cref="SignificanceFloorA"/>, this fraction × worst-window RMS): 0.10.</summary>
+    /// <remarks>Engineering choice: a converter's motor-frequency component is of the order of its mains component;
+    /// at 10 % of the RMS (−20 dB) it changes the RMS by only 0.5 %, so below it the current is practically a mains
+    /// current and a mains-frequency device judges it correctly. Load flicker and window-edge leakage stay far below.</remarks>
+    public const double BelowMainsSignificanceFraction = 0.10;
+
+    /// <summary>Harmonic content (groups 2 up to 1 kHz, bipolar currents only) beyond which the current is no longer
+    /// "sinusoidal at mains frequency": max(<see cref="SignificanceFloorA"/>, this fraction × the mains component): 0.5.</summary>
+    /// <remarks>Engineering choice: types AC and A are specified at rated frequency only. With harmonics at half the
+    /// fundamental the RMS is 1.12 × the fundamental, so a device reacting to the fundamental alone trips at most
+    /// 12 % late, inside its own 0.5 to 1.0 IΔn band; beyond that the mains-frequency rating no longer describes the
+    /// current. Ordinary capacitive leakage on a distorted supply (harmonic currents some 5 to 20 % of the fundamental)
+    /// stays below. For pulsating DC the harmonics are its own and are not counted.</remarks>
+    public const double HarmonicSignificanceFraction = 0.5;
+
+    /// <summary>When harmonic content to 1 kHz exceeds this multiple of the mains component and there is no sub-mains
+    /// signature, the current is AC at a frequency other than mains: type B ("sinusoidal AC up to 1 kHz"): 1.0.</summary>
+    /// <remarks>Engineering choice: a composite current (type F) carries its mains part; a current dominated by another
+    /// frequency is the case type B adds (IEC 62423).</remarks>
+    public const double NonMainsDominanceRatio = 1.0;
+
+    /// <summary>Content above 1 kHz (up to 20 kHz) counts as present at or above max(<see cref="SignificanceFloorA"/>,
+    /// this fraction × worst-window RMS): 0.10.</summary>
+    /// <remarks>Engineering choice, as for <see cref="BelowMainsSignificanceFraction"/>. For a phase-controlled
+    /// half-wave the content its own firing edge puts above 1 kHz (closed-form Fourier series of the ideal waveform)
+    /// is taken off first, so a dimmer does not read as a switching converter.</remarks>
+    public const double HighFrequencySignificanceFraction = 0.10;
+
+    /// <summary>Smooth DC on which harmonic ripple rides counts as multi-phase rectified current (type B) when the
+    /// ripple (harmonic groups 2 to 1 kHz) exceeds this multiple of the mains component: 1.0.</summary>
+    /// <remarks>Engineering choice: a single-phase half-wave has its fundamental 2.3 times its harmonic content
+    /// (closed form: Ipk/2 against 0.217 Ipk); a 3- or 6-pulse bridge has no fundamental and ripple at 150/300 Hz
+    /// (IEC 60364-5-53 guidance).</remarks>
+    public const double MultiPhaseRippleRatio = 1.0;
+
+    /// <summary>Pulsating DC counts as present when the analysis flags the capture so, or at least this share of
+    /// windows is pulsating: 0.05.</summary>
+    /// <remarks>Engineering choice: a load that runs phase-controlled for one minute in twenty still needs a device
+    /// that detects it; a share below 5 % is more likely a misjudged window than a load.</remarks>
+    public const double PulsatingShareThreshold = 0.05;
+
+    /// <summary>A tone within this fraction of the mains frequency from a harmonic is counted as that harmonic: 0.05.</summary>
+    /// <remarks>Engineering choice: half a 5 Hz bin at 50 Hz, the resolution of IEC 61000-4-7 windows.</remarks>
+    public const double HarmonicToneToleranceFraction = 0.05;
+
+    /// <summary>Phase-controlled half-waves with a delay angle below this are treated as uncontrolled: 10°.</summary>
+    /// <remarks>Engineering choice: below 10° the firing edge is under 17 % of the peak and its high-frequency content
+    /// negligible.</remarks>
+    public const double MinimumDelayAngleDeg = 10;
+
+    /// <summary>UL 943 Class A GFCI must trip at or above 0.006 A.</summary>
+    /// <remarks>UL 943, std.</remarks>
+    public const double GfciClassAMustTripA = 0.006;
+
+    /// <summary>UL 943 Class A GFCI must not trip below 0.004 A.</summary>
+    /// <remarks>UL 943, std.</remarks>
+    public const double GfciClassAMustNotTripA = 0.004;
+
+    /// <summary>Special-purpose GFCI (UL 943C classes C, D, E) trip threshold, upper end: 0.020 A.</summary>
+    /// <remarks>UL 943C (15 to 20 mA), std.</remarks>
+    public const double GfciSpecialPurposeTripA = 0.020;
+
+    /// <summary>Special-purpose GFCI trip threshold, lower end: 0.015 A.</summary>
+    /// <remarks>UL 943C (15 to 20 mA), std.</remarks>
+    public const double GfciSpecialPurposeLowA = 0.015;
+
+    /// <summary>UL 943 trip-time formula T = (<see cref="GfciTripTimeReferenceA"/> / I)^<see cref="GfciTripTimeExponent"/> s: reference current 0.020 A.</summary>
+    /// <remarks>UL 943 (I in mA rms, valid 6 to 264 mA), std.</remarks>
+    public const double GfciTripTimeReferenceA = 0.020;
+
+    /// <summary>Exponent of the UL 943 trip-time formula: 1.43.</summary>
+    /// <remarks>UL 943, std.</remarks>
+    public const double GfciTripTimeExponent = 1.43;
+
+    /// <summary>Upper end of the UL 943 trip-time formula's range: 0.264 A.</summary>
+    /// <remarks>UL 943, std.</remarks>
+    public const double GfciTripTimeMaxA = 0.264;
+
+    /// <summary>Type B smooth-DC tolerance at a rating: max(0.4 IΔn, 10 mA) (IEC 62423).</summary>
+    /// <param name="ratedA">IΔn, amperes.</param>
+    public static double TypeBSmoothDcToleranceA(double ratedA) =>
+        Math.Max(TypeBSmoothDcToleranceFraction * ratedA, TypeBSmoothDcToleranceMinA);
+}

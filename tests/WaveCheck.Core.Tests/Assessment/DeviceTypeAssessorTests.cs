@@ -1,0 +1,366 @@
+using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Capture;
+using WaveCheck.Core.Results;
+
+namespace WaveCheck.Core.Tests.Assessment;
+
+/// <summary>
+/// Required type and per-type verdicts for the standard waveforms of IEC 60364-5-53 §531.3.3 / IEC 62423, built as
+/// the figures an ideal analysis reports (<see cref="AnalysisBuilder"/>).
+/// </summary>
+public class DeviceTypeAssessorTests
+{
+    private static readonly AssessmentOptions Defaults = new();
+
+    private static AssessmentResult Assess(AnalysisBuilder b, AssessmentOptions? o = null) =>
+        DeviceTypeAssessor.Assess(b.Build(), o ?? Defaults);
+
+    private static bool? Suitable(AssessmentResult r, string type) => r.Types.Single(t => t.Type == type).Suitable;
+
+    private static void AssertVerdicts(AssessmentResult r, bool? ac, bool? a, bool? f, bool? b, bool? bPlus)
+    {
+        Assert.Equal(["AC", "A", "F", "B", "B+"], r.Types.Select(t => t.Type));
+        Assert.Equal(ac, Suitable(r, "AC"));
+        Assert.Equal(a, Suitable(r, "A"));
+        Assert.Equal(f, Suitable(r, "F"));
+        Assert.Equal(b, Suitable(r, "B"));
+        Assert.Equal(bPlus, Suitable(r, "B+"));
+        Assert.All(r.Types, t => Assert.NotEmpty(t.Reasons));
+    }
+
+    [Fact]
+    public void MainsSineNeedsOnlyTypeAC()
+    {
+        // IEC 61008-1: type AC detects sinusoidal AC residual current.
+        var r = Assess(new AnalysisBuilder().Sine(0.010));
+        Assert.Equal("AC", r.RequiredType);
+        Assert.Equal("AC", r.MinimumType);
+        AssertVerdicts(r, true, true, true, true, true);
+        Assert.StartsWith("Type AC sufficient", r.Headline);
+    }
+
+    [Theory]
+    [InlineData(0.0)]
+    [InlineData(90.0)]
+    [InlineData(135.0)]
+    public void HalfWavePulsatingDcAtAnyDelayAngleNeedsTypeA(double angleDeg)
+    {
+        // IEC 61008-1: type A detects pulsating DC (half-wave at 0°, 90°, 135°); AC does not.
+        var b = new AnalysisBuilder().HalfWave(0.020, angleDeg);
+        var r = Assess(b);
+        Assert.Equal("A", r.RequiredType);
+        AssertVerdicts(r, false, true, true, true, true);
+        Assert.Contains("pulsating DC", r.Types[0].Reasons[0]);
+        Assert.Contains("pulsating DC", r.Headline);
+    }
+
+    [Fact]
+    public void FiringEdgeHighFrequencyContentDoesNotReadAsSwitchingConverter()
+    {
+        // A 135° half-wave's step puts > 10 % of its RMS above 1 kHz (plain DFT in the builder); the closed-form
+        // Fourier series accounts for it, so the verdict stays type A rather than B+.
+        var analysis = new AnalysisBuilder().HalfWave(0.020, 135).Build();
+        Assert.True(analysis.Components.Above1kHzRmsA > 0.10 * analysis.Summary.RmsA, "premise: edge content is above the 10 % significance");
+        var r = DeviceTypeAssessor.Assess(analysis, Defaults);
+        Assert.Equal("A", r.RequiredType);
+
+        // Real switching content on top of the same dimmer is still seen.
+        var withSwitching = DeviceTypeAssessor.Assess(new AnalysisBuilder().HalfWave(0.020, 135).HighFrequency(16_000, 0.004).Build(), Defaults);
+        Assert.Equal("B+", withSwitching.RequiredType);
+    }
+
+    [Theory]
+    // IEC 61008-1: A works with 6 mA smooth DC; IEC 62423: F with 10 mA; beyond: B.
+    [InlineData(0.004, "A")]
+    [InlineData(0.008, "F")]
+    [InlineData(0.014, "B")]
+    [InlineData(-0.014, "B")] // type B: smooth DC of either polarity
+    public void HalfWaveOnSmoothDcNeedsTheTypeThatToleratesIt(double smoothDcA, string expected)
+    {
+        var r = Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(smoothDcA));
+        Assert.Equal(expected, r.RequiredType);
+    }
+
+    [Fact]
+    public void EightMilliampsSmoothDcRulesOutTypeAWithItsLimit()
+    {
+        var r = Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.008));
+        AssertVerdicts(r, false, false, true, true, true);
+        Assert.Contains("8.00 mA exceeds the 6.00 mA that type A tolerates (IEC 61008-1 / IEC 61009-1)", r.Types[1].Reasons[0]);
+    }
+
+    [Fact]
+    public void HeadlineQuotesTheDecidingFigureTheLimitAndItsSource()
+    {
+        var r = Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.0142));
+        Assert.Equal("Type B required: smooth DC 14.2 mA exceeds the 10.0 mA that type F tolerates (IEC 62423)", r.Headline);
+    }
+
+    [Fact]
+    public void CompositeConverterCurrentNeedsTypeF()
+    {
+        // IEC 62423 composite test current: 10 Hz (motor) + 50 Hz (rated) + 1 kHz (switching) components.
+        var b = new AnalysisBuilder().Sine(0.010).BelowMains(0.003).Harmonic(20, 0.003);
+        var r = Assess(b);
+        Assert.Equal("F", r.RequiredType);
+        AssertVerdicts(r, false, false, true, true, true);
+        Assert.Contains("sub-mains content 3.00 mA", r.Types[1].Reasons[0]);
+    }
+
+    [Fact]
+    public void NonHarmonicMotorToneMarksCompositeCurrent()
+    {
+        // A 70 Hz motor frequency is not a 50 Hz harmonic: a converter's signature (IEC 62423 composite current).
+        var r = Assess(new AnalysisBuilder().Sine(0.010).Tone(70, 0.004));
+        Assert.Equal("F", r.RequiredType);
+    }
+
+    [Fact]
+    public void SmoothDcWithSixPulseRippleNeedsTypeB()
+    {
+        // Three-phase bridge: smooth DC with 300 Hz ripple (harmonic 6 at 50 Hz), no fundamental (IEC 60364-5-53
+        // guidance). The DC alone (5 mA) is within type F's 10 mA: the ripple signature decides.
+        var r = Assess(new AnalysisBuilder().SmoothDc(0.005).Harmonic(6, 0.002).Sine(0.0002));
+        Assert.Equal("B", r.RequiredType);
+        Assert.Contains("two or more phases", r.Headline);
+
+        var large = Assess(new AnalysisBuilder().SmoothDc(0.020).Harmonic(6, 0.002));
+        Assert.Equal("B", large.RequiredType);
+    }
+
+    [Fact]
+    public void SinusoidalCurrentAtAnotherFrequencyNeedsTypeB()
+    {
+        // IEC 62423: type B adds sinusoidal AC up to 1 kHz; 400 Hz (order 8) dominates, no sub-mains part.
+        var r = Assess(new AnalysisBuilder().Sine(0.001).Harmonic(8, 0.008));
+        Assert.Equal("B", r.RequiredType);
+    }
+
+    [Fact]
+    public void ModestHarmonicsOnCapacitiveLeakageStayTypeAC()
+    {
+        // 20 % third harmonic: below the 50 % of the mains component (engineering choice, Limits).
+        var r = Assess(new AnalysisBuilder().Sine(0.010).Harmonic(3, 0.002));
+        Assert.Equal("AC", r.RequiredType);
+    }
+
+    [Fact]
+    public void SwitchingLeakageAt16kHzNeedsBPlus()
+    {
+        // DIN VDE 0664-400: B+ tripping defined up to 20 kHz; type B only to 1 kHz (IEC 62423).
+        var b = new AnalysisBuilder().Sine(0.005).BelowMains(0.002).HighFrequency(16_000, 0.003);
+        var r = Assess(b);
+        Assert.Equal("B+", r.RequiredType);
+        AssertVerdicts(r, false, false, false, false, true);
+        Assert.Contains("type B's tripping is defined only up to 1 kHz", r.Headline);
+    }
+
+    [Fact]
+    public void AcCoupledSensorLeavesDcVerdictsOpen()
+    {
+        var r = Assess(new AnalysisBuilder().Sine(0.010).Coupling(SensorCoupling.Ac));
+        AssertVerdicts(r, null, null, null, true, true);
+        Assert.Null(r.RequiredType);
+        Assert.Equal("AC", r.MinimumType);
+        Assert.Contains(r.Cautions, c => c.Contains("DC-coupled clamp"));
+        Assert.Null(r.Blinding.Blinded);
+        Assert.Null(r.EvCharging.DcAboveRdcDdThreshold);
+        Assert.StartsWith("Required type cannot be determined", r.Headline);
+    }
+
+    [Fact]
+    public void AcCoupledSensorStillRulesOutWhatTheSeenFiguresRuleOut()
+    {
+        // Composite current is seen through any sensor: AC and A are out, F stays open on DC.
+        var r = Assess(new AnalysisBuilder().Sine(0.010).BelowMains(0.003).Coupling(SensorCoupling.Ac));
+        AssertVerdicts(r, false, false, null, true, true);
+        Assert.Equal("F", r.MinimumType);
+        Assert.Null(r.RequiredType);
+    }
+
+    [Fact]
+    public void UnknownCouplingThatShowsDcIsJudgedOnIt()
+    {
+        var r = Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.014).Coupling(SensorCoupling.Unknown));
+        Assert.Equal("B", r.RequiredType);
+
+        var open = Assess(new AnalysisBuilder().Sine(0.010).Coupling(SensorCoupling.Unknown));
+        Assert.Null(open.RequiredType);
+        Assert.Contains(open.Cautions, c => c.Contains("coupling is not stated"));
+    }
+
+    [Fact]
+    public void LowSampleRateLeavesBPlusOpen()
+    {
+        // Nyquist: 20 kS/s shows only 10 kHz, not the 20 kHz B+ is defined to.
+        var r = Assess(new AnalysisBuilder().Sine(0.010).SampleRate(20_000));
+        Assert.Equal("AC", r.RequiredType);
+        Assert.Null(Suitable(r, "B+"));
+        Assert.Contains(r.Cautions, c => c.Contains("50 kS/s"));
+
+        var dc = Assess(new AnalysisBuilder().SmoothDc(0.014).Sine(0.005).SampleRate(20_000));
+        Assert.Equal("B", dc.RequiredType);
+        Assert.Null(Suitable(dc, "B+"));
+
+        var all = Assess(new AnalysisBuilder().Sine(0.005).HighFrequency(5_000, 0.003).SampleRate(20_000));
+        Assert.Equal("B+", all.RequiredType);
+    }
+
+    [Fact]
+    public void DcThresholdOverrideDecidesTypeACorA()
+    {
+        // 1.5 mA smooth DC on a 10 mA sine: default significance max(1 mA, 5 % of 10.1 mA) = 1 mA -> present.
+        var b = new AnalysisBuilder().Sine(0.010).SmoothDc(0.0015);
+        Assert.Equal("A", Assess(b).RequiredType);
+        var r = Assess(b, new AssessmentOptions { DcThresholdA = 0.002 });
+        Assert.Equal("AC", r.RequiredType);
+        Assert.Contains(r.Thresholds, t => t.Name == "dcSignificanceA" && t.Value == 0.002 && t.Source.EndsWith("(overridden)"));
+    }
+
+    [Fact]
+    public void DcSignificanceScalesWithTheCurrent()
+    {
+        // max(1 mA, 5 % of the worst-window RMS): on a 100 mA sine, 3 mA DC is under 5 mA (a clamp's range-scaled
+        // offset); the same 3 mA on a 10 mA sine is over max(1 mA, 0.52 mA) = 1 mA.
+        Assert.Equal("AC", Assess(new AnalysisBuilder().Sine(0.100).SmoothDc(0.003)).RequiredType);
+        Assert.Equal("A", Assess(new AnalysisBuilder().Sine(0.010).SmoothDc(0.003)).RequiredType);
+    }
+
+    [Fact]
+    public void AssessmentSerialisesWithNonFiniteFactorsAsNull()
+    {
+        // ResultJson writes non-finite numbers as null; type A's smooth-DC factor is infinite (does not respond).
+        var r = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.004), new AssessmentOptions { InstalledType = DeviceType.A });
+        var json = ResultJson.Serialize(r);
+        Assert.Contains("\"tripFactor\": null", json);
+        Assert.Contains("\"requiredType\": \"A\"", json);
+    }
+
+    [Fact]
+    public void ToleranceAndHighFrequencyOverridesMoveTheVerdict()
+    {
+        var dc = new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.014);
+        Assert.Equal("F", Assess(dc, new AssessmentOptions { TypeFSmoothDcToleranceA = 0.015 }).RequiredType);
+        var nearA = new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.0055);
+        Assert.Equal("A", Assess(nearA).RequiredType);
+        Assert.Equal("F", Assess(nearA, new AssessmentOptions { TypeASmoothDcToleranceA = 0.005 }).RequiredType);
+
+        var hf = new AnalysisBuilder().Sine(0.005).BelowMains(0.002).HighFrequency(16_000, 0.003);
+        Assert.Equal("F", Assess(hf, new AssessmentOptions { HighFrequencyThresholdA = 0.005 }).RequiredType);
+
+        var composite = new AnalysisBuilder().Sine(0.010).BelowMains(0.003);
+        Assert.Equal("AC", Assess(composite, new AssessmentOptions { BelowMainsThresholdA = 0.004 }).RequiredType);
+
+        var harmonic = new AnalysisBuilder().Sine(0.010).Harmonic(3, 0.002);
+        Assert.Equal("F", Assess(harmonic, new AssessmentOptions { HarmonicThresholdA = 0.0015 }).RequiredType);
+    }
+
+    [Fact]
+    public void InstalledTypeABlindedByDcIsStatedFirst()
+    {
+        var r = Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.014), new AssessmentOptions { InstalledType = DeviceType.A });
+        Assert.Equal("A", r.InstalledType);
+        Assert.False(r.InstalledAdequate);
+        Assert.True(r.Blinding.Blinded);
+        Assert.Equal(0.006, r.Blinding.ToleranceA);
+        Assert.Contains("MAY NOT TRIP ON A REAL FAULT", r.Blinding.Explanation);
+        Assert.StartsWith("WARNING", r.Cautions[0]);
+        Assert.Equal("A", r.NuisanceTrip.DeviceType);
+    }
+
+    [Fact]
+    public void BlindingToleranceOfTypeBScalesWithRating()
+    {
+        // IEC 62423: max(0.4 IΔn, 10 mA): 12 mA at 30 mA, 40 mA at 100 mA.
+        var b = new AnalysisBuilder().SmoothDc(0.020).Sine(0.005);
+        var r30 = Assess(b, new AssessmentOptions { InstalledType = DeviceType.B });
+        Assert.Equal(0.012, r30.Blinding.ToleranceA!.Value, 12);
+        Assert.True(r30.Blinding.Blinded);
+        var r100 = Assess(b, new AssessmentOptions { InstalledType = DeviceType.B, RatedResidualCurrentA = 0.1 });
+        Assert.Equal(0.040, r100.Blinding.ToleranceA!.Value, 12);
+        Assert.False(r100.Blinding.Blinded);
+    }
+
+    [Fact]
+    public void TypeACBlindedByAnySignificantDc()
+    {
+        var r = Assess(new AnalysisBuilder().Sine(0.010).SmoothDc(0.002), new AssessmentOptions { InstalledType = DeviceType.AC });
+        Assert.Null(r.Blinding.ToleranceA);
+        Assert.True(r.Blinding.Blinded);
+        Assert.False(r.InstalledAdequate);
+    }
+
+    [Fact]
+    public void EveryVerdictCarriesTheStandingCautions()
+    {
+        var r = Assess(new AnalysisBuilder().Sine(0.010));
+        Assert.Contains(r.Cautions, c => c.Contains("Verify on site"));
+        Assert.Contains(r.Cautions, c => c.Contains("local codes") && c.Contains("maker's data"));
+        Assert.Contains(r.Cautions, c => c.Contains("licensed or otherwise qualified"));
+        Assert.Contains(r.Cautions, c => c.Contains("Type AC is not permitted in some countries"));
+        Assert.Contains(r.Thresholds, t => t.Name == "frequencyFactor1kHz" && t.Source.Contains("from memory"));
+    }
+
+    [Fact]
+    public void CaptureWarningsTravelIntoCautions()
+    {
+        var a = new AnalysisBuilder().Sine(0.010).Build() with { Warnings = [new CaptureWarning("clipping", "12 samples clipped at 1.2 s", 1.2)] };
+        var r = DeviceTypeAssessor.Assess(a, Defaults);
+        Assert.Contains("Capture: 12 samples clipped at 1.2 s", r.Cautions);
+    }
+
+    [Fact]
+    public void EvChargingPointFollowsTheSixMilliampDcCriterion()
+    {
+        // IEC 62955: RDC-DD disconnects at 6 mA smooth DC; IEC 60364-7-722: type B, or type A + RDC-DD.
+        var high = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.008), new AssessmentOptions { EvChargingPoint = true });
+        Assert.True(high.EvCharging.DcAboveRdcDdThreshold);
+        Assert.Contains("fit type B", high.EvCharging.Recommendation);
+        var low = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.004), new AssessmentOptions { EvChargingPoint = true });
+        Assert.False(low.EvCharging.DcAboveRdcDdThreshold);
+        Assert.Contains("type A + RDC-DD", low.EvCharging.Recommendation);
+        Assert.Equal(0.006, low.EvCharging.RdcDdThresholdA);
+    }
+
+    [Fact]
+    public void NorthAmericanRegimeAddsGfciFigures()
+    {
+        var r = Assess(new AnalysisBuilder().Sine(0.010), new AssessmentOptions { Regime = Regime.Na });
+        Assert.Equal("na", r.Regime);
+        Assert.NotNull(r.Gfci);
+        Assert.Null(Assess(new AnalysisBuilder().Sine(0.010)).Gfci);
+    }
+
+    [Fact]
+    public void TouchCurrentReadingsAreComparedWhenPresent()
+    {
+        var t = new TouchCurrentResult(0.0006, 0.0008, 0.0008, 0.00055, 0.0008, 0.00055, 0.0001);
+        var r = Assess(new AnalysisBuilder().Sine(0.0006).Touch(t));
+        Assert.NotNull(r.TouchCurrent);
+        Assert.Null(Assess(new AnalysisBuilder().Sine(0.0006)).TouchCurrent);
+    }
+
+    [Theory]
+    [InlineData(0.0, "--rated")]
+    [InlineData(-0.03, "--rated")]
+    [InlineData(double.NaN, "--rated")]
+    public void RatedCurrentOutOfRangeIsRejectedWithTheOptionName(double ratedA, string option)
+    {
+        var e = Assert.Throws<OptionValueException>(() => Assess(new AnalysisBuilder().Sine(0.01), new AssessmentOptions { RatedResidualCurrentA = ratedA }));
+        Assert.Equal(option, e.Option);
+        Assert.Contains("expected a current above 0", e.Message);
+    }
+
+    [Fact]
+    public void RiskBoundariesOutOfOrderAreRejected()
+    {
+        var e = Assert.Throws<OptionValueException>(() => new AssessmentOptions { PossibleRiskFraction = 0.6 }.Validate());
+        Assert.Equal("--risk-possible", e.Option);
+        Assert.Throws<OptionValueException>(() => new AssessmentOptions { DcThresholdA = -0.001 }.Validate());
+        Assert.Throws<OptionValueException>(() => new AssessmentOptions { LeakageBudgetFraction = 1.5 }.Validate());
+
+        // Types are ordered by capability (IEC 60364-5-53 §531.3.3): A cannot tolerate more DC than F.
+        var order = Assert.Throws<OptionValueException>(() => new AssessmentOptions { TypeASmoothDcToleranceA = 0.015 }.Validate());
+        Assert.Equal("--type-a-dc", order.Option);
+    }
+}
