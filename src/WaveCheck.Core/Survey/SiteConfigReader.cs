@@ -422,7 +422,8 @@ public static class SiteConfigReader
                 return type;
             }
 
-            throw Error(value, $"unknown device type {value.Describe()}: expected \"AC\", \"A\", \"F\", \"B\" or \"B+\"");
+            var found = value.Kind == JsonTokenType.String ? $"\"{value.Text}\"" : value.Describe();
+            throw Error(value, $"unknown device type {found}: expected \"AC\", \"A\", \"F\", \"B\" or \"B+\"");
         }
 
         private SensorCoupling? SensorOf(Node value)
