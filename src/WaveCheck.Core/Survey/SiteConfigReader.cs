@@ -136,49 +136,54 @@ public static class SiteConfigReader
             switch (_reader.TokenType)
             {
                 case JsonTokenType.StartObject:
-                {
-                    var members = new List<(string, Node, Node)>();
-                    var seen = new HashSet<string>(StringComparer.Ordinal);
-                    while (Next() != JsonTokenType.EndObject)
                     {
-                        var (keyLine, keyColumn) = Place(_reader.TokenStartIndex);
-                        var key = _reader.GetString()!;
-                        var keyNode = new Node { Kind = JsonTokenType.PropertyName, Line = keyLine, Column = keyColumn, Text = key };
-                        if (!seen.Add(key))
+                        var members = new List<(string, Node, Node)>();
+                        var seen = new HashSet<string>(StringComparer.Ordinal);
+                        while (Next() != JsonTokenType.EndObject)
                         {
-                            throw new CaptureFormatException(_path, $"duplicate key \"{key}\": each key may appear once in an object", keyLine, keyColumn);
+                            var (keyLine, keyColumn) = Place(_reader.TokenStartIndex);
+                            var key = _reader.GetString()!;
+                            var keyNode = new Node { Kind = JsonTokenType.PropertyName, Line = keyLine, Column = keyColumn, Text = key };
+                            if (!seen.Add(key))
+                            {
+                                throw new CaptureFormatException(_path, $"duplicate key \"{key}\": each key may appear once in an object", keyLine, keyColumn);
+                            }
+
+                            Next();
+                            members.Add((key, keyNode, ParseValue()));
                         }
 
-                        Next();
-                        members.Add((key, keyNode, ParseValue()));
+                        return new Node { Kind = JsonTokenType.StartObject, Line = line, Column = column, Members = members };
                     }
-
-                    return new Node { Kind = JsonTokenType.StartObject, Line = line, Column = column, Members = members };
-                }
 
                 case JsonTokenType.StartArray:
-                {
-                    var items = new List<Node>();
-                    while (Next() != JsonTokenType.EndArray)
                     {
-                        items.Add(ParseValue());
-                    }
+                        var items = new List<Node>();
+                        while (Next() != JsonTokenType.EndArray)
+                        {
+                            items.Add(ParseValue());
+                        }
 
-                    return new Node { Kind = JsonTokenType.StartArray, Line = line, Column = column, Items = items };
-                }
+                        return new Node { Kind = JsonTokenType.StartArray, Line = line, Column = column, Items = items };
+                    }
 
                 case JsonTokenType.String:
                     return new Node { Kind = JsonTokenType.String, Line = line, Column = column, Text = _reader.GetString() };
                 case JsonTokenType.Number:
                     return new Node
                     {
-                        Kind = JsonTokenType.Number, Line = line, Column = column,
-                        Text = Encoding.UTF8.GetString(_reader.ValueSpan), Number = _reader.GetDouble(),
+                        Kind = JsonTokenType.Number,
+                        Line = line,
+                        Column = column,
+                        Text = Encoding.UTF8.GetString(_reader.ValueSpan),
+                        Number = _reader.GetDouble(),
                     };
                 case JsonTokenType.True or JsonTokenType.False:
                     return new Node
                     {
-                        Kind = _reader.TokenType, Line = line, Column = column,
+                        Kind = _reader.TokenType,
+                        Line = line,
+                        Column = column,
                         Text = _reader.TokenType == JsonTokenType.True ? "true" : "false",
                     };
                 default:

@@ -143,9 +143,22 @@ public sealed class ParquetTablesTests : IDisposable
 
     private static WindowResult Window(int i) => new()
     {
-        StartS = 0.2 * i, DurationS = 0.2, FrequencyHz = 50, RmsA = 0.001 * (i + 1), DcA = 0, AcRmsA = 0.001 * (i + 1),
-        PeakPositiveA = 0.002, PeakNegativeA = -0.002, CrestFactor = 1.41, SmoothDcA = 0, PulsatingDc = i % 2 == 0,
-        MainsRmsA = 0.001, BelowMainsRmsA = 0, HarmonicsRmsA = 0, Above1kHzRmsA = 0, Above9kHzRmsA = 0,
+        StartS = 0.2 * i,
+        DurationS = 0.2,
+        FrequencyHz = 50,
+        RmsA = 0.001 * (i + 1),
+        DcA = 0,
+        AcRmsA = 0.001 * (i + 1),
+        PeakPositiveA = 0.002,
+        PeakNegativeA = -0.002,
+        CrestFactor = 1.41,
+        SmoothDcA = 0,
+        PulsatingDc = i % 2 == 0,
+        MainsRmsA = 0.001,
+        BelowMainsRmsA = 0,
+        HarmonicsRmsA = 0,
+        Above1kHzRmsA = 0,
+        Above9kHzRmsA = 0,
     };
 
     private static DataField Field(ParquetReader reader, string name) =>

@@ -21,10 +21,21 @@ public class SurveyRowTests
     {
         var builder = new ResultBuilder
         {
-            RmsA = 0.004, WorstWindowRmsA = 0.0062, SmoothDcMaxA = -0.0071, Above1kHzRmsA = 0.0013,
-            SampleCount = 600_000, SampleRateHz = 50_000, RequiredType = "B", MinimumType = "B",
-            InstalledType = "A", InstalledAdequate = false, RatedResidualCurrentA = 0.3, Blinded = true,
-            NuisanceRisk = "possible", NuisanceMarginA = 0.0021, Headline = "smooth DC 7.1 mA: type B",
+            RmsA = 0.004,
+            WorstWindowRmsA = 0.0062,
+            SmoothDcMaxA = -0.0071,
+            Above1kHzRmsA = 0.0013,
+            SampleCount = 600_000,
+            SampleRateHz = 50_000,
+            RequiredType = "B",
+            MinimumType = "B",
+            InstalledType = "A",
+            InstalledAdequate = false,
+            RatedResidualCurrentA = 0.3,
+            Blinded = true,
+            NuisanceRisk = "possible",
+            NuisanceMarginA = 0.0021,
+            Headline = "smooth DC 7.1 mA: type B",
         };
         var settings = new CaptureSettings { Circuit = "C3 compressor", InstalledType = DeviceType.A, RatedResidualCurrentA = 0.3 };
         var row = SurveyRow.From("c3.wav", settings, builder.Analysis(), builder.Assessment(), "c3/report.html");

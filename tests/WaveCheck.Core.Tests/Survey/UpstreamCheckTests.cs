@@ -12,8 +12,12 @@ public class UpstreamCheckTests
         string minimum = "A", bool dcKnown = true) =>
         new ResultBuilder
         {
-            WorstWindowRmsA = worstRmsA, RmsA = worstRmsA / 2, SmoothDcMaxA = smoothDcA, RequiredType = required,
-            MinimumType = minimum, Blinded = dcKnown ? false : null,
+            WorstWindowRmsA = worstRmsA,
+            RmsA = worstRmsA / 2,
+            SmoothDcMaxA = smoothDcA,
+            RequiredType = required,
+            MinimumType = minimum,
+            Blinded = dcKnown ? false : null,
         }.Row(file, circuit: file.Replace(".wav", string.Empty, StringComparison.Ordinal));
 
     private static UpstreamGroup Group(DeviceType type, double ratedA, params string[] members) =>
