@@ -37,7 +37,7 @@ public static class SurveyIndexWriter
         html.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>")
             .Append(E($"Residual-current survey: {survey.Site}")).Append("</title>\n<style>").Append(Style).Append("</style>\n</head>\n<body>\n");
         html.Append("<h1>").Append(E($"Residual-current survey: {survey.Site}")).Append("</h1>\n<p>")
-            .Append(E($"{survey.Rows.Count} captures, written {survey.GeneratedAt.ToString("yyyy-MM-dd HH:mm 'UTC'zzz", CultureInfo.InvariantCulture)}.")).Append(' ')
+            .Append(E($"{survey.Rows.Count} captures, written {survey.GeneratedAt.ToString("yyyy-MM-dd HH:mm zzz", CultureInfo.InvariantCulture)}.")).Append(' ')
             .Append(E(Tally(survey.Rows))).Append("</p>\n");
         Cautions(html, survey.Cautions);
         Captures(html, survey.Rows);

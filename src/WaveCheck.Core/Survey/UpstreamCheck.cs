@@ -135,7 +135,8 @@ public static class UpstreamCheck
         bool? blinded = dc > tolerance ? true : complete && dcUnknown.Count == 0 ? false : null;
         bool? mismatch = needMore.Count > 0 ? true : complete && typeUnknown.Count == 0 ? false : null;
 
-        var missing = complete ? string.Empty : $" {failed.Count} of {members.Count} circuits could not be analysed and are not counted ({string.Join(", ", failed)}).";
+        var missing = complete ? string.Empty
+            : $" {failed.Count} of {members.Count} circuits {(failed.Count == 1 ? "was" : "were")} not analysed and not counted ({string.Join(", ", failed.Select(Path.GetFileName))}).";
         var deviceText = $"type {type.ToTradeName()} {CurrentText.WithUnit(rated)}";
         var leakageText = leakageRisk switch
         {

@@ -147,7 +147,7 @@ public class UpstreamCheckTests
         Assert.Equal("incomplete", result.LeakageRisk);
         Assert.Null(result.DcBlinded);
         Assert.Null(result.TypeMismatch);
-        Assert.Contains("1 of 2 circuits could not be analysed", result.LeakageExplanation, StringComparison.Ordinal);
+        Assert.Contains("1 of 2 circuits was not analysed and not counted (c2.wav)", result.LeakageExplanation, StringComparison.Ordinal);
         Assert.Contains("c2.wav", result.LeakageExplanation, StringComparison.Ordinal);
 
         // Over the non-operating limit on the analysed members alone (60 mA > 50 mA): likely, still marked incomplete.
