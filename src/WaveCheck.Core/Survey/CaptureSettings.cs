@@ -1,0 +1,105 @@
+using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Capture;
+
+namespace WaveCheck.Core.Survey;
+
+/// <summary>
+/// Everything needed to analyse and assess one capture of a survey: how to read it, the device it is judged against,
+/// the rules and what the circuit is. Built by <see cref="SiteConfig.Jobs"/> from the site file's defaults, the capture's
+/// own entry and the command line's overrides.
+/// </summary>
+public sealed record CaptureSettings
+{
+    /// <summary>Rated residual operating current IΔn used when nothing else is given, amperes (30 mA: the common
+    /// additional-protection rating, IEC 60364-4-41 §415.1; engineering choice as a default).</summary>
+    public const double DefaultRatedResidualCurrentA = 0.030;
+
+    /// <summary>How to read the capture (calibration, channel, sensor coupling).</summary>
+    public ImportOptions Import { get; init; } = new();
+
+    /// <summary>Rated residual operating current IΔn of the device protecting the circuit, amperes.</summary>
+    public double RatedResidualCurrentA { get; init; } = DefaultRatedResidualCurrentA;
+
+    /// <summary>Device type installed on the circuit; null when not known.</summary>
+    public DeviceType? InstalledType { get; init; }
+
+    /// <summary>Rules to judge by: <c>iec</c> or <c>na</c> (UL 943).</summary>
+    public string Regime { get; init; } = "iec";
+
+    /// <summary>The circuit feeds an EV charging point (IEC 60364-7-722 guidance applies).</summary>
+    public bool Ev { get; init; }
+
+    /// <summary>Circuit name for a person, e.g. <c>C1 panel saw drive</c>; null when not given.</summary>
+    public string? Circuit { get; init; }
+}
+
+/// <summary>
+/// Values that may be stated for a capture, each optional: the site file's <c>defaults</c>, one capture's entry, or the
+/// command line's overrides. Null means "not stated here". Currents in amperes.
+/// </summary>
+public sealed record CaptureSettingsPatch
+{
+    /// <summary>Rated residual operating current IΔn, amperes.</summary>
+    public double? RatedResidualCurrentA { get; init; }
+
+    /// <summary>Installed device type.</summary>
+    public DeviceType? InstalledType { get; init; }
+
+    /// <summary>Sensor coupling.</summary>
+    public SensorCoupling? Sensor { get; init; }
+
+    /// <summary><c>iec</c> or <c>na</c>.</summary>
+    public string? Regime { get; init; }
+
+    /// <summary>EV charging point.</summary>
+    public bool? Ev { get; init; }
+
+    /// <summary>Amperes at WAV full scale.</summary>
+    public double? ScaleA { get; init; }
+
+    /// <summary>Clamp sensitivity, volts per ampere.</summary>
+    public double? SensitivityVPerA { get; init; }
+
+    /// <summary>Logger input range, volts at full scale.</summary>
+    public double? RangeV { get; init; }
+
+    /// <summary>Sample rate of a CSV without a time column, hertz.</summary>
+    public double? RateHz { get; init; }
+
+    /// <summary>Residual-current channel by name or 1-based number.</summary>
+    public string? Channel { get; init; }
+
+    /// <summary>Channels summed to form the residual current.</summary>
+    public IReadOnlyList<string>? Sum { get; init; }
+
+    /// <summary>Circuit name.</summary>
+    public string? Circuit { get; init; }
+
+    /// <summary>Applies the values stated in this patch on top of <paramref name="settings"/>; unstated values keep theirs.</summary>
+    /// <remarks>A stated channel clears an inherited sum and the other way round, so a capture's own choice of residual
+    /// source wins over a default of the other kind.</remarks>
+    public CaptureSettings ApplyTo(CaptureSettings settings)
+    {
+        ArgumentNullException.ThrowIfNull(settings);
+        var import = settings.Import;
+        import = import with
+        {
+            ScaleA = ScaleA ?? import.ScaleA,
+            SensitivityVPerA = SensitivityVPerA ?? import.SensitivityVPerA,
+            RangeV = RangeV ?? import.RangeV,
+            RateHz = RateHz ?? import.RateHz,
+            Channel = Channel ?? (Sum is not null ? null : import.Channel),
+            SumChannels = Sum ?? (Channel is not null ? null : import.SumChannels),
+            Sensor = Sensor ?? import.Sensor,
+        };
+        return settings with
+        {
+            Import = import,
+            RatedResidualCurrentA = RatedResidualCurrentA ?? settings.RatedResidualCurrentA,
+            InstalledType = InstalledType ?? settings.InstalledType,
+            Regime = Regime ?? settings.Regime,
+            Ev = Ev ?? settings.Ev,
+            Circuit = Circuit ?? settings.Circuit,
+        };
+    }
+}

@@ -1,0 +1,585 @@
+using System.Text;
+using System.Text.Json;
+using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Capture;
+
+namespace WaveCheck.Core.Survey;
+
+/// <summary>
+/// Reads a site file: JSON written by a person, so comments and trailing commas are allowed, currents may be written
+/// with units (<c>"30mA"</c>) or as bare numbers in amperes, and every mistake is reported with its 1-based line and
+/// column and what was expected there.
+/// </summary>
+/// <remarks>
+/// Layout:
+/// <code>
+/// { "site": "...", "defaults": { settings },
+///   "captures": [ { "file": "c1.wav", "circuit": "...", settings }, ... ],
+///   "upstream": [ { "name": "...", "device": "A", "rated": "100mA", "circuits": ["c2.wav", ...] }, ... ] }
+/// </code>
+/// Settings keys: <c>rated</c>, <c>device</c>, <c>sensor</c> (dc, ac, unknown), <c>regime</c> (iec, na), <c>ev</c>,
+/// <c>scale</c>, <c>sensitivity</c>, <c>range</c>, <c>rate</c>, <c>channel</c>, <c>sum</c>; a null value means "not stated".
+/// Upstream <c>circuits</c> name captures by their <c>file</c> exactly as written in <c>captures</c>.
+/// </remarks>
+public static class SiteConfigReader
+{
+    private static readonly string[] TopKeys = ["site", "defaults", "captures", "upstream"];
+
+    private static readonly string[] SettingKeys =
+        ["rated", "device", "sensor", "regime", "ev", "scale", "sensitivity", "range", "rate", "channel", "sum"];
+
+    private static readonly string[] CaptureKeys = ["file", "circuit", .. SettingKeys];
+
+    private static readonly string[] UpstreamKeys = ["name", "device", "rated", "circuits"];
+
+    /// <summary>Reads and checks a site file.</summary>
+    /// <param name="path">The site file; capture files are resolved against its folder.</param>
+    /// <exception cref="CaptureFormatException">The file is not valid JSON, or a value cannot be used.</exception>
+    /// <exception cref="IOException">The file cannot be read.</exception>
+    public static SiteConfig Read(string path)
+    {
+        ArgumentException.ThrowIfNullOrEmpty(path);
+        return Parse(path, File.ReadAllBytes(path));
+    }
+
+    /// <summary>Parses site-file content already in memory.</summary>
+    /// <param name="path">Name of the file for messages; capture files are resolved against its folder.</param>
+    /// <param name="utf8">The file's bytes (UTF-8, a byte-order mark is skipped).</param>
+    /// <exception cref="CaptureFormatException">The content is not valid JSON, or a value cannot be used.</exception>
+    public static SiteConfig Parse(string path, ReadOnlySpan<byte> utf8)
+    {
+        if (utf8.StartsWith((ReadOnlySpan<byte>)[0xEF, 0xBB, 0xBF]))
+        {
+            utf8 = utf8[3..];
+        }
+
+        var tree = new Parser(path, utf8).ParseDocument();
+        return new Interpreter(path).Read(tree);
+    }
+
+    /// <summary>A JSON value with the place it starts at (1-based line and column).</summary>
+    private sealed class Node
+    {
+        public required JsonTokenType Kind { get; init; }
+
+        public required long Line { get; init; }
+
+        public required long Column { get; init; }
+
+        public string? Text { get; init; }
+
+        public double Number { get; init; }
+
+        public List<(string Key, Node KeyNode, Node Value)>? Members { get; init; }
+
+        public List<Node>? Items { get; init; }
+
+        public string Describe() => Kind switch
+        {
+            JsonTokenType.String => $"the text \"{Text}\"",
+            JsonTokenType.Number => $"the number {Text}",
+            JsonTokenType.True or JsonTokenType.False => $"the value {Text}",
+            JsonTokenType.Null => "null",
+            JsonTokenType.StartObject => "an object",
+            JsonTokenType.StartArray => "a list",
+            _ => Kind.ToString(),
+        };
+    }
+
+    /// <summary>Builds a tree of placed values from the reader, turning syntax errors into placed messages.</summary>
+    private ref struct Parser
+    {
+        private readonly string _path;
+        private readonly ReadOnlySpan<byte> _utf8;
+        private Utf8JsonReader _reader;
+
+        public Parser(string path, ReadOnlySpan<byte> utf8)
+        {
+            _path = path;
+            _utf8 = utf8;
+            _reader = new Utf8JsonReader(utf8, new JsonReaderOptions
+            {
+                CommentHandling = JsonCommentHandling.Skip,
+                AllowTrailingCommas = true,
+            });
+        }
+
+        public Node ParseDocument()
+        {
+            try
+            {
+                if (!_reader.Read())
+                {
+                    throw new CaptureFormatException(_path, "the site file is empty: expected a JSON object { \"site\": ..., \"captures\": [...] }", 1, 1);
+                }
+
+                var root = ParseValue();
+                if (_reader.Read())
+                {
+                    var (line, column) = Place(_reader.TokenStartIndex);
+                    throw new CaptureFormatException(_path, "unexpected content after the end of the site object", line, column);
+                }
+
+                return root;
+            }
+            catch (JsonException e)
+            {
+                // System.Text.Json's positions are 0-based; people count from 1.
+                throw new CaptureFormatException(_path, $"not valid JSON: {Plain(e.Message)}",
+                    (e.LineNumber ?? 0) + 1, (e.BytePositionInLine ?? 0) + 1);
+            }
+        }
+
+        private Node ParseValue()
+        {
+            var (line, column) = Place(_reader.TokenStartIndex);
+            switch (_reader.TokenType)
+            {
+                case JsonTokenType.StartObject:
+                    {
+                        var members = new List<(string, Node, Node)>();
+                        var seen = new HashSet<string>(StringComparer.Ordinal);
+                        while (Next() != JsonTokenType.EndObject)
+                        {
+                            var (keyLine, keyColumn) = Place(_reader.TokenStartIndex);
+                            var key = _reader.GetString()!;
+                            var keyNode = new Node { Kind = JsonTokenType.PropertyName, Line = keyLine, Column = keyColumn, Text = key };
+                            if (!seen.Add(key))
+                            {
+                                throw new CaptureFormatException(_path, $"duplicate key \"{key}\": each key may appear once in an object", keyLine, keyColumn);
+                            }
+
+                            Next();
+                            members.Add((key, keyNode, ParseValue()));
+                        }
+
+                        return new Node { Kind = JsonTokenType.StartObject, Line = line, Column = column, Members = members };
+                    }
+
+                case JsonTokenType.StartArray:
+                    {
+                        var items = new List<Node>();
+                        while (Next() != JsonTokenType.EndArray)
+                        {
+                            items.Add(ParseValue());
+                        }
+
+                        return new Node { Kind = JsonTokenType.StartArray, Line = line, Column = column, Items = items };
+                    }
+
+                case JsonTokenType.String:
+                    return new Node { Kind = JsonTokenType.String, Line = line, Column = column, Text = _reader.GetString() };
+                case JsonTokenType.Number:
+                    return new Node
+                    {
+                        Kind = JsonTokenType.Number,
+                        Line = line,
+                        Column = column,
+                        Text = Encoding.UTF8.GetString(_reader.ValueSpan),
+                        Number = _reader.GetDouble(),
+                    };
+                case JsonTokenType.True or JsonTokenType.False:
+                    return new Node
+                    {
+                        Kind = _reader.TokenType,
+                        Line = line,
+                        Column = column,
+                        Text = _reader.TokenType == JsonTokenType.True ? "true" : "false",
+                    };
+                default:
+                    return new Node { Kind = JsonTokenType.Null, Line = line, Column = column, Text = "null" };
+            }
+        }
+
+        private JsonTokenType Next()
+        {
+            _reader.Read();
+            return _reader.TokenType;
+        }
+
+        /// <summary>1-based line and column (in characters) of a byte offset.</summary>
+        private readonly (long Line, long Column) Place(long offset)
+        {
+            var before = _utf8[..(int)offset];
+            var line = 1L + before.Count((byte)'\n');
+            var lineStart = before.LastIndexOf((byte)'\n') + 1;
+            return (line, Encoding.UTF8.GetCharCount(before[lineStart..]) + 1L);
+        }
+
+        /// <summary>The reader's message without its own (0-based) position, which the caller states 1-based.</summary>
+        private static string Plain(string message)
+        {
+            var at = message.IndexOf(" LineNumber:", StringComparison.Ordinal);
+            return (at > 0 ? message[..at] : message).TrimEnd('.', ' ');
+        }
+    }
+
+    /// <summary>Turns the placed tree into the site model, checking every value.</summary>
+    private sealed class Interpreter(string path)
+    {
+        private readonly string _folder = Path.GetDirectoryName(Path.GetFullPath(path))!;
+
+        public SiteConfig Read(Node root)
+        {
+            RequireKind(root, JsonTokenType.StartObject, "the site object { \"site\": ..., \"captures\": [...] }");
+            string? site = null;
+            var defaults = new CaptureSettingsPatch();
+            Node? captures = null;
+            Node? upstream = null;
+            foreach (var (key, keyNode, value) in root.Members!)
+            {
+                switch (key)
+                {
+                    case "site": site = OptionalString(value, key); break;
+                    case "defaults":
+                        RequireKind(value, JsonTokenType.StartObject, "an object of settings such as { \"rated\": \"30mA\" }");
+                        defaults = ReadSettings(value, SettingKeys, "defaults");
+                        break;
+                    case "captures": captures = value; break;
+                    case "upstream": upstream = value; break;
+                    default: throw UnknownKey(keyNode, TopKeys, "the site object");
+                }
+            }
+
+            if (captures is null)
+            {
+                throw Error(root, "no \"captures\" list: expected \"captures\": [ { \"file\": \"c1.wav\" }, ... ]");
+            }
+
+            var captureList = ReadCaptures(captures);
+            var groups = upstream is null or { Kind: JsonTokenType.Null } ? [] : ReadUpstream(upstream, captureList);
+            return new SiteConfig
+            {
+                ConfigPath = path,
+                Site = string.IsNullOrWhiteSpace(site) ? Path.GetFileNameWithoutExtension(path) : site.Trim(),
+                Defaults = defaults,
+                Captures = captureList,
+                Upstream = groups,
+            };
+        }
+
+        private List<SiteCapture> ReadCaptures(Node list)
+        {
+            RequireKind(list, JsonTokenType.StartArray, "a list of captures [ { \"file\": \"c1.wav\" }, ... ]");
+            if (list.Items!.Count == 0)
+            {
+                throw Error(list, "the \"captures\" list is empty: expected at least one { \"file\": ... }");
+            }
+
+            var result = new List<SiteCapture>(list.Items.Count);
+            var byPath = new Dictionary<string, Node>(StringComparer.Ordinal);
+            foreach (var item in list.Items)
+            {
+                RequireKind(item, JsonTokenType.StartObject, "a capture entry { \"file\": \"c1.wav\", ... }");
+                var fileNode = Member(item, "file")
+                    ?? throw Error(item, "capture entry without \"file\": expected { \"file\": \"c1.wav\", ... }");
+                var file = RequiredString(fileNode, "file");
+                var full = Resolve(file);
+                if (byPath.TryGetValue(full, out var first))
+                {
+                    throw Error(fileNode, $"capture \"{file}\" is listed twice (first at line {first.Line}): list each capture once");
+                }
+
+                byPath.Add(full, fileNode);
+                var settings = ReadSettings(item, CaptureKeys, "a capture entry");
+                result.Add(new SiteCapture(file, full, settings));
+            }
+
+            return result;
+        }
+
+        private List<UpstreamGroup> ReadUpstream(Node list, List<SiteCapture> captures)
+        {
+            RequireKind(list, JsonTokenType.StartArray, "a list of upstream devices [ { \"name\": ..., \"circuits\": [...] } ]");
+            var byFile = new Dictionary<string, SiteCapture>(StringComparer.Ordinal);
+            foreach (var capture in captures)
+            {
+                byFile.TryAdd(capture.File, capture);
+            }
+
+            var names = new Dictionary<string, Node>(StringComparer.OrdinalIgnoreCase);
+            var groups = new List<UpstreamGroup>(list.Items!.Count);
+            foreach (var item in list.Items)
+            {
+                RequireKind(item, JsonTokenType.StartObject, "an upstream entry { \"name\": ..., \"device\": \"A\", \"rated\": \"100mA\", \"circuits\": [...] }");
+                foreach (var (key, keyNode, _) in item.Members!)
+                {
+                    if (Array.IndexOf(UpstreamKeys, key) < 0)
+                    {
+                        throw UnknownKey(keyNode, UpstreamKeys, "an upstream entry");
+                    }
+                }
+
+                var nameNode = Member(item, "name") ?? throw Error(item, "upstream entry without \"name\": expected e.g. \"name\": \"Q2 sub-board RCD\"");
+                var name = RequiredString(nameNode, "name").Trim();
+                if (names.TryGetValue(name, out var first))
+                {
+                    throw Error(nameNode, $"upstream device \"{name}\" is listed twice (first at line {first.Line}): give each a different name");
+                }
+
+                names.Add(name, nameNode);
+                var deviceNode = Member(item, "device") ?? throw Error(item, $"upstream device \"{name}\" has no \"device\": expected a type AC, A, F, B or B+");
+                var device = DeviceOf(deviceNode) ?? throw Error(deviceNode, "\"device\" of an upstream device cannot be null: expected AC, A, F, B or B+");
+                var ratedNode = Member(item, "rated") ?? throw Error(item, $"upstream device \"{name}\" has no \"rated\": expected a current such as \"100mA\"");
+                var rated = CurrentOf(ratedNode, "rated") ?? throw Error(ratedNode, "\"rated\" of an upstream device cannot be null: expected a current such as \"100mA\"");
+                var circuitsNode = Member(item, "circuits") ?? throw Error(item, $"upstream device \"{name}\" has no \"circuits\": expected a list of capture files");
+                RequireKind(circuitsNode, JsonTokenType.StartArray, "a list of capture files [\"c2.wav\", ...] as written under \"captures\"");
+                var members = new List<string>(circuitsNode.Items!.Count);
+                var seen = new HashSet<string>(StringComparer.Ordinal);
+                foreach (var circuit in circuitsNode.Items)
+                {
+                    var file = RequiredString(circuit, "circuits");
+                    if (!byFile.TryGetValue(file, out var capture))
+                    {
+                        throw Error(circuit, $"upstream device \"{name}\" names \"{file}\", which is not under \"captures\": expected one of {Quote(byFile.Keys)}");
+                    }
+
+                    if (!seen.Add(file))
+                    {
+                        throw Error(circuit, $"upstream device \"{name}\" names \"{file}\" twice: name each circuit once");
+                    }
+
+                    members.Add(capture.Path);
+                }
+
+                groups.Add(new UpstreamGroup(name, device, rated, members));
+            }
+
+            return groups;
+        }
+
+        private CaptureSettingsPatch ReadSettings(Node item, string[] allowed, string where)
+        {
+            var patch = new CaptureSettingsPatch();
+            foreach (var (key, keyNode, value) in item.Members!)
+            {
+                if (Array.IndexOf(allowed, key) < 0)
+                {
+                    throw UnknownKey(keyNode, allowed, where);
+                }
+
+                patch = key switch
+                {
+                    "file" => patch,
+                    "circuit" => patch with { Circuit = OptionalString(value, key) },
+                    "rated" => patch with { RatedResidualCurrentA = CurrentOf(value, key) },
+                    "device" => patch with { InstalledType = DeviceOf(value) },
+                    "sensor" => patch with { Sensor = SensorOf(value) },
+                    "regime" => patch with { Regime = RegimeOf(value) },
+                    "ev" => patch with { Ev = BoolOf(value, key) },
+                    "scale" => patch with { ScaleA = CurrentOf(value, key) },
+                    "sensitivity" => patch with { SensitivityVPerA = QuantityOf(value, key, "a sensitivity such as \"10 mV/mA\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseSensitivityVPerA(k, t)) },
+                    "range" => patch with { RangeV = QuantityOf(value, key, "a voltage such as \"1V\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseVoltageV(k, t)) },
+                    "rate" => patch with { RateHz = QuantityOf(value, key, "a frequency such as \"10kHz\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseFrequencyHz(k, t)) },
+                    "channel" => patch with { Channel = ChannelOf(value) },
+                    "sum" => patch with { Sum = SumOf(value) },
+                    _ => throw UnknownKey(keyNode, allowed, where),
+                };
+            }
+
+            if (patch.Channel is not null && patch.Sum is not null)
+            {
+                throw Error(Member(item, "sum")!, "both \"channel\" and \"sum\" given: expected one of them (or null)");
+            }
+
+            return patch;
+        }
+
+        private double? CurrentOf(Node value, string key)
+        {
+            var amperes = QuantityOf(value, key, "a current such as \"30mA\", \"0.3A\" or a number in amperes", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseCurrentA(k, t));
+            return amperes is null or > 0 ? amperes : throw Error(value, $"\"{key}\" must be a positive current (got {value.Text})");
+        }
+
+        private double? QuantityOf(Node value, string key, string expected, Func<string, string, double> parse)
+        {
+            switch (value.Kind)
+            {
+                case JsonTokenType.Null: return null;
+                case JsonTokenType.Number:
+                    return value.Number > 0 ? value.Number : throw Error(value, $"\"{key}\" must be positive (got {value.Text}): expected {expected}");
+                case JsonTokenType.String:
+                    double parsed;
+                    try
+                    {
+                        parsed = parse(key, value.Text!);
+                    }
+                    catch (OptionValueException)
+                    {
+                        throw Error(value, $"\"{key}\": cannot use \"{value.Text}\": expected {expected}");
+                    }
+
+                    return parsed > 0 ? parsed : throw Error(value, $"\"{key}\" must be positive (got \"{value.Text}\"): expected {expected}");
+                default:
+                    throw Error(value, $"\"{key}\": cannot use {value.Describe()}: expected {expected}");
+            }
+        }
+
+        private DeviceType? DeviceOf(Node value)
+        {
+            if (value.Kind == JsonTokenType.Null)
+            {
+                return null;
+            }
+
+            if (value.Kind == JsonTokenType.String && DeviceTypeNames.TryParse(value.Text, out var type))
+            {
+                return type;
+            }
+
+            var found = value.Kind == JsonTokenType.String ? $"\"{value.Text}\"" : value.Describe();
+            throw Error(value, $"unknown device type {found}: expected \"AC\", \"A\", \"F\", \"B\" or \"B+\"");
+        }
+
+        private SensorCoupling? SensorOf(Node value)
+        {
+            var text = OptionalString(value, "sensor");
+            return text?.Trim().ToLowerInvariant() switch
+            {
+                null => null,
+                "dc" => SensorCoupling.Dc,
+                "ac" => SensorCoupling.Ac,
+                "unknown" => SensorCoupling.Unknown,
+                _ => throw Error(value, $"\"sensor\": cannot use \"{text}\": expected \"dc\" (sees DC), \"ac\" (blind to DC) or \"unknown\""),
+            };
+        }
+
+        private string? RegimeOf(Node value)
+        {
+            var text = OptionalString(value, "regime");
+            return text?.Trim().ToLowerInvariant() switch
+            {
+                null => null,
+                "iec" => "iec",
+                "na" => "na",
+                _ => throw Error(value, $"\"regime\": cannot use \"{text}\": expected \"iec\" or \"na\""),
+            };
+        }
+
+        private bool? BoolOf(Node value, string key) => value.Kind switch
+        {
+            JsonTokenType.Null => null,
+            JsonTokenType.True => true,
+            JsonTokenType.False => false,
+            _ => throw Error(value, $"\"{key}\": cannot use {value.Describe()}: expected true or false"),
+        };
+
+        private string? ChannelOf(Node value) => value.Kind switch
+        {
+            JsonTokenType.Null => null,
+            JsonTokenType.String when !string.IsNullOrWhiteSpace(value.Text) => value.Text!.Trim(),
+            JsonTokenType.Number when value.Number >= 1 && value.Number == Math.Floor(value.Number) => value.Text,
+            _ => throw Error(value, $"\"channel\": cannot use {value.Describe()}: expected a channel name or a 1-based number"),
+        };
+
+        private List<string>? SumOf(Node value)
+        {
+            List<string> names;
+            switch (value.Kind)
+            {
+                case JsonTokenType.Null: return null;
+                case JsonTokenType.String:
+                    names = [.. value.Text!.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries)];
+                    break;
+                case JsonTokenType.StartArray:
+                    names = [.. value.Items!.Select(i => RequiredString(i, "sum").Trim())];
+                    break;
+                default:
+                    names = [];
+                    break;
+            }
+
+            return names.Count >= 2 ? names
+                : throw Error(value, $"\"sum\": cannot use {value.Describe()}: expected two or more channel names, e.g. [\"L1\", \"L2\", \"L3\", \"N\"]");
+        }
+
+        private string? OptionalString(Node value, string key) => value.Kind switch
+        {
+            JsonTokenType.Null => null,
+            JsonTokenType.String => value.Text,
+            _ => throw Error(value, $"\"{key}\": cannot use {value.Describe()}: expected text in quotes"),
+        };
+
+        private string RequiredString(Node value, string key) =>
+            value.Kind == JsonTokenType.String && !string.IsNullOrWhiteSpace(value.Text)
+                ? value.Text!
+                : throw Error(value, $"\"{key}\": cannot use {value.Describe()}: expected a file name in quotes");
+
+        private void RequireKind(Node value, JsonTokenType kind, string expected)
+        {
+            if (value.Kind != kind)
+            {
+                throw Error(value, $"found {value.Describe()}: expected {expected}");
+            }
+        }
+
+        private static Node? Member(Node item, string key)
+        {
+            foreach (var (k, _, v) in item.Members!)
+            {
+                if (k == key)
+                {
+                    return v;
+                }
+            }
+
+            return null;
+        }
+
+        private string Resolve(string file) => Path.GetFullPath(Path.IsPathRooted(file) ? file : Path.Combine(_folder, file));
+
+        private CaptureFormatException UnknownKey(Node keyNode, string[] known, string where)
+        {
+            var nearest = Nearest(keyNode.Text!, known);
+            var hint = nearest is null ? string.Empty : $"did you mean \"{nearest}\"? ";
+            return Error(keyNode, $"unknown key \"{keyNode.Text}\" in {where}: {hint}expected one of {Quote(known)}");
+        }
+
+        private CaptureFormatException Error(Node at, string problem) => new(path, problem, at.Line, at.Column);
+
+        private static string Quote(IEnumerable<string> names) => string.Join(", ", names.Select(n => $"\"{n}\""));
+
+        /// <summary>The known key closest in edit distance, when it is close enough to be a slip (at most a third of
+        /// its length, at least 1, differs); null otherwise.</summary>
+        internal static string? Nearest(string key, string[] known)
+        {
+            string? best = null;
+            var bestDistance = int.MaxValue;
+            foreach (var candidate in known)
+            {
+                var distance = Levenshtein(key.ToLowerInvariant(), candidate);
+                if (distance < bestDistance)
+                {
+                    best = candidate;
+                    bestDistance = distance;
+                }
+            }
+
+            return best is not null && bestDistance <= Math.Max(1, best.Length / 3 + 1) ? best : null;
+        }
+
+        private static int Levenshtein(string a, string b)
+        {
+            var previous = new int[b.Length + 1];
+            var current = new int[b.Length + 1];
+            for (var j = 0; j <= b.Length; j++)
+            {
+                previous[j] = j;
+            }
+
+            for (var i = 1; i <= a.Length; i++)
+            {
+                current[0] = i;
+                for (var j = 1; j <= b.Length; j++)
+                {
+                    var cost = a[i - 1] == b[j - 1] ? 0 : 1;
+                    current[j] = Math.Min(Math.Min(current[j - 1] + 1, previous[j] + 1), previous[j - 1] + cost);
+                }
+
+                (previous, current) = (current, previous);
+            }
+
+            return previous[b.Length];
+        }
+    }
+}

@@ -1,0 +1,159 @@
+using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Results;
+
+namespace WaveCheck.Core.Survey;
+
+/// <summary>
+/// One capture's line in the site summary (CSV, JSON, Parquet, HTML index): what was installed, what the waveform
+/// demands, the verdict and the figures behind it. SI units; null where a figure does not exist (a capture that failed).
+/// </summary>
+public sealed record SurveyRow
+{
+    /// <summary>Verdict: the installed device is adequate.</summary>
+    public const string VerdictOk = "ok";
+
+    /// <summary>Verdict: the installed device is not adequate.</summary>
+    public const string VerdictUpgrade = "upgrade";
+
+    /// <summary>Verdict: adequacy cannot be decided (no installed type given, or the capture cannot show enough).</summary>
+    public const string VerdictCannotTell = "cannot-tell";
+
+    /// <summary>Verdict: the capture could not be analysed; see <see cref="Error"/>.</summary>
+    public const string VerdictError = "error";
+
+    /// <summary>The capture (the job's path).</summary>
+    public required string File { get; init; }
+
+    /// <summary>Circuit name; null when not given.</summary>
+    public string? Circuit { get; init; }
+
+    /// <summary>Installed device type (<c>AC</c>, <c>A</c>, <c>F</c>, <c>B</c>, <c>B+</c>); null when not given.</summary>
+    public string? InstalledType { get; init; }
+
+    /// <summary>Rated residual operating current IΔn the circuit was judged against, amperes.</summary>
+    public required double RatedResidualCurrentA { get; init; }
+
+    /// <summary>Least capable type that covers the waveform; null when it cannot be determined or on error.</summary>
+    public string? RequiredType { get; init; }
+
+    /// <summary>Lowest type that may be required once what the capture could not show is measured; null on error.</summary>
+    public string? MinimumType { get; init; }
+
+    /// <summary><c>ok</c>, <c>upgrade</c>, <c>cannot-tell</c> or <c>error</c>; see <see cref="VerdictOf"/>.</summary>
+    public required string Verdict { get; init; }
+
+    /// <summary>Whole-capture true RMS, amperes.</summary>
+    public double? RmsA { get; init; }
+
+    /// <summary>Largest window RMS (the standing residual current at its worst), amperes; the whole-capture RMS when
+    /// the analysis has no window statistics.</summary>
+    public double? WorstWindowRmsA { get; init; }
+
+    /// <summary>Smooth DC of the worst window (largest magnitude), amperes; signed.</summary>
+    public double? SmoothDcA { get; init; }
+
+    /// <summary>True when the sensor and analysis could determine the smooth DC (the assessment's blinding check is
+    /// decided); false when <see cref="SmoothDcA"/> may understate it (an AC-coupled or unstated sensor).</summary>
+    public bool? SmoothDcKnown { get; init; }
+
+    /// <summary>RMS of content above 1 kHz over the capture, amperes.</summary>
+    public double? Above1kHzRmsA { get; init; }
+
+    /// <summary>Nuisance-tripping risk for the installed (or required) type: <c>low</c>, <c>possible</c>, <c>likely</c>.</summary>
+    public string? NuisanceRisk { get; init; }
+
+    /// <summary>0.5 IΔn minus the weighted standing current, amperes (negative: above the non-operating limit).</summary>
+    public double? NuisanceMarginA { get; init; }
+
+    /// <summary>Smooth DC beyond the assessed type's tolerance: true, false, or null when not determinable.</summary>
+    public bool? Blinded { get; init; }
+
+    /// <summary>The assessment's one-line deciding reason.</summary>
+    public string? Headline { get; init; }
+
+    /// <summary>Why the capture could not be analysed; null when it was.</summary>
+    public string? Error { get; init; }
+
+    /// <summary>The capture's report, relative to the survey's output folder; null when none was written.</summary>
+    public string? ReportPath { get; init; }
+
+    /// <summary>Duration of the capture, seconds.</summary>
+    public double? DurationS { get; init; }
+
+    /// <summary>Sample rate, hertz.</summary>
+    public double? SampleRateHz { get; init; }
+
+    /// <summary>The verdict rule.</summary>
+    /// <remarks>
+    /// <c>ok</c> when an installed type is given and the assessment finds it adequate; <c>upgrade</c> when one is given
+    /// and found not adequate; <c>cannot-tell</c> in every other case: no installed type given (there is nothing to
+    /// judge), or the assessment could not decide (its <see cref="AssessmentResult.InstalledAdequate"/> is null, e.g. an
+    /// AC-coupled sensor cannot rule out smooth DC). Engineering choice: a survey never reads "ok" for a circuit
+    /// whose device is unknown, even when the waveform would be covered by any type.
+    /// </remarks>
+    /// <param name="installedType">Installed type as given; null when not given.</param>
+    /// <param name="installedAdequate">The assessment's finding.</param>
+    public static string VerdictOf(string? installedType, bool? installedAdequate) =>
+        installedType is null ? VerdictCannotTell : installedAdequate switch
+        {
+            true => VerdictOk,
+            false => VerdictUpgrade,
+            null => VerdictCannotTell,
+        };
+
+    /// <summary>The row of a capture that was analysed and assessed.</summary>
+    /// <param name="file">The capture (the job's path).</param>
+    /// <param name="settings">The settings it was analysed with.</param>
+    /// <param name="analysis">What the analysis measured.</param>
+    /// <param name="assessment">The verdict.</param>
+    /// <param name="reportPath">Its report relative to the survey's output folder; null when none.</param>
+    public static SurveyRow From(string file, CaptureSettings settings, AnalysisResult analysis, AssessmentResult assessment,
+        string? reportPath)
+    {
+        ArgumentNullException.ThrowIfNull(settings);
+        ArgumentNullException.ThrowIfNull(analysis);
+        ArgumentNullException.ThrowIfNull(assessment);
+        var installed = assessment.InstalledType ?? settings.InstalledType?.ToTradeName();
+        var worstRms = analysis.Windows.Statistics.TryGetValue("rmsA", out var rms) ? rms.Max : analysis.Summary.RmsA;
+        return new SurveyRow
+        {
+            File = file,
+            Circuit = settings.Circuit,
+            InstalledType = installed,
+            RatedResidualCurrentA = assessment.RatedResidualCurrentA,
+            RequiredType = assessment.RequiredType,
+            MinimumType = assessment.MinimumType,
+            Verdict = VerdictOf(installed, assessment.InstalledAdequate),
+            RmsA = analysis.Summary.RmsA,
+            WorstWindowRmsA = worstRms,
+            SmoothDcA = analysis.Components.SmoothDcMaxA,
+            SmoothDcKnown = assessment.Blinding.Blinded is not null,
+            Above1kHzRmsA = analysis.Components.Above1kHzRmsA,
+            NuisanceRisk = assessment.NuisanceTrip.Risk,
+            NuisanceMarginA = assessment.NuisanceTrip.MarginA,
+            Blinded = assessment.Blinding.Blinded,
+            Headline = assessment.Headline,
+            ReportPath = reportPath,
+            DurationS = analysis.Capture.DurationS,
+            SampleRateHz = analysis.Capture.SampleRateHz,
+        };
+    }
+
+    /// <summary>The row of a capture that could not be analysed.</summary>
+    /// <param name="file">The capture (the job's path).</param>
+    /// <param name="settings">The settings it was to be analysed with.</param>
+    /// <param name="message">What went wrong, for a person.</param>
+    public static SurveyRow Failed(string file, CaptureSettings settings, string message)
+    {
+        ArgumentNullException.ThrowIfNull(settings);
+        return new SurveyRow
+        {
+            File = file,
+            Circuit = settings.Circuit,
+            InstalledType = settings.InstalledType?.ToTradeName(),
+            RatedResidualCurrentA = settings.RatedResidualCurrentA,
+            Verdict = VerdictError,
+            Error = message,
+        };
+    }
+}

@@ -1,0 +1,76 @@
+using WaveCheck.Core.Capture;
+
+namespace WaveCheck.Core.Survey;
+
+/// <summary>
+/// Runs the captures of a survey in parallel, one job per capture, and collects their rows in input order. A capture
+/// that cannot be read becomes its own error row; the others go on.
+/// </summary>
+public static class SurveyRunner
+{
+    /// <summary>Runs every job through <paramref name="run"/>, at most <paramref name="maxParallel"/> at a time.</summary>
+    /// <remarks>
+    /// Memory is bounded by the number of jobs running at once (each streams its capture) plus one small row per
+    /// capture. A <see cref="UserInputException"/>, <see cref="IOException"/> or <see cref="UnauthorizedAccessException"/>
+    /// from a job becomes that job's error row with the exception's message; any other exception also becomes an
+    /// error row, its message prefixed <c>internal error:</c>. Cancellation stops the survey with
+    /// <see cref="OperationCanceledException"/>. <paramref name="run"/> is called from several threads at once.
+    /// </remarks>
+    /// <param name="jobs">The captures, in the order the rows are wanted.</param>
+    /// <param name="run">Analyses, assesses and reports one capture.</param>
+    /// <param name="progress">Told (done, total) after each job; may be called from any thread.</param>
+    /// <param name="maxParallel">Jobs at once; null: <see cref="Environment.ProcessorCount"/>.</param>
+    /// <param name="cancellationToken">Stops the survey.</param>
+    /// <returns>One outcome per job, in the order of <paramref name="jobs"/>.</returns>
+    public static IReadOnlyList<SurveyOutcome> Run(IReadOnlyList<SurveyJob> jobs,
+        Func<SurveyJob, CancellationToken, SurveyOutcome> run, IProgress<(int Done, int Total)>? progress = null,
+        int? maxParallel = null, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(jobs);
+        ArgumentNullException.ThrowIfNull(run);
+        if (maxParallel is < 1)
+        {
+            throw new ArgumentOutOfRangeException(nameof(maxParallel), maxParallel, "at least 1 job at a time");
+        }
+
+        var outcomes = new SurveyOutcome[jobs.Count];
+        var done = 0;
+        var options = new ParallelOptions
+        {
+            MaxDegreeOfParallelism = maxParallel ?? Environment.ProcessorCount,
+            CancellationToken = cancellationToken,
+        };
+        Parallel.For(0, jobs.Count, options, i =>
+        {
+            outcomes[i] = RunOne(jobs[i], run, cancellationToken);
+            progress?.Report((Interlocked.Increment(ref done), jobs.Count));
+        });
+        return outcomes;
+    }
+
+    private static SurveyOutcome RunOne(SurveyJob job, Func<SurveyJob, CancellationToken, SurveyOutcome> run,
+        CancellationToken cancellationToken)
+    {
+        try
+        {
+            return run(job, cancellationToken)
+                ?? throw new InvalidOperationException($"the survey job for {job.File} returned no outcome");
+        }
+        catch (OperationCanceledException) when (cancellationToken.IsCancellationRequested)
+        {
+            throw;
+        }
+        catch (Exception e) when (e is UserInputException or IOException or UnauthorizedAccessException)
+        {
+            // A CaptureFormatException's message already names the file; others get it in front.
+            var message = e is CaptureFormatException || e.Message.Contains(job.File, StringComparison.Ordinal)
+                ? e.Message
+                : $"{job.File}: {e.Message}";
+            return new SurveyOutcome(SurveyRow.Failed(job.File, job.Settings, message));
+        }
+        catch (Exception e)
+        {
+            return new SurveyOutcome(SurveyRow.Failed(job.File, job.Settings, $"internal error: {e.GetType().Name}: {e.Message}"));
+        }
+    }
+}

@@ -1,0 +1,264 @@
+using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Results;
+
+namespace WaveCheck.Core.Survey;
+
+/// <summary>
+/// Checks an upstream device against the circuits behind it: the sum of their standing residual currents against its
+/// leakage budget and non-operating limit, the sum of their smooth DC against what its type tolerates, and whether any
+/// circuit needs a more capable type than it is. Pure functions over the members' rows.
+/// </summary>
+public static class UpstreamCheck
+{
+    /// <summary>Leakage budget as a share of IΔn: 0.3 (IEC 60364-5-53:2015 §531.3.2).</summary>
+    public const double LeakageBudgetFactor = 0.3;
+
+    /// <summary>Rated residual non-operating current as a share of IΔn: 0.5 (IEC 61008-1 / IEC 61009-1).</summary>
+    public const double NonOperatingFactor = 0.5;
+
+    /// <summary>Smooth DC a type A device still works with: 6 mA (IEC 61008-1 as in IEC 60364-5-53 §531.3.3).</summary>
+    public const double TypeADcToleranceA = 0.006;
+
+    /// <summary>Smooth DC a type F device still works with: 10 mA (IEC 62423).</summary>
+    public const double TypeFDcToleranceA = 0.010;
+
+    /// <summary>Floor of the type B smooth-DC tolerance, 10 mA; the tolerance is the larger of this and 0.4 IΔn (IEC 62423).</summary>
+    public const double TypeBDcToleranceFloorA = 0.010;
+
+    /// <summary>Type B smooth-DC tolerance as a share of IΔn: 0.4 (IEC 62423).</summary>
+    public const double TypeBDcToleranceFactor = 0.4;
+
+    /// <summary>Smooth DC counted as significant for a type AC device: 1 mA. Engineering choice: type AC has no DC
+    /// tolerance in its standard; 1 mA is above the offset a good DC-coupled sensor leaves and far below the 6 mA a
+    /// type A device is built for, so anything above it is treated as impairing a type AC device.</summary>
+    public const double TypeAcDcToleranceA = 0.001;
+
+    /// <summary>Smooth DC an upstream device of a type tolerates, amperes.</summary>
+    /// <param name="type">The upstream device's type.</param>
+    /// <param name="ratedResidualCurrentA">Its IΔn, amperes.</param>
+    public static double DcToleranceA(DeviceType type, double ratedResidualCurrentA) => type switch
+    {
+        DeviceType.AC => TypeAcDcToleranceA,
+        DeviceType.A => TypeADcToleranceA,
+        DeviceType.F => TypeFDcToleranceA,
+        _ => Math.Max(TypeBDcToleranceFactor * ratedResidualCurrentA, TypeBDcToleranceFloorA),
+    };
+
+    /// <summary>Checks every upstream group against the rows of the survey.</summary>
+    /// <param name="groups">The upstream devices.</param>
+    /// <param name="rows">All rows of the survey; members are found by <see cref="SurveyRow.File"/>.</param>
+    public static IReadOnlyList<UpstreamResult> EvaluateAll(IReadOnlyList<UpstreamGroup> groups, IReadOnlyList<SurveyRow> rows)
+    {
+        ArgumentNullException.ThrowIfNull(groups);
+        ArgumentNullException.ThrowIfNull(rows);
+        var byFile = new Dictionary<string, SurveyRow>(StringComparer.Ordinal);
+        foreach (var row in rows)
+        {
+            byFile.TryAdd(row.File, row);
+        }
+
+        var results = new List<UpstreamResult>(groups.Count);
+        foreach (var group in groups)
+        {
+            var members = new List<SurveyRow>(group.Members.Count);
+            foreach (var file in group.Members)
+            {
+                // A member with no row at all (not run) counts as failed, so the check says it is incomplete.
+                members.Add(byFile.TryGetValue(file, out var row)
+                    ? row
+                    : SurveyRow.Failed(file, new CaptureSettings(), "not analysed in this survey"));
+            }
+
+            results.Add(Evaluate(group, members));
+        }
+
+        return results;
+    }
+
+    /// <summary>Checks one upstream device against its members' rows.</summary>
+    /// <remarks>
+    /// Standing current: arithmetic sum of the members' worst-window RMS. The currents add as vectors and their worst
+    /// windows need not coincide, so the arithmetic sum is the safe upper bound (practice). It is compared with
+    /// 0.3 IΔn (IEC 60364-5-53 §531.3.2: within, low risk) and 0.5 IΔn (IEC 61008-1 non-operating current: above it the
+    /// device may trip without a fault, likely). Between: possible.
+    /// Smooth DC: arithmetic sum of the members' worst-window magnitudes against <see cref="DcToleranceA"/>; an
+    /// AC-coupled or unstated sensor on any member leaves a sum within tolerance undecided.
+    /// Type: a member that needs a more capable type than the upstream device can put residual current through it
+    /// that it does not detect or that blinds it (practice, after IEC 60364-5-53 §531.3.3 guidance on types).
+    /// Members that failed to analyse are left out of the sums, and the result says so (<see cref="UpstreamResult.Complete"/>).
+    /// </remarks>
+    /// <param name="group">The upstream device.</param>
+    /// <param name="members">Its members' rows (failed rows included).</param>
+    public static UpstreamResult Evaluate(UpstreamGroup group, IReadOnlyList<SurveyRow> members)
+    {
+        ArgumentNullException.ThrowIfNull(group);
+        ArgumentNullException.ThrowIfNull(members);
+        var rated = group.RatedResidualCurrentA;
+        var type = group.Device;
+        var failed = new List<string>();
+        var dcUnknown = new List<string>();
+        var needMore = new List<string>();
+        var typeUnknown = new List<string>();
+        double standing = 0, dc = 0;
+        foreach (var row in members)
+        {
+            if (row.Verdict == SurveyRow.VerdictError)
+            {
+                failed.Add(row.File);
+                continue;
+            }
+
+            standing += row.WorstWindowRmsA ?? row.RmsA ?? 0;
+            dc += Math.Abs(row.SmoothDcA ?? 0);
+            if (row.SmoothDcKnown != true)
+            {
+                dcUnknown.Add(row.File);
+            }
+
+            var needed = ParseType(row.RequiredType) ?? ParseType(row.MinimumType);
+            if (needed > type)
+            {
+                needMore.Add($"{Name(row)} needs type {needed.Value.ToTradeName()}");
+            }
+            else if (row.RequiredType is null)
+            {
+                typeUnknown.Add(Name(row));
+            }
+        }
+
+        var complete = failed.Count == 0;
+        var budget = LeakageBudgetFactor * rated;
+        var limit = NonOperatingFactor * rated;
+        var within = standing <= budget;
+        var leakageRisk = standing > limit ? "likely" : !within ? "possible" : complete ? "low" : "incomplete";
+        var tolerance = DcToleranceA(type, rated);
+        bool? blinded = dc > tolerance ? true : complete && dcUnknown.Count == 0 ? false : null;
+        bool? mismatch = needMore.Count > 0 ? true : complete && typeUnknown.Count == 0 ? false : null;
+
+        var missing = complete ? string.Empty
+            : $" {failed.Count} of {members.Count} circuits {(failed.Count == 1 ? "was" : "were")} not analysed and not counted ({string.Join(", ", failed.Select(Path.GetFileName))}).";
+        var deviceText = $"type {type.ToTradeName()} {CurrentText.WithUnit(rated)}";
+        var leakageText = leakageRisk switch
+        {
+            "likely" => $"Standing residual current of the circuits adds up to {CurrentText.WithUnit(standing)}, above 0.5 IΔn = {CurrentText.WithUnit(limit)} of the {deviceText} device: it may trip without a fault.",
+            "possible" => $"Standing residual current of the circuits adds up to {CurrentText.WithUnit(standing)}, above the 0.3 IΔn budget of {CurrentText.WithUnit(budget)} (IEC 60364-5-53 §531.3.2) though below 0.5 IΔn = {CurrentText.WithUnit(limit)}.",
+            _ => $"Standing residual current of the circuits adds up to {CurrentText.WithUnit(standing)} at most (arithmetic sum of worst windows), within the 0.3 IΔn budget of {CurrentText.WithUnit(budget)}, margin {CurrentText.WithUnit(budget - standing)}.",
+        } + missing;
+        var dcText = blinded switch
+        {
+            true => $"Smooth DC of the circuits adds up to {CurrentText.WithUnit(dc)}, above the {CurrentText.WithUnit(tolerance)} a {deviceText} device tolerates: it may not trip on a real fault.",
+            false => $"Smooth DC of the circuits adds up to {CurrentText.WithUnit(dc)}, within the {CurrentText.WithUnit(tolerance)} a {deviceText} device tolerates.",
+            null => $"Smooth DC of the counted circuits adds up to {CurrentText.WithUnit(dc)} against a tolerance of {CurrentText.WithUnit(tolerance)}, but "
+                + (dcUnknown.Count > 0 ? $"the sensor could not show DC on {string.Join(", ", dcUnknown)}: measure it with a DC-coupled sensor." : "not every circuit was analysed."),
+        } + (blinded is not null ? missing : string.Empty);
+        var typeText = mismatch switch
+        {
+            true => $"{string.Join("; ", needMore)}: residual current from such a circuit passes through the {deviceText} device, which may not detect it or may be blinded by it (practice).",
+            false => $"No circuit needs a more capable type than the {deviceText} device.",
+            null => $"No counted circuit is known to need more than type {type.ToTradeName()}, but "
+                + (typeUnknown.Count > 0 ? $"the required type is undetermined for {string.Join(", ", typeUnknown)}." : "not every circuit was analysed."),
+        } + (mismatch is not null ? missing : string.Empty);
+
+        return new UpstreamResult
+        {
+            Name = group.Name,
+            DeviceType = type.ToTradeName(),
+            RatedResidualCurrentA = rated,
+            Members = group.Members,
+            Complete = complete,
+            FailedMembers = failed,
+            StandingSumA = standing,
+            LeakageBudgetA = budget,
+            LeakageMarginA = budget - standing,
+            WithinLeakageBudget = within,
+            NonOperatingLimitA = limit,
+            NonOperatingMarginA = limit - standing,
+            LeakageRisk = leakageRisk,
+            LeakageExplanation = leakageText,
+            SmoothDcSumA = dc,
+            DcToleranceA = tolerance,
+            DcBlinded = blinded,
+            DcRisk = blinded switch { true => "blinded", false => "none", null => "cannot-tell" },
+            DcExplanation = dcText,
+            TypeMismatch = mismatch,
+            TypeRisk = mismatch switch { true => "mismatch", false => "ok", null => "cannot-tell" },
+            TypeExplanation = typeText,
+        };
+    }
+
+    private static DeviceType? ParseType(string? name) => DeviceTypeNames.TryParse(name, out var type) ? type : null;
+
+    private static string Name(SurveyRow row) => row.Circuit ?? Path.GetFileName(row.File);
+}
+
+/// <summary>An upstream device checked against the circuits behind it (see <see cref="UpstreamCheck.Evaluate"/>).
+/// SI units.</summary>
+public sealed record UpstreamResult
+{
+    /// <summary>The upstream device's name.</summary>
+    public required string Name { get; init; }
+
+    /// <summary>Its type (trade name).</summary>
+    public required string DeviceType { get; init; }
+
+    /// <summary>Its IΔn, amperes.</summary>
+    public required double RatedResidualCurrentA { get; init; }
+
+    /// <summary>The members' capture paths.</summary>
+    public required IReadOnlyList<string> Members { get; init; }
+
+    /// <summary>True when every member was analysed; false: the sums leave out <see cref="FailedMembers"/>.</summary>
+    public required bool Complete { get; init; }
+
+    /// <summary>Members that could not be analysed.</summary>
+    public required IReadOnlyList<string> FailedMembers { get; init; }
+
+    /// <summary>Arithmetic sum of the analysed members' worst-window RMS, amperes.</summary>
+    public required double StandingSumA { get; init; }
+
+    /// <summary>0.3 IΔn, amperes (IEC 60364-5-53 §531.3.2).</summary>
+    public required double LeakageBudgetA { get; init; }
+
+    /// <summary>Budget minus the standing sum, amperes (negative: over budget).</summary>
+    public required double LeakageMarginA { get; init; }
+
+    /// <summary>Standing sum within the budget.</summary>
+    public required bool WithinLeakageBudget { get; init; }
+
+    /// <summary>0.5 IΔn, amperes (IEC 61008-1 non-operating current).</summary>
+    public required double NonOperatingLimitA { get; init; }
+
+    /// <summary>Non-operating limit minus the standing sum, amperes.</summary>
+    public required double NonOperatingMarginA { get; init; }
+
+    /// <summary><c>low</c> (within budget), <c>possible</c> (over budget, under 0.5 IΔn), <c>likely</c> (over 0.5 IΔn),
+    /// <c>incomplete</c> (within budget on the members counted, but some failed).</summary>
+    public required string LeakageRisk { get; init; }
+
+    /// <summary>One line for a person.</summary>
+    public required string LeakageExplanation { get; init; }
+
+    /// <summary>Arithmetic sum of the analysed members' worst-window smooth-DC magnitudes, amperes.</summary>
+    public required double SmoothDcSumA { get; init; }
+
+    /// <summary>Smooth DC the upstream type tolerates, amperes (<see cref="UpstreamCheck.DcToleranceA"/>).</summary>
+    public required double DcToleranceA { get; init; }
+
+    /// <summary>True: the DC sum exceeds the tolerance; null: cannot tell (a member's DC unknown, or a member failed).</summary>
+    public bool? DcBlinded { get; init; }
+
+    /// <summary><c>none</c>, <c>blinded</c> or <c>cannot-tell</c>.</summary>
+    public required string DcRisk { get; init; }
+
+    /// <summary>One line for a person.</summary>
+    public required string DcExplanation { get; init; }
+
+    /// <summary>True: a member needs a more capable type than the upstream device; null: cannot tell.</summary>
+    public bool? TypeMismatch { get; init; }
+
+    /// <summary><c>ok</c>, <c>mismatch</c> or <c>cannot-tell</c>.</summary>
+    public required string TypeRisk { get; init; }
+
+    /// <summary>One line for a person.</summary>
+    public required string TypeExplanation { get; init; }
+}

@@ -1,0 +1,85 @@
+using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Survey;
+
+namespace WaveCheck.Core.Tests.Survey;
+
+public class SurveyRowTests
+{
+    // The verdict rule as documented on SurveyRow.VerdictOf (engineering choice, no outside source): every combination.
+    [Theory]
+    [InlineData("A", true, "ok")]
+    [InlineData("A", false, "upgrade")]
+    [InlineData("A", null, "cannot-tell")]
+    [InlineData(null, true, "cannot-tell")]
+    [InlineData(null, false, "cannot-tell")]
+    [InlineData(null, null, "cannot-tell")]
+    public void Verdict_follows_the_rule(string? installed, bool? adequate, string expected) =>
+        Assert.Equal(expected, SurveyRow.VerdictOf(installed, adequate));
+
+    [Fact]
+    public void From_carries_the_figures_of_the_analysis_and_assessment()
+    {
+        var builder = new ResultBuilder
+        {
+            RmsA = 0.004,
+            WorstWindowRmsA = 0.0062,
+            SmoothDcMaxA = -0.0071,
+            Above1kHzRmsA = 0.0013,
+            SampleCount = 600_000,
+            SampleRateHz = 50_000,
+            RequiredType = "B",
+            MinimumType = "B",
+            InstalledType = "A",
+            InstalledAdequate = false,
+            RatedResidualCurrentA = 0.3,
+            Blinded = true,
+            NuisanceRisk = "possible",
+            NuisanceMarginA = 0.0021,
+            Headline = "smooth DC 7.1 mA: type B",
+        };
+        var settings = new CaptureSettings { Circuit = "C3 compressor", InstalledType = DeviceType.A, RatedResidualCurrentA = 0.3 };
+        var row = SurveyRow.From("c3.wav", settings, builder.Analysis(), builder.Assessment(), "c3/report.html");
+
+        Assert.Equal("c3.wav", row.File);
+        Assert.Equal("C3 compressor", row.Circuit);
+        Assert.Equal("A", row.InstalledType);
+        Assert.Equal(0.3, row.RatedResidualCurrentA);
+        Assert.Equal("B", row.RequiredType);
+        Assert.Equal("upgrade", row.Verdict);
+        Assert.Equal(0.004, row.RmsA);
+        Assert.Equal(0.0062, row.WorstWindowRmsA);
+        Assert.Equal(-0.0071, row.SmoothDcA);
+        Assert.True(row.SmoothDcKnown);
+        Assert.Equal(0.0013, row.Above1kHzRmsA);
+        Assert.Equal("possible", row.NuisanceRisk);
+        Assert.Equal(0.0021, row.NuisanceMarginA);
+        Assert.True(row.Blinded);
+        Assert.Equal("smooth DC 7.1 mA: type B", row.Headline);
+        Assert.Null(row.Error);
+        Assert.Equal("c3/report.html", row.ReportPath);
+        // closed form: duration = samples / rate = 600 000 / 50 000 Hz = 12 s.
+        Assert.Equal(12.0, row.DurationS!.Value, 12);
+        Assert.Equal(50_000, row.SampleRateHz);
+    }
+
+    [Fact]
+    public void Undetermined_blinding_marks_the_dc_as_unknown()
+    {
+        var row = new ResultBuilder { Blinded = null, InstalledAdequate = null }.Row("c4.wav");
+        Assert.False(row.SmoothDcKnown);
+        Assert.Equal("cannot-tell", row.Verdict);
+    }
+
+    [Fact]
+    public void Failed_row_keeps_the_settings_and_the_message()
+    {
+        var settings = new CaptureSettings { Circuit = "C9", InstalledType = DeviceType.F, RatedResidualCurrentA = 0.1 };
+        var row = SurveyRow.Failed("c9.wav", settings, "c9.wav: not a WAV file");
+        Assert.Equal("error", row.Verdict);
+        Assert.Equal("F", row.InstalledType);
+        Assert.Equal(0.1, row.RatedResidualCurrentA);
+        Assert.Equal("c9.wav: not a WAV file", row.Error);
+        Assert.Null(row.RmsA);
+        Assert.Null(row.RequiredType);
+    }
+}

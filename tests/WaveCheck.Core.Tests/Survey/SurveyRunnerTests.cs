@@ -1,0 +1,84 @@
+using WaveCheck.Core.Capture;
+using WaveCheck.Core.Survey;
+
+namespace WaveCheck.Core.Tests.Survey;
+
+public class SurveyRunnerTests
+{
+    private static SurveyJob Job(string file) => new(file, new CaptureSettings { Circuit = "circuit " + file });
+
+    private static SurveyOutcome Ok(SurveyJob job) => new(new ResultBuilder().Row(job.File, job.Settings.Circuit));
+
+    [Fact]
+    public void A_failing_job_becomes_its_own_error_row_and_the_others_complete()
+    {
+        var jobs = new[] { Job("a.wav"), Job("bad.wav"), Job("io.wav"), Job("bug.wav"), Job("e.wav") };
+        var outcomes = SurveyRunner.Run(jobs, (job, _) => job.File switch
+        {
+            "bad.wav" => throw new CaptureFormatException("bad.wav", "not a WAV file: no RIFF header", byteOffset: 0),
+            "io.wav" => throw new FileNotFoundException("file not found"),
+            "bug.wav" => throw new InvalidOperationException("window buffer overrun"),
+            _ => Ok(job),
+        }, maxParallel: 2);
+
+        Assert.Equal(["a.wav", "bad.wav", "io.wav", "bug.wav", "e.wav"], outcomes.Select(o => o.Row.File));
+        Assert.Equal(["ok", "error", "error", "error", "ok"], outcomes.Select(o => o.Row.Verdict));
+        Assert.Equal("bad.wav: byte 0: not a WAV file: no RIFF header", outcomes[1].Row.Error);
+        Assert.Equal("io.wav: file not found", outcomes[2].Row.Error);
+        Assert.StartsWith("internal error:", outcomes[3].Row.Error, StringComparison.Ordinal);
+        Assert.Contains("window buffer overrun", outcomes[3].Row.Error, StringComparison.Ordinal);
+        Assert.Equal("circuit bad.wav", outcomes[1].Row.Circuit);
+    }
+
+    [Fact]
+    public void Parallel_run_keeps_input_order_and_reports_progress()
+    {
+        // Jobs finish in reverse order of their index (earlier jobs sleep longer), so completion order differs from input order.
+        var jobs = Enumerable.Range(0, 12).Select(i => Job($"c{i:00}.wav")).ToArray();
+        var running = 0;
+        var peak = 0;
+        var reports = new List<(int Done, int Total)>();
+        var progress = new SynchronousProgress(p => { lock (reports) { reports.Add(p); } });
+        var outcomes = SurveyRunner.Run(jobs, (job, _) =>
+        {
+            var now = Interlocked.Increment(ref running);
+            InterlockedMax(ref peak, now);
+            Thread.Sleep(5 * (12 - int.Parse(job.File.AsSpan(1, 2), System.Globalization.CultureInfo.InvariantCulture)));
+            Interlocked.Decrement(ref running);
+            return Ok(job);
+        }, progress, maxParallel: 3);
+
+        Assert.Equal(jobs.Select(j => j.File), outcomes.Select(o => o.Row.File));
+        Assert.InRange(peak, 1, 3);
+        Assert.Equal(12, reports.Count);
+        Assert.Equal(Enumerable.Range(1, 12), reports.Select(r => r.Done).Order());
+        Assert.All(reports, r => Assert.Equal(12, r.Total));
+    }
+
+    [Fact]
+    public void Cancellation_stops_the_survey_instead_of_making_error_rows()
+    {
+        using var cancel = new CancellationTokenSource();
+        var jobs = Enumerable.Range(0, 4).Select(i => Job($"c{i}.wav")).ToArray();
+        Assert.ThrowsAny<OperationCanceledException>(() => SurveyRunner.Run(jobs, (job, token) =>
+        {
+            cancel.Cancel();
+            token.ThrowIfCancellationRequested();
+            return Ok(job);
+        }, maxParallel: 1, cancellationToken: cancel.Token));
+    }
+
+    private static void InterlockedMax(ref int target, int value)
+    {
+        int seen;
+        while ((seen = Volatile.Read(ref target)) < value && Interlocked.CompareExchange(ref target, value, seen) != seen)
+        {
+        }
+    }
+
+    /// <summary>Reports on the calling thread (System.Progress would post to the thread pool and race the asserts).</summary>
+    private sealed class SynchronousProgress(Action<(int Done, int Total)> report) : IProgress<(int Done, int Total)>
+    {
+        public void Report((int Done, int Total) value) => report(value);
+    }
+}
