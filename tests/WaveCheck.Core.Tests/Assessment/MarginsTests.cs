@@ -5,7 +5,7 @@ namespace WaveCheck.Core.Tests.Assessment;
 /// <summary>Nuisance-trip margins against hand calculations (IEC 61008-1 0.5 IΔn; IEC 60364-5-53 §531.3.2 0.3 IΔn).</summary>
 public class MarginsTests
 {
-    private static Results.NuisanceTripResult Nuisance(AnalysisBuilder b, DeviceType type, double ratedA = 0.030) =>
+    private static Core.Results.NuisanceTripResult Nuisance(AnalysisBuilder b, DeviceType type, double ratedA = 0.030) =>
         DeviceTypeAssessor.Assess(b.Build(), new AssessmentOptions { InstalledType = type, RatedResidualCurrentA = ratedA }).NuisanceTrip;
 
     [Fact]
