@@ -74,7 +74,7 @@ public class TouchCurrentMeterTests
     }
 
     [Fact]
-    public void EmptyMeterReadsZero() => Assert.Equal(new Results.TouchCurrentResult(0, 0, 0, 0, 0, 0, 0), new TouchCurrentMeter(1000).Result);
+    public void EmptyMeterReadsZero() => Assert.Equal(new Core.Results.TouchCurrentResult(0, 0, 0, 0, 0, 0, 0), new TouchCurrentMeter(1000).Result);
 
     [Fact]
     public void WeightingLowersHighFrequencyReadings()
