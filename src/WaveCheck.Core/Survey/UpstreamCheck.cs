@@ -10,28 +10,17 @@ namespace WaveCheck.Core.Survey;
 /// </summary>
 public static class UpstreamCheck
 {
-    /// <summary>Leakage budget as a share of IΔn: 0.3 (IEC 60364-5-53:2015 §531.3.2).</summary>
-    public const double LeakageBudgetFactor = 0.3;
+    /// <summary>Leakage budget as a share of IΔn: <see cref="Limits.LeakageBudgetFraction"/> (IEC 60364-5-53:2015 §531.3.2).</summary>
+    public const double LeakageBudgetFactor = Limits.LeakageBudgetFraction;
 
-    /// <summary>Rated residual non-operating current as a share of IΔn: 0.5 (IEC 61008-1 / IEC 61009-1).</summary>
-    public const double NonOperatingFactor = 0.5;
-
-    /// <summary>Smooth DC a type A device still works with: 6 mA (IEC 61008-1 as in IEC 60364-5-53 §531.3.3).</summary>
-    public const double TypeADcToleranceA = 0.006;
-
-    /// <summary>Smooth DC a type F device still works with: 10 mA (IEC 62423).</summary>
-    public const double TypeFDcToleranceA = 0.010;
-
-    /// <summary>Floor of the type B smooth-DC tolerance, 10 mA; the tolerance is the larger of this and 0.4 IΔn (IEC 62423).</summary>
-    public const double TypeBDcToleranceFloorA = 0.010;
-
-    /// <summary>Type B smooth-DC tolerance as a share of IΔn: 0.4 (IEC 62423).</summary>
-    public const double TypeBDcToleranceFactor = 0.4;
+    /// <summary>Rated residual non-operating current as a share of IΔn: <see cref="Limits.NonOperatingFraction"/> (IEC 61008-1).</summary>
+    public const double NonOperatingFactor = Limits.NonOperatingFraction;
 
     /// <summary>Smooth DC counted as significant for a type AC device: 1 mA. Engineering choice: type AC has no DC
-    /// tolerance in its standard; 1 mA is above the offset a good DC-coupled sensor leaves and far below the 6 mA a
-    /// type A device is built for, so anything above it is treated as impairing a type AC device.</summary>
-    public const double TypeAcDcToleranceA = 0.001;
+    /// tolerance in its standard; 1 mA (<see cref="Limits.SignificanceFloorA"/>) is above the offset a good DC-coupled
+    /// sensor leaves and far below the 6 mA a type A device is built for, so anything above it is treated as impairing
+    /// a type AC device.</summary>
+    public const double TypeAcDcToleranceA = Limits.SignificanceFloorA;
 
     /// <summary>Smooth DC an upstream device of a type tolerates, amperes.</summary>
     /// <param name="type">The upstream device's type.</param>
@@ -39,9 +28,9 @@ public static class UpstreamCheck
     public static double DcToleranceA(DeviceType type, double ratedResidualCurrentA) => type switch
     {
         DeviceType.AC => TypeAcDcToleranceA,
-        DeviceType.A => TypeADcToleranceA,
-        DeviceType.F => TypeFDcToleranceA,
-        _ => Math.Max(TypeBDcToleranceFactor * ratedResidualCurrentA, TypeBDcToleranceFloorA),
+        DeviceType.A => Limits.TypeASmoothDcToleranceA,
+        DeviceType.F => Limits.TypeFSmoothDcToleranceA,
+        _ => Limits.TypeBSmoothDcToleranceA(ratedResidualCurrentA),
     };
 
     /// <summary>Checks every upstream group against the rows of the survey.</summary>
