@@ -1,0 +1,326 @@
+using System.Numerics;
+
+namespace WaveCheck.Core.Signal;
+
+/// <summary>
+/// In-place radix-2 complex FFT of a power-of-two length on split real/imaginary arrays, with the twiddle factors and
+/// bit-reversal table built once. Immutable after construction, so one instance may be shared between threads.
+/// </summary>
+internal sealed class Radix2Fft
+{
+    private readonly double[] _cos;
+    private readonly double[] _sin;
+    private readonly int[] _reverse;
+
+    /// <summary>Builds the plan for <paramref name="length"/> points (a power of two, at least 1).</summary>
+    public Radix2Fft(int length)
+    {
+        if (length < 1 || !BitOperations.IsPow2(length))
+        {
+            throw new ArgumentOutOfRangeException(nameof(length), length, "FFT length must be a power of two");
+        }
+
+        Length = length;
+        var half = Math.Max(1, length / 2);
+        _cos = new double[half];
+        _sin = new double[half];
+        for (var k = 0; k < half; k++)
+        {
+            var angle = -2.0 * Math.PI * k / length;
+            _cos[k] = Math.Cos(angle);
+            _sin[k] = Math.Sin(angle);
+        }
+
+        _reverse = new int[length];
+        var bits = BitOperations.Log2((uint)length);
+        for (var i = 0; i < length; i++)
+        {
+            _reverse[i] = bits == 0 ? 0 : (int)(ReverseBits((uint)i) >> (32 - bits));
+        }
+    }
+
+    /// <summary>Number of points.</summary>
+    public int Length { get; }
+
+    /// <summary>Forward transform X_k = Σ x_j e^{-2πi jk/n}, in place, unscaled.</summary>
+    public void Forward(Span<double> re, Span<double> im)
+    {
+        var n = Length;
+        re = re[..n];
+        im = im[..n];
+        for (var i = 0; i < n; i++)
+        {
+            var j = _reverse[i];
+            if (j > i)
+            {
+                (re[i], re[j]) = (re[j], re[i]);
+                (im[i], im[j]) = (im[j], im[i]);
+            }
+        }
+
+        // First stage (size 2) needs no multiplication.
+        for (var i = 0; i + 1 < n; i += 2)
+        {
+            var r = re[i + 1];
+            var m = im[i + 1];
+            re[i + 1] = re[i] - r;
+            im[i + 1] = im[i] - m;
+            re[i] += r;
+            im[i] += m;
+        }
+
+        for (var size = 4; size <= n; size <<= 1)
+        {
+            var half = size >> 1;
+            var step = n / size;
+            for (var start = 0; start < n; start += size)
+            {
+                var a = re.Slice(start, half);
+                var ai = im.Slice(start, half);
+                var b = re.Slice(start + half, half);
+                var bi = im.Slice(start + half, half);
+                for (int j = 0, t = 0; j < half; j++, t += step)
+                {
+                    var wr = _cos[t];
+                    var wi = _sin[t];
+                    var tr = (b[j] * wr) - (bi[j] * wi);
+                    var ti = (b[j] * wi) + (bi[j] * wr);
+                    b[j] = a[j] - tr;
+                    bi[j] = ai[j] - ti;
+                    a[j] += tr;
+                    ai[j] += ti;
+                }
+            }
+        }
+    }
+
+    /// <summary>Inverse transform without the 1/n scale, in place: conj(F(conj x)).</summary>
+    public void InverseUnscaled(Span<double> re, Span<double> im)
+    {
+        Negate(im[..Length]);
+        Forward(re, im);
+        Negate(im[..Length]);
+    }
+
+    private static void Negate(Span<double> values)
+    {
+        for (var i = 0; i < values.Length; i++)
+        {
+            values[i] = -values[i];
+        }
+    }
+
+    private static uint ReverseBits(uint v)
+    {
+        v = ((v >> 1) & 0x55555555u) | ((v & 0x55555555u) << 1);
+        v = ((v >> 2) & 0x33333333u) | ((v & 0x33333333u) << 2);
+        v = ((v >> 4) & 0x0F0F0F0Fu) | ((v & 0x0F0F0F0Fu) << 4);
+        v = ((v >> 8) & 0x00FF00FFu) | ((v & 0x00FF00FFu) << 8);
+        return (v >> 16) | (v << 16);
+    }
+}
+
+/// <summary>
+/// Complex DFT of any length: radix-2 when the length is a power of two, otherwise Bluestein's chirp-z algorithm
+/// (the DFT as a convolution with a chirp, done by power-of-two FFTs). Holds scratch buffers: not thread-safe.
+/// </summary>
+internal sealed class ComplexDft
+{
+    private readonly Radix2Fft _fft;
+    private readonly double[]? _chirpRe;
+    private readonly double[]? _chirpIm;
+    private readonly double[]? _kernelRe;
+    private readonly double[]? _kernelIm;
+    private readonly double[]? _workRe;
+    private readonly double[]? _workIm;
+
+    /// <summary>Builds the plan for <paramref name="length"/> points (at least 1).</summary>
+    public ComplexDft(int length)
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(length, 1);
+        Length = length;
+        if (BitOperations.IsPow2(length))
+        {
+            _fft = new Radix2Fft(length);
+            return;
+        }
+
+        var m = (int)BitOperations.RoundUpToPowerOf2((uint)((2 * length) - 1));
+        _fft = new Radix2Fft(m);
+        _chirpRe = new double[length];
+        _chirpIm = new double[length];
+        for (var j = 0; j < length; j++)
+        {
+            // e^{-iπ j²/n}; j² reduced mod 2n keeps the angle small and exact.
+            var q = (long)j * j % (2L * length);
+            var angle = -Math.PI * q / length;
+            _chirpRe[j] = Math.Cos(angle);
+            _chirpIm[j] = Math.Sin(angle);
+        }
+
+        _kernelRe = new double[m];
+        _kernelIm = new double[m];
+        _kernelRe[0] = 1;
+        for (var j = 1; j < length; j++)
+        {
+            // b_j = conj(chirp_j) = e^{+iπ j²/n}, placed at j and at m - j (negative lags).
+            _kernelRe[j] = _kernelRe[m - j] = _chirpRe[j];
+            _kernelIm[j] = _kernelIm[m - j] = -_chirpIm[j];
+        }
+
+        _fft.Forward(_kernelRe, _kernelIm);
+        _workRe = new double[m];
+        _workIm = new double[m];
+    }
+
+    /// <summary>Number of points.</summary>
+    public int Length { get; }
+
+    /// <summary>Forward DFT X_k = Σ x_j e^{-2πi jk/n}, in place on the first <see cref="Length"/> values, unscaled.</summary>
+    public void Forward(Span<double> re, Span<double> im)
+    {
+        if (_chirpRe is null)
+        {
+            _fft.Forward(re, im);
+            return;
+        }
+
+        var n = Length;
+        var wr = _workRe!;
+        var wi = _workIm!;
+        var cr = _chirpRe;
+        var ci = _chirpIm!;
+        for (var j = 0; j < n; j++)
+        {
+            wr[j] = (re[j] * cr[j]) - (im[j] * ci[j]);
+            wi[j] = (re[j] * ci[j]) + (im[j] * cr[j]);
+        }
+
+        Array.Clear(wr, n, wr.Length - n);
+        Array.Clear(wi, n, wi.Length - n);
+        _fft.Forward(wr, wi);
+        var kr = _kernelRe!;
+        var ki = _kernelIm!;
+        for (var k = 0; k < wr.Length; k++)
+        {
+            var r = (wr[k] * kr[k]) - (wi[k] * ki[k]);
+            wi[k] = (wr[k] * ki[k]) + (wi[k] * kr[k]);
+            wr[k] = r;
+        }
+
+        _fft.InverseUnscaled(wr, wi);
+        var scale = 1.0 / wr.Length;
+        for (var k = 0; k < n; k++)
+        {
+            var r = wr[k] * scale;
+            var m = wi[k] * scale;
+            re[k] = (r * cr[k]) - (m * ci[k]);
+            im[k] = (r * ci[k]) + (m * cr[k]);
+        }
+    }
+}
+
+/// <summary>
+/// One-sided power spectrum of a real window of fixed length, built once per length and reused: the mean-square
+/// value of each bin, so that the bins sum to the window's mean square (Parseval). Holds scratch: not thread-safe.
+/// </summary>
+/// <remarks>
+/// An even length is transformed as a complex sequence of half the length (even samples real, odd imaginary) and
+/// split afterwards, which halves the work; an odd length goes through the full complex DFT.
+/// </remarks>
+public sealed class RealSpectrum
+{
+    private readonly ComplexDft _dft;
+    private readonly double[] _re;
+    private readonly double[] _im;
+    private readonly double[]? _twiddleRe;
+    private readonly double[]? _twiddleIm;
+
+    /// <summary>Builds the plan for windows of <paramref name="length"/> samples.</summary>
+    /// <param name="length">Samples per window, at least 2.</param>
+    public RealSpectrum(int length)
+    {
+        if (length < 2)
+        {
+            throw new ArgumentOutOfRangeException(nameof(length), length, "window length must be at least 2 samples");
+        }
+
+        Length = length;
+        var even = length % 2 == 0;
+        var inner = even ? length / 2 : length;
+        _dft = new ComplexDft(inner);
+        _re = new double[inner];
+        _im = new double[inner];
+        if (even)
+        {
+            var half = length / 2;
+            _twiddleRe = new double[half + 1];
+            _twiddleIm = new double[half + 1];
+            for (var k = 0; k <= half; k++)
+            {
+                var angle = -2.0 * Math.PI * k / length;
+                _twiddleRe[k] = Math.Cos(angle);
+                _twiddleIm[k] = Math.Sin(angle);
+            }
+        }
+    }
+
+    /// <summary>Samples per window.</summary>
+    public int Length { get; }
+
+    /// <summary>Number of one-sided bins, <c>Length / 2 + 1</c> (bin k at k·fs/Length hertz).</summary>
+    public int BinCount => (Length / 2) + 1;
+
+    /// <summary>Writes each bin's mean square C_k² (A²): bin 0 the squared mean, others twice |X_k|²/n² except Nyquist.</summary>
+    /// <param name="samples">Exactly <see cref="Length"/> samples.</param>
+    /// <param name="power">At least <see cref="BinCount"/> values, overwritten.</param>
+    public void Power(ReadOnlySpan<double> samples, Span<double> power)
+    {
+        if (samples.Length != Length)
+        {
+            throw new ArgumentException($"expected {Length} samples, got {samples.Length}", nameof(samples));
+        }
+
+        var n = Length;
+        var bins = BinCount;
+        var norm = 1.0 / ((double)n * n);
+        if (_twiddleRe is null)
+        {
+            samples.CopyTo(_re);
+            Array.Clear(_im);
+            _dft.Forward(_re, _im);
+            power[0] = ((_re[0] * _re[0]) + (_im[0] * _im[0])) * norm;
+            for (var k = 1; k < bins; k++)
+            {
+                power[k] = 2 * ((_re[k] * _re[k]) + (_im[k] * _im[k])) * norm;
+            }
+
+            return;
+        }
+
+        var h = n / 2;
+        for (var m = 0; m < h; m++)
+        {
+            _re[m] = samples[2 * m];
+            _im[m] = samples[(2 * m) + 1];
+        }
+
+        _dft.Forward(_re, _im);
+        var tr = _twiddleRe;
+        var ti = _twiddleIm!;
+        for (var k = 0; k <= h; k++)
+        {
+            var a = k % h;
+            var b = (h - k) % h;
+            // E = (Z_a + conj Z_b)/2, O = (Z_a - conj Z_b)/(2i), X = E + W^k O.
+            var er = 0.5 * (_re[a] + _re[b]);
+            var ei = 0.5 * (_im[a] - _im[b]);
+            var or = 0.5 * (_im[a] + _im[b]);
+            var oi = -0.5 * (_re[a] - _re[b]);
+            var xr = er + ((tr[k] * or) - (ti[k] * oi));
+            var xi = ei + ((tr[k] * oi) + (ti[k] * or));
+            var p = ((xr * xr) + (xi * xi)) * norm;
+            power[k] = k == 0 || k == h ? p : 2 * p;
+        }
+    }
+}
