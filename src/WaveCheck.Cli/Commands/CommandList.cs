@@ -7,6 +7,6 @@ internal static class CommandList
 {
     public static IEnumerable<Command> All()
     {
-        yield break;
+        yield return AnalyzeCommand.Create();
     }
 }

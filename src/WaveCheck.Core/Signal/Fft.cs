@@ -1,4 +1,6 @@
+using System.Runtime.CompilerServices;
 using System.Numerics;
+using System.Runtime.InteropServices;
 
 namespace WaveCheck.Core.Signal;
 
@@ -8,6 +10,7 @@ namespace WaveCheck.Core.Signal;
 /// </summary>
 internal sealed class Radix2Fft
 {
+    // Twiddles of every stage side by side: stage of half-size h uses entries h..2h−1, e^{−iπ j/h}.
     private readonly double[] _cos;
     private readonly double[] _sin;
     private readonly int[] _reverse;
@@ -21,14 +24,16 @@ internal sealed class Radix2Fft
         }
 
         Length = length;
-        var half = Math.Max(1, length / 2);
-        _cos = new double[half];
-        _sin = new double[half];
-        for (var k = 0; k < half; k++)
+        _cos = new double[Math.Max(2, length)];
+        _sin = new double[Math.Max(2, length)];
+        for (var h = 1; h < length; h <<= 1)
         {
-            var angle = -2.0 * Math.PI * k / length;
-            _cos[k] = Math.Cos(angle);
-            _sin[k] = Math.Sin(angle);
+            for (var j = 0; j < h; j++)
+            {
+                var angle = -Math.PI * j / h;
+                _cos[h + j] = Math.Cos(angle);
+                _sin[h + j] = Math.Sin(angle);
+            }
         }
 
         _reverse = new int[length];
@@ -43,6 +48,7 @@ internal sealed class Radix2Fft
     public int Length { get; }
 
     /// <summary>Forward transform X_k = Σ x_j e^{-2πi jk/n}, in place, unscaled.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Forward(Span<double> re, Span<double> im)
     {
         var n = Length;
@@ -58,37 +64,48 @@ internal sealed class Radix2Fft
             }
         }
 
-        // First stage (size 2) needs no multiplication.
-        for (var i = 0; i + 1 < n; i += 2)
+        var width = Vector<double>.Count;
+        for (var half = 1; half < n; half <<= 1)
         {
-            var r = re[i + 1];
-            var m = im[i + 1];
-            re[i + 1] = re[i] - r;
-            im[i + 1] = im[i] - m;
-            re[i] += r;
-            im[i] += m;
-        }
+            var size = half << 1;
+            var wr = _cos.AsSpan(half, half);
+            var wi = _sin.AsSpan(half, half);
+            if (half >= width && Vector.IsHardwareAccelerated)
+            {
+                var vwr = MemoryMarshal.Cast<double, Vector<double>>(wr);
+                var vwi = MemoryMarshal.Cast<double, Vector<double>>(wi);
+                for (var start = 0; start < n; start += size)
+                {
+                    var ar = MemoryMarshal.Cast<double, Vector<double>>(re.Slice(start, half));
+                    var ai = MemoryMarshal.Cast<double, Vector<double>>(im.Slice(start, half));
+                    var br = MemoryMarshal.Cast<double, Vector<double>>(re.Slice(start + half, half));
+                    var bi = MemoryMarshal.Cast<double, Vector<double>>(im.Slice(start + half, half));
+                    for (var j = 0; j < ar.Length; j++)
+                    {
+                        var tr = (br[j] * vwr[j]) - (bi[j] * vwi[j]);
+                        var ti = (br[j] * vwi[j]) + (bi[j] * vwr[j]);
+                        br[j] = ar[j] - tr;
+                        bi[j] = ai[j] - ti;
+                        ar[j] += tr;
+                        ai[j] += ti;
+                    }
+                }
 
-        for (var size = 4; size <= n; size <<= 1)
-        {
-            var half = size >> 1;
-            var step = n / size;
+                continue;
+            }
+
             for (var start = 0; start < n; start += size)
             {
-                var a = re.Slice(start, half);
-                var ai = im.Slice(start, half);
-                var b = re.Slice(start + half, half);
-                var bi = im.Slice(start + half, half);
-                for (int j = 0, t = 0; j < half; j++, t += step)
+                for (var j = 0; j < half; j++)
                 {
-                    var wr = _cos[t];
-                    var wi = _sin[t];
-                    var tr = (b[j] * wr) - (bi[j] * wi);
-                    var ti = (b[j] * wi) + (bi[j] * wr);
-                    b[j] = a[j] - tr;
-                    bi[j] = ai[j] - ti;
-                    a[j] += tr;
-                    ai[j] += ti;
+                    var a = start + j;
+                    var b = a + half;
+                    var tr = (re[b] * wr[j]) - (im[b] * wi[j]);
+                    var ti = (re[b] * wi[j]) + (im[b] * wr[j]);
+                    re[b] = re[a] - tr;
+                    im[b] = im[a] - ti;
+                    re[a] += tr;
+                    im[a] += ti;
                 }
             }
         }
@@ -177,6 +194,7 @@ internal sealed class ComplexDft
     public int Length { get; }
 
     /// <summary>Forward DFT X_k = Σ x_j e^{-2πi jk/n}, in place on the first <see cref="Length"/> values, unscaled.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Forward(Span<double> re, Span<double> im)
     {
         if (_chirpRe is null)
@@ -274,6 +292,7 @@ public sealed class RealSpectrum
     /// <summary>Writes each bin's mean square C_k² (A²): bin 0 the squared mean, others twice |X_k|²/n² except Nyquist.</summary>
     /// <param name="samples">Exactly <see cref="Length"/> samples.</param>
     /// <param name="power">At least <see cref="BinCount"/> values, overwritten.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Power(ReadOnlySpan<double> samples, Span<double> power)
     {
         if (samples.Length != Length)

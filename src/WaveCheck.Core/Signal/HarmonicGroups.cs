@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 namespace WaveCheck.Core.Signal;
 
 /// <summary>
@@ -65,6 +66,7 @@ public static class HarmonicGroups
     }
 
     /// <summary>Sum of bins <paramref name="from"/>..<paramref name="to"/> inclusive, clipped to the spectrum.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static double Sum(ReadOnlySpan<double> power, int from, int to)
     {
         from = Math.Max(from, 0);

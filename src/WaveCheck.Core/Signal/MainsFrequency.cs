@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 namespace WaveCheck.Core.Signal;
 
 /// <summary>Outcome of looking for mains content at the start of a capture.</summary>
@@ -169,6 +170,7 @@ public static class MainsFrequency
         return referenceHz + (phase * sampleRateHz / (2 * Math.PI * offset));
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static (double Re, double Im) Correlate(ReadOnlySpan<double> x, double omega, int start, double mean)
     {
         // Σ (x_n − mean) e^{−iω(start+n)} with a rotating phasor, re-anchored every 1024 samples against drift.

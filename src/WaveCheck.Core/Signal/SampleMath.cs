@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Numerics;
 
 namespace WaveCheck.Core.Signal;
@@ -16,6 +17,7 @@ public static class SampleMath
     public static (double Sum, double SumSquares, double Min, double Max) Moments(ReadOnlySpan<double> values) =>
         Moments(values, true);
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static (double Sum, double SumSquares, double Min, double Max) Moments(ReadOnlySpan<double> values,
         bool sums)
     {

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 namespace WaveCheck.Core.Signal;
 
 /// <summary>Waveform-shape figures of one window.</summary>
@@ -52,6 +53,7 @@ public sealed class WaveformShape
     /// <param name="meanA">The window's mean, amperes.</param>
     /// <param name="minA">Smallest sample, amperes.</param>
     /// <param name="maxA">Largest sample, amperes.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public ShapeFigures Measure(ReadOnlySpan<double> samplesA, int cycles, double meanA, double minA, double maxA)
     {
         var n = samplesA.Length;
@@ -125,6 +127,7 @@ public sealed class WaveformShape
         return new ShapeFigures(floor, true, angle);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private double? DelayAngle(ReadOnlySpan<double> samplesA, int cycles, bool positive, double floor, double mean,
         double extreme)
     {
@@ -206,6 +209,7 @@ public sealed class WaveformShape
     }
 
     /// <summary>Sample value at a (fractional) rank: finds its coarse bin, then histograms that bin finely.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private double RefinedQuantile(ReadOnlySpan<double> samplesA, double rank, double min, double scale)
     {
         var width = 1 / scale;
