@@ -19,6 +19,14 @@ internal static class Stages
         var even = new RealSpectrum(n % 2 == 0 ? n : n + 1);
         var odd = new RealSpectrum(n % 2 == 0 ? n + 1 : n);
         var shape = new WaveformShape();
+        foreach (var size in new[] { 256, 1024, 4096, 16384, 65536 })
+        {
+            var plan = new RealSpectrum(size);
+            var input = new double[size];
+            var output = new double[plan.BinCount];
+            Time($"spectrum, {size} (radix-2)", () => plan.Power(input, output));
+        }
+
         var fft = new RealSpectrum(16384);
         var pow2 = new double[16384];
         Time("spectrum, 16384 (radix-2)", () => fft.Power(pow2, power.Length >= 8193 ? power : new double[8193]));

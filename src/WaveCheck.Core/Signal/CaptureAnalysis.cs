@@ -54,6 +54,11 @@ public sealed class CaptureAnalysis
     private int _windowLength;
     private long _windowStart;
     private double[] _power = [];
+    private double[] _pending = [];
+    private double[] _pendingPower = [];
+    private int _pendingLength;
+    private long _pendingStart;
+    private double _pendingHz;
 
     private long _count;
     private double _sum;
@@ -186,6 +191,7 @@ public sealed class CaptureAnalysis
             StartWindows();
         }
 
+        FlushPending();
         CloseAlarm();
         CloseClipStretch();
         var warnings = new List<CaptureWarning>();
@@ -283,6 +289,8 @@ public sealed class CaptureAnalysis
         _window = new double[maxLength];
         _worst = new double[maxLength];
         _power = new double[(maxLength / 2) + 1];
+        _pending = new double[maxLength];
+        _pendingPower = new double[(maxLength / 2) + 1];
         _windowLength = NextLength();
         _trend = new TrendTable(nominal);
         _maxOrder = _options.MaxHarmonicOrder;
@@ -338,7 +346,7 @@ public sealed class CaptureAnalysis
             samplesA = samplesA[take..];
             if (_windowFill == _windowLength)
             {
-                AnalyzeWindow(_window.AsSpan(0, _windowLength));
+                CompleteWindow(_window.AsSpan(0, _windowLength));
                 _windowStart += _windowLength;
                 _windowFill = 0;
                 _windowLength = NextLength();
@@ -346,38 +354,90 @@ public sealed class CaptureAnalysis
         }
     }
 
-    private void AnalyzeWindow(ReadOnlySpan<double> w)
+    /// <summary>
+    /// Tracks the frequency at once (it sizes the next window), then analyses the window. Odd lengths have no
+    /// half-length real transform, so two consecutive odd windows of equal length share one complex transform; the
+    /// first waits for the second (figures and callbacks stay in time order).
+    /// </summary>
+    private void CompleteWindow(ReadOnlySpan<double> w)
+    {
+        var frequency = TrackFrequency(w);
+        var n = w.Length;
+        var plan = _plans.For(n);
+        if (n % 2 == 0)
+        {
+            FlushPending();
+            plan.Power(w, _power.AsSpan(0, plan.BinCount));
+            AnalyzeWindow(w, _windowStart, frequency, _power.AsSpan(0, plan.BinCount));
+            return;
+        }
+
+        if (_pendingLength == n)
+        {
+            plan.PowerPair(_pending.AsSpan(0, n), w, _pendingPower.AsSpan(0, plan.BinCount), _power.AsSpan(0, plan.BinCount));
+            _pendingLength = 0;
+            AnalyzeWindow(_pending.AsSpan(0, n), _pendingStart, _pendingHz, _pendingPower.AsSpan(0, plan.BinCount));
+            AnalyzeWindow(w, _windowStart, frequency, _power.AsSpan(0, plan.BinCount));
+            return;
+        }
+
+        FlushPending();
+        w.CopyTo(_pending);
+        _pendingLength = n;
+        _pendingStart = _windowStart;
+        _pendingHz = frequency;
+    }
+
+    private void FlushPending()
+    {
+        if (_pendingLength == 0)
+        {
+            return;
+        }
+
+        var n = _pendingLength;
+        _pendingLength = 0;
+        var plan = _plans.For(n);
+        plan.Power(_pending.AsSpan(0, n), _pendingPower.AsSpan(0, plan.BinCount));
+        AnalyzeWindow(_pending.AsSpan(0, n), _pendingStart, _pendingHz, _pendingPower.AsSpan(0, plan.BinCount));
+    }
+
+    private double TrackFrequency(ReadOnlySpan<double> w)
+    {
+        if (!_tracking)
+        {
+            return _trackedHz;
+        }
+
+        var (sum, squares, _, _) = SampleMath.Moments(w);
+        var mean = sum / w.Length;
+        var ac = Math.Sqrt(Math.Max(0, (squares / w.Length) - (mean * mean)));
+        var measured = MainsFrequency.MeasureWindow(w, _fs, _trackedHz, _cycles / 2, mean, out var fundamental);
+        var nominal = _mains.NominalHz;
+        if (measured is { } hz && fundamental >= MainsFrequency.MinFundamentalA &&
+            fundamental >= MainsFrequency.MinFundamentalShare * ac &&
+            Math.Abs(hz - nominal) <= MainsFrequency.TrackingRange * nominal)
+        {
+            _trackedHz = hz;
+        }
+
+        return _trackedHz;
+    }
+
+    private void AnalyzeWindow(ReadOnlySpan<double> w, long start, double frequency, ReadOnlySpan<double> power)
     {
         var n = w.Length;
-        var startS = _windowStart / _fs;
+        var startS = start / _fs;
         var (sum, squares, min, max) = SampleMath.Moments(w);
         var mean = sum / n;
         var meanSquare = squares / n;
         var rms = Math.Sqrt(meanSquare);
         var ac = Math.Sqrt(Math.Max(0, meanSquare - (mean * mean)));
         var peak = Math.Max(Math.Abs(min), Math.Abs(max));
-
-        var frequency = _trackedHz;
-        if (_tracking)
-        {
-            var measured = MainsFrequency.MeasureWindow(w, _fs, _trackedHz, _cycles / 2, mean, out var fundamental);
-            var nominal = _mains.NominalHz;
-            if (measured is { } hz && fundamental >= MainsFrequency.MinFundamentalA &&
-                fundamental >= MainsFrequency.MinFundamentalShare * ac &&
-                Math.Abs(hz - nominal) <= MainsFrequency.TrackingRange * nominal)
-            {
-                frequency = hz;
-                _trackedHz = hz;
-            }
-        }
-
         var exact = _cycles * _fs / frequency;
         _maxSyncError = Math.Max(_maxSyncError, Math.Abs(n - exact) / exact * 100);
 
         var shape = _shape.Measure(w, _cycles, mean, min, max);
-        var spectrum = _plans.For(n);
-        var power = _power.AsSpan(0, spectrum.BinCount);
-        spectrum.Power(w, power);
         var resolution = _fs / n;
 
         var harmonicsPower = 0.0;
@@ -502,7 +562,7 @@ public sealed class CaptureAnalysis
         if (rms > _worstRms)
         {
             _worstRms = rms;
-            _worstStart = _windowStart;
+            _worstStart = start;
             _worstLength = n;
             w.CopyTo(_worst);
         }

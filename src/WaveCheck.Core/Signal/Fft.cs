@@ -65,43 +65,50 @@ internal sealed class Radix2Fft
         }
 
         var width = Vector<double>.Count;
+        var vectorised = Vector.IsHardwareAccelerated && n >= 2 * width;
         for (var half = 1; half < n; half <<= 1)
         {
             var size = half << 1;
-            var wr = _cos.AsSpan(half, half);
-            var wi = _sin.AsSpan(half, half);
-            if (half >= width && Vector.IsHardwareAccelerated)
+            if (vectorised && half >= width)
             {
-                var vwr = MemoryMarshal.Cast<double, Vector<double>>(wr);
-                var vwi = MemoryMarshal.Cast<double, Vector<double>>(wi);
-                for (var start = 0; start < n; start += size)
+                // Split arrays make a butterfly stage a plain element-wise loop over whole vectors.
+                var vr = MemoryMarshal.Cast<double, Vector<double>>(re);
+                var vi = MemoryMarshal.Cast<double, Vector<double>>(im);
+                var wr = MemoryMarshal.Cast<double, Vector<double>>(_cos.AsSpan(half, half));
+                var wi = MemoryMarshal.Cast<double, Vector<double>>(_sin.AsSpan(half, half));
+                var h = half / width;
+                for (var start = 0; start < vr.Length; start += 2 * h)
                 {
-                    var ar = MemoryMarshal.Cast<double, Vector<double>>(re.Slice(start, half));
-                    var ai = MemoryMarshal.Cast<double, Vector<double>>(im.Slice(start, half));
-                    var br = MemoryMarshal.Cast<double, Vector<double>>(re.Slice(start + half, half));
-                    var bi = MemoryMarshal.Cast<double, Vector<double>>(im.Slice(start + half, half));
-                    for (var j = 0; j < ar.Length; j++)
+                    for (var j = 0; j < h; j++)
                     {
-                        var tr = (br[j] * vwr[j]) - (bi[j] * vwi[j]);
-                        var ti = (br[j] * vwi[j]) + (bi[j] * vwr[j]);
-                        br[j] = ar[j] - tr;
-                        bi[j] = ai[j] - ti;
-                        ar[j] += tr;
-                        ai[j] += ti;
+                        var a = start + j;
+                        var b = a + h;
+                        var br = vr[b];
+                        var bi = vi[b];
+                        var tr = (br * wr[j]) - (bi * wi[j]);
+                        var ti = (br * wi[j]) + (bi * wr[j]);
+                        var ar = vr[a];
+                        var ai = vi[a];
+                        vr[b] = ar - tr;
+                        vi[b] = ai - ti;
+                        vr[a] = ar + tr;
+                        vi[a] = ai + ti;
                     }
                 }
 
                 continue;
             }
 
+            var cr = _cos.AsSpan(half, half);
+            var ci = _sin.AsSpan(half, half);
             for (var start = 0; start < n; start += size)
             {
                 for (var j = 0; j < half; j++)
                 {
                     var a = start + j;
                     var b = a + half;
-                    var tr = (re[b] * wr[j]) - (im[b] * wi[j]);
-                    var ti = (re[b] * wi[j]) + (im[b] * wr[j]);
+                    var tr = (re[b] * cr[j]) - (im[b] * ci[j]);
+                    var ti = (re[b] * ci[j]) + (im[b] * cr[j]);
                     re[b] = re[a] - tr;
                     im[b] = im[a] - ti;
                     re[a] += tr;
@@ -253,6 +260,9 @@ public sealed class RealSpectrum
     private readonly double[] _im;
     private readonly double[]? _twiddleRe;
     private readonly double[]? _twiddleIm;
+    private ComplexDft? _pairDft;
+    private double[]? _pairRe;
+    private double[]? _pairIm;
 
     /// <summary>Builds the plan for windows of <paramref name="length"/> samples.</summary>
     /// <param name="length">Samples per window, at least 2.</param>
@@ -288,6 +298,44 @@ public sealed class RealSpectrum
 
     /// <summary>Number of one-sided bins, <c>Length / 2 + 1</c> (bin k at k·fs/Length hertz).</summary>
     public int BinCount => (Length / 2) + 1;
+
+    /// <summary>
+    /// Power spectra of two windows of this length at once, as one complex transform of a + i·b split by symmetry
+    /// (A_k = (Z_k + conj Z_{n−k})/2, B_k = (Z_k − conj Z_{n−k})/2i); the same figures as two <see cref="Power"/> calls.
+    /// </summary>
+    /// <param name="first">Exactly <see cref="Length"/> samples.</param>
+    /// <param name="second">Exactly <see cref="Length"/> samples.</param>
+    /// <param name="firstPower">At least <see cref="BinCount"/> values, overwritten.</param>
+    /// <param name="secondPower">At least <see cref="BinCount"/> values, overwritten.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void PowerPair(ReadOnlySpan<double> first, ReadOnlySpan<double> second, Span<double> firstPower,
+        Span<double> secondPower)
+    {
+        if (first.Length != Length || second.Length != Length)
+        {
+            throw new ArgumentException($"expected {Length} samples, got {first.Length} and {second.Length}", nameof(first));
+        }
+
+        var n = Length;
+        var re = new Span<double>(_pairRe ??= new double[n]);
+        var im = new Span<double>(_pairIm ??= new double[n]);
+        _pairDft ??= _twiddleRe is null ? _dft : new ComplexDft(n);
+        first.CopyTo(re);
+        second.CopyTo(im);
+        _pairDft.Forward(re, im);
+        var norm = 1.0 / ((double)n * n);
+        for (var k = 0; k < BinCount; k++)
+        {
+            var m = (n - k) % n;
+            var ar = 0.5 * (re[k] + re[m]);
+            var ai = 0.5 * (im[k] - im[m]);
+            var br = 0.5 * (im[k] + im[m]);
+            var bi = -0.5 * (re[k] - re[m]);
+            var weight = k == 0 || (n % 2 == 0 && k == n / 2) ? norm : 2 * norm;
+            firstPower[k] = ((ar * ar) + (ai * ai)) * weight;
+            secondPower[k] = ((br * br) + (bi * bi)) * weight;
+        }
+    }
 
     /// <summary>Writes each bin's mean square C_k² (A²): bin 0 the squared mean, others twice |X_k|²/n² except Nyquist.</summary>
     /// <param name="samples">Exactly <see cref="Length"/> samples.</param>
