@@ -69,6 +69,13 @@ internal sealed class Radix2Fft
         for (var half = 1; half < n; half <<= 1)
         {
             var size = half << 1;
+            if (vectorised && half >= width && size < n)
+            {
+                Radix4Pass(re, im, half, width);
+                half <<= 1;
+                continue;
+            }
+
             if (vectorised && half >= width)
             {
                 // Split arrays make a butterfly stage a plain element-wise loop over whole vectors.
@@ -114,6 +121,60 @@ internal sealed class Radix2Fft
                     re[a] += tr;
                     im[a] += ti;
                 }
+            }
+        }
+    }
+
+    /// <summary>Two radix-2 stages (half sizes h and 2h) in one pass over memory, on whole vectors.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void Radix4Pass(Span<double> re, Span<double> im, int half, int width)
+    {
+        var vr = MemoryMarshal.Cast<double, Vector<double>>(re);
+        var vi = MemoryMarshal.Cast<double, Vector<double>>(im);
+        var w1r = MemoryMarshal.Cast<double, Vector<double>>(_cos.AsSpan(half, half));
+        var w1i = MemoryMarshal.Cast<double, Vector<double>>(_sin.AsSpan(half, half));
+        var w2r = MemoryMarshal.Cast<double, Vector<double>>(_cos.AsSpan(2 * half, 2 * half));
+        var w2i = MemoryMarshal.Cast<double, Vector<double>>(_sin.AsSpan(2 * half, 2 * half));
+        var h = half / width;
+        for (var start = 0; start < vr.Length; start += 4 * h)
+        {
+            for (var j = 0; j < h; j++)
+            {
+                int i0 = start + j, i1 = i0 + h, i2 = i1 + h, i3 = i2 + h;
+                var ar = w1r[j];
+                var ai = w1i[j];
+
+                // First stage: (x0, x1) and (x2, x3) with W_{2h}^j.
+                var t1r = (vr[i1] * ar) - (vi[i1] * ai);
+                var t1i = (vr[i1] * ai) + (vi[i1] * ar);
+                var t3r = (vr[i3] * ar) - (vi[i3] * ai);
+                var t3i = (vr[i3] * ai) + (vi[i3] * ar);
+                var b0r = vr[i0] + t1r;
+                var b0i = vi[i0] + t1i;
+                var b1r = vr[i0] - t1r;
+                var b1i = vi[i0] - t1i;
+                var b2r = vr[i2] + t3r;
+                var b2i = vi[i2] + t3i;
+                var b3r = vr[i2] - t3r;
+                var b3i = vi[i2] - t3i;
+
+                // Second stage: (b0, b2) with W_{4h}^j and (b1, b3) with W_{4h}^{j+h}.
+                var cr = w2r[j];
+                var ci = w2i[j];
+                var dr = w2r[j + h];
+                var di = w2i[j + h];
+                var u2r = (b2r * cr) - (b2i * ci);
+                var u2i = (b2r * ci) + (b2i * cr);
+                var u3r = (b3r * dr) - (b3i * di);
+                var u3i = (b3r * di) + (b3i * dr);
+                vr[i0] = b0r + u2r;
+                vi[i0] = b0i + u2i;
+                vr[i2] = b0r - u2r;
+                vi[i2] = b0i - u2i;
+                vr[i1] = b1r + u3r;
+                vi[i1] = b1i + u3i;
+                vr[i3] = b1r - u3r;
+                vi[i3] = b1i - u3i;
             }
         }
     }
