@@ -16,16 +16,25 @@ if [[ ! -f "$wav" ]]; then
   # Invented scenario: a workshop dimmer (phase-controlled half-wave at 49.97 Hz) on 4 mA smooth DC, a 16 kHz drive
   # switching tone and noise; float32 mono, values in amperes (full scale 1.0 = 1 A).
   /usr/bin/python3 - "$wav" "$minutes" "$rate" <<'PY'
+import struct
 import sys
 import numpy as np
-from scipy.io import wavfile
 path, minutes, rate = sys.argv[1], float(sys.argv[2]), int(sys.argv[3])
 n = int(minutes * 60 * rate)
-t = np.arange(n, dtype=np.float64) / rate
-theta = np.mod(2 * np.pi * 49.97 * t, 2 * np.pi)
-x = 0.004 + np.where((theta >= 1.2) & (theta < np.pi), 0.03 * np.sin(theta), 0.0)
-x += 0.002 * np.sin(2 * np.pi * 16000 * t) + 0.0002 * np.random.default_rng(1).standard_normal(n)
-wavfile.write(path, rate, x.astype(np.float32))
+rng = np.random.default_rng(1)
+with open(path, "wb") as f:
+    # RIFF/WAVE, format 3 (IEEE float), mono, 32-bit; written in 10 s chunks to keep memory small.
+    data = n * 4
+    f.write(b"RIFF" + struct.pack("<I", 36 + data) + b"WAVE")
+    f.write(b"fmt " + struct.pack("<IHHIIHH", 16, 3, 1, rate, rate * 4, 4, 32))
+    f.write(b"data" + struct.pack("<I", data))
+    for start in range(0, n, 10 * rate):
+        i = np.arange(start, min(n, start + 10 * rate), dtype=np.float64)
+        t = i / rate
+        theta = np.mod(2 * np.pi * 49.97 * t, 2 * np.pi)
+        x = 0.004 + np.where((theta >= 1.2) & (theta < np.pi), 0.03 * np.sin(theta), 0.0)
+        x += 0.002 * np.sin(2 * np.pi * 16000 * t) + 0.0002 * rng.standard_normal(len(i))
+        f.write(x.astype("<f4").tobytes())
 print(f"wrote {path}: {n} samples")
 PY
 fi

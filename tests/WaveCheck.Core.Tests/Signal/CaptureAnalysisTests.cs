@@ -227,6 +227,22 @@ public class CaptureAnalysisTests
     }
 
     [Fact]
+    public void SerialisesUnderTheAnalysisContract()
+    {
+        // Contract (AnalysisResult): schema wavecheck.analysis/1, camelCase, statistics keyed by WindowResult names;
+        // a metric never measured (delay angle of a sine) serialises as null, not NaN.
+        var result = Analyze(Synth.Make(Fs, 1, t => 0.01 * Math.Sin(2 * Math.PI * F * t)));
+        using var json = System.Text.Json.JsonDocument.Parse(ResultJson.Serialize(result));
+        var root = json.RootElement;
+        Assert.Equal("wavecheck.analysis/1", root.GetProperty("schema").GetString());
+        Assert.Equal("detected", root.GetProperty("mains").GetProperty("source").GetString());
+        var angle = root.GetProperty("windows").GetProperty("statistics").GetProperty("currentDelayAngleDeg");
+        Assert.Equal(System.Text.Json.JsonValueKind.Null, angle.GetProperty("mean").ValueKind);
+        Assert.Equal(50, root.GetProperty("harmonics").GetArrayLength());
+        Assert.Equal(result.Bands.Count, root.GetProperty("bands").GetArrayLength());
+    }
+
+    [Fact]
     public void RejectsBadOptions()
     {
         var info = new MemoryCaptureSource([0.0], Fs).Info;

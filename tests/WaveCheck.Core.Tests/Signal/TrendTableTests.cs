@@ -7,9 +7,22 @@ public class TrendTableTests
 {
     private static WindowResult Row(int i, double rms) => new()
     {
-        StartS = i * 0.2, DurationS = 0.2, FrequencyHz = 50 + (i == 4321 ? 0.3 : 0), RmsA = rms, DcA = 0, AcRmsA = rms,
-        PeakPositiveA = rms, PeakNegativeA = -rms, CrestFactor = 1, SmoothDcA = 0, PulsatingDc = false, MainsRmsA = rms,
-        BelowMainsRmsA = 0, HarmonicsRmsA = 0, Above1kHzRmsA = 0, Above9kHzRmsA = 0,
+        StartS = i * 0.2,
+        DurationS = 0.2,
+        FrequencyHz = 50 + (i == 4321 ? 0.3 : 0),
+        RmsA = rms,
+        DcA = 0,
+        AcRmsA = rms,
+        PeakPositiveA = rms,
+        PeakNegativeA = -rms,
+        CrestFactor = 1,
+        SmoothDcA = 0,
+        PulsatingDc = false,
+        MainsRmsA = rms,
+        BelowMainsRmsA = 0,
+        HarmonicsRmsA = 0,
+        Above1kHzRmsA = 0,
+        Above9kHzRmsA = 0,
     };
 
     [Fact]
