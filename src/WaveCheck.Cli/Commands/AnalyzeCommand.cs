@@ -11,11 +11,15 @@ namespace WaveCheck.Cli.Commands;
 /// <summary><c>wavecheck analyze FILE</c>: measures a capture and prints a summary; JSON and a per-window CSV on request.</summary>
 internal static class AnalyzeCommand
 {
-    private static readonly string[] CsvColumns =
+    private static readonly (string Name, Func<WindowResult, double?> Value)[] CsvColumns =
     [
-        "startS", "durationS", "frequencyHz", "rmsA", "dcA", "acRmsA", "peakPositiveA", "peakNegativeA", "crestFactor",
-        "smoothDcA", "pulsatingDc", "currentDelayAngleDeg", "mainsRmsA", "belowMainsRmsA", "harmonicsRmsA",
-        "above1kHzRmsA", "above9kHzRmsA", "thdPercent", "clipped",
+        ("startS", w => w.StartS), ("durationS", w => w.DurationS), ("frequencyHz", w => w.FrequencyHz),
+        ("rmsA", w => w.RmsA), ("dcA", w => w.DcA), ("acRmsA", w => w.AcRmsA), ("peakPositiveA", w => w.PeakPositiveA),
+        ("peakNegativeA", w => w.PeakNegativeA), ("crestFactor", w => w.CrestFactor), ("smoothDcA", w => w.SmoothDcA),
+        ("pulsatingDc", w => w.PulsatingDc ? 1 : 0), ("currentDelayAngleDeg", w => w.CurrentDelayAngleDeg),
+        ("mainsRmsA", w => w.MainsRmsA), ("belowMainsRmsA", w => w.BelowMainsRmsA), ("harmonicsRmsA", w => w.HarmonicsRmsA),
+        ("above1kHzRmsA", w => w.Above1kHzRmsA), ("above9kHzRmsA", w => w.Above9kHzRmsA), ("thdPercent", w => w.ThdPercent),
+        ("clipped", w => w.Clipped ? 1 : 0),
     ];
 
     public static Command Create()
@@ -79,41 +83,33 @@ internal static class AnalyzeCommand
         AtomicFile.Write(path, stream =>
         {
             using var writer = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16, leaveOpen: true);
-            writer.WriteLine(string.Join(',', CsvColumns));
+            writer.WriteLine(string.Join(',', CsvColumns.Select(c => c.Name)));
             var row = new StringBuilder(256);
             result = Analyzer.Analyze(source, options with
             {
                 WindowCompleted = w =>
                 {
+                    // Flags are 1/0, a figure not measured in the window (delay angle, THD) an empty cell.
                     row.Clear();
-                    Append(row, w.StartS).Append(',');
-                    Append(row, w.DurationS).Append(',');
-                    Append(row, w.FrequencyHz).Append(',');
-                    Append(row, w.RmsA).Append(',');
-                    Append(row, w.DcA).Append(',');
-                    Append(row, w.AcRmsA).Append(',');
-                    Append(row, w.PeakPositiveA).Append(',');
-                    Append(row, w.PeakNegativeA).Append(',');
-                    Append(row, w.CrestFactor).Append(',');
-                    Append(row, w.SmoothDcA).Append(',');
-                    row.Append(w.PulsatingDc ? "true" : "false").Append(',');
-                    Append(row, w.CurrentDelayAngleDeg).Append(',');
-                    Append(row, w.MainsRmsA).Append(',');
-                    Append(row, w.BelowMainsRmsA).Append(',');
-                    Append(row, w.HarmonicsRmsA).Append(',');
-                    Append(row, w.Above1kHzRmsA).Append(',');
-                    Append(row, w.Above9kHzRmsA).Append(',');
-                    Append(row, w.ThdPercent).Append(',');
-                    row.Append(w.Clipped ? "true" : "false");
+                    for (var i = 0; i < CsvColumns.Length; i++)
+                    {
+                        if (i > 0)
+                        {
+                            row.Append(',');
+                        }
+
+                        if (CsvColumns[i].Value(w) is { } v && double.IsFinite(v))
+                        {
+                            row.Append(v.ToString("G10", CultureInfo.InvariantCulture));
+                        }
+                    }
+
                     writer.WriteLine(row);
                 },
             });
         });
         return result!;
     }
-
-    private static StringBuilder Append(StringBuilder row, double? value) =>
-        value is { } v && double.IsFinite(v) ? row.Append(v.ToString("G10", CultureInfo.InvariantCulture)) : row;
 
     private static void Print(AnalysisResult result)
     {

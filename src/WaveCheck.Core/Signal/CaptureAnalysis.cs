@@ -71,16 +71,10 @@ public sealed class CaptureAnalysis
     private double _frequencyMin = double.PositiveInfinity;
     private double _frequencyMax = double.NegativeInfinity;
     private double _maxSyncError;
-    private double[] _harmonicSum = [];
-    private double[] _harmonicMax = [];
-    private int[] _harmonicCount = [];
-    private double[] _interSum = [];
-    private double[] _interMax = [];
-    private int[] _interCount = [];
+    private GroupAccumulator _harmonic = new(0);
+    private GroupAccumulator _inter = new(0);
     private (double LowHz, double HighHz)[] _bands = [];
-    private double[] _bandSum = [];
-    private double[] _bandMax = [];
-    private int[] _bandCount = [];
+    private GroupAccumulator _band = new(0);
     private double[] _spectrumSum = [];
     private int[] _spectrumCount = [];
     private double _mainsSum;
@@ -206,22 +200,19 @@ public sealed class CaptureAnalysis
         var harmonics = new HarmonicValue[_maxOrder];
         for (var n = 1; n <= _maxOrder; n++)
         {
-            harmonics[n - 1] = new HarmonicValue(n, n * meanHz, RmsOf(_harmonicSum[n], _harmonicCount[n]),
-                _harmonicCount[n] > 0 ? Math.Sqrt(_harmonicMax[n]) : double.NaN);
+            harmonics[n - 1] = new HarmonicValue(n, n * meanHz, _harmonic.Rms(n), _harmonic.Max(n));
         }
 
         var interharmonics = new HarmonicValue[_maxOrder];
         for (var n = 0; n < _maxOrder; n++)
         {
-            interharmonics[n] = new HarmonicValue(n, (n + 0.5) * meanHz, RmsOf(_interSum[n], _interCount[n]),
-                _interCount[n] > 0 ? Math.Sqrt(_interMax[n]) : double.NaN);
+            interharmonics[n] = new HarmonicValue(n, (n + 0.5) * meanHz, _inter.Rms(n), _inter.Max(n));
         }
 
         var bands = new BandValue[_bands.Length];
         for (var b = 0; b < bands.Length; b++)
         {
-            bands[b] = new BandValue(_bands[b].LowHz, _bands[b].HighHz, RmsOf(_bandSum[b], _bandCount[b]),
-                _bandCount[b] > 0 ? Math.Sqrt(_bandMax[b]) : double.NaN);
+            bands[b] = new BandValue(_bands[b].LowHz, _bands[b].HighHz, _band.Rms(b), _band.Max(b));
         }
 
         var spectrum = BuildSpectrum(meanHz);
@@ -294,16 +285,10 @@ public sealed class CaptureAnalysis
         _windowLength = NextLength();
         _trend = new TrendTable(nominal);
         _maxOrder = _options.MaxHarmonicOrder;
-        _harmonicSum = new double[_maxOrder + 1];
-        _harmonicMax = new double[_maxOrder + 1];
-        _harmonicCount = new int[_maxOrder + 1];
-        _interSum = new double[_maxOrder];
-        _interMax = new double[_maxOrder];
-        _interCount = new int[_maxOrder];
+        _harmonic = new GroupAccumulator(_maxOrder + 1);
+        _inter = new GroupAccumulator(_maxOrder);
         _bands = BuildBands();
-        _bandSum = new double[_bands.Length];
-        _bandMax = new double[_bands.Length];
-        _bandCount = new int[_bands.Length];
+        _band = new GroupAccumulator(_bands.Length);
         var resolution = nominal / _cycles;
         var upper = Math.Min(_fs / 2, _options.HighBandUpperHz);
         var bins = Math.Min((int)Math.Floor(upper / resolution) + 1, _power.Length);
@@ -459,9 +444,7 @@ public sealed class CaptureAnalysis
                 harmonicsPower += g;
             }
 
-            _harmonicSum[order] += g;
-            _harmonicMax[order] = Math.Max(_harmonicMax[order], g);
-            _harmonicCount[order]++;
+            _harmonic.Add(order, g);
         }
 
         for (var order = 0; order < _maxOrder; order++)
@@ -471,10 +454,7 @@ public sealed class CaptureAnalysis
                 break;
             }
 
-            var g = HarmonicGroups.InterharmonicGroup(power, _cycles, order);
-            _interSum[order] += g;
-            _interMax[order] = Math.Max(_interMax[order], g);
-            _interCount[order]++;
+            _inter.Add(order, HarmonicGroups.InterharmonicGroup(power, _cycles, order));
         }
 
         var belowPower = HarmonicGroups.BelowFundamental(power, _cycles);
@@ -490,10 +470,7 @@ public sealed class CaptureAnalysis
                 continue;
             }
 
-            var g = HarmonicGroups.Sum(power, from, to);
-            _bandSum[b] += g;
-            _bandMax[b] = Math.Max(_bandMax[b], g);
-            _bandCount[b]++;
+            _band.Add(b, HarmonicGroups.Sum(power, from, to));
         }
 
         var bins = Math.Min(_spectrumSum.Length, power.Length);
@@ -764,5 +741,23 @@ public sealed class CaptureAnalysis
         return new SpectrumResult(resolution, frequencies, rms);
     }
 
-    private static double RmsOf(double sumOfSquares, int count) => count > 0 ? Math.Sqrt(sumOfSquares / count) : double.NaN;
+    /// <summary>Per-index mean square and largest value over windows, for groups and bands.</summary>
+    private sealed class GroupAccumulator(int size)
+    {
+        private readonly double[] _sum = new double[size];
+        private readonly double[] _max = new double[size];
+        private readonly int[] _count = new int[size];
+
+        public void Add(int index, double meanSquare)
+        {
+            _sum[index] += meanSquare;
+            _max[index] = Math.Max(_max[index], meanSquare);
+            _count[index]++;
+        }
+
+        /// <summary>Square root of the mean over windows; NaN where no window could see it.</summary>
+        public double Rms(int index) => _count[index] > 0 ? Math.Sqrt(_sum[index] / _count[index]) : double.NaN;
+
+        public double Max(int index) => _count[index] > 0 ? Math.Sqrt(_max[index]) : double.NaN;
+    }
 }
