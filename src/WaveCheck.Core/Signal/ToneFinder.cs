@@ -10,7 +10,8 @@ namespace WaveCheck.Core.Signal;
 /// <remarks>
 /// For a rectangular window a tone δ bins above bin k gives |X(k+1)|/|X(k)| = δ/(1 − δ), so δ = r/(1 + r) with
 /// r the amplitude ratio of the larger neighbour (the classic two-bin interpolation; closed form of the Dirichlet
-/// kernel for small δ·π/n). Tones weaker than <see cref="MinShareOfAc"/> of the capture's AC RMS are not reported.
+/// kernel for small δ·π/n), and the RMS is the peak bin corrected by πδ/sin(πδ) (or the RSS of the three bins if
+/// larger). Tones weaker than <see cref="MinShareOfAc"/> of the capture's AC RMS are not reported.
 /// </remarks>
 public static class ToneFinder
 {
@@ -49,7 +50,11 @@ public static class ToneFinder
             var side = above >= below ? 1 : -1;
             var r = (side > 0 ? above : below) / p;
             var delta = r / (1 + r);
-            found.Add(new ToneValue((k + (side * delta)) * spectrum.ResolutionHz, total));
+
+            // Scalloping: a pure tone δ bins off bin k shows C_k = RMS·sin(πδ)/(πδ); undo that, and keep the
+            // three-bin sum where it is larger (a tone spread by modulation or drift).
+            var corrected = delta > 1e-9 ? p * Math.PI * delta / Math.Sin(Math.PI * delta) : p;
+            found.Add(new ToneValue((k + (side * delta)) * spectrum.ResolutionHz, Math.Max(total, corrected)));
         }
 
         found.Sort((a, b) => b.RmsA.CompareTo(a.RmsA));
