@@ -40,6 +40,10 @@ public sealed class WaveformShape
     /// <summary>Level above the floor, as a share of the pulse height, where conduction counts as started.</summary>
     public const double ConductionShare = 0.02;
 
+    /// <summary>Level above the floor, as a share of the pulse height, that a new conduction start must reach after
+    /// falling back to <see cref="ConductionShare"/> (hysteresis against noise; engineering choice).</summary>
+    public const double StartShare = 0.10;
+
     /// <summary>Largest difference between the measured and the expected conducting share for a delay angle.</summary>
     public const double ConductionShareTolerance = 0.05;
 
@@ -148,24 +152,30 @@ public sealed class WaveformShape
             ? Math.Acos(Math.Clamp((2 * Math.PI * r) - 1, -1, 1))
             : 2 * Math.Atan(1 / (2 * Math.PI * r));
 
-        // Conduction structure: one start per cycle and the expected conducting share.
+        // Conduction structure: one start per cycle (counted with hysteresis, so noise on the floor does not flicker)
+        // and the expected conducting share.
         var threshold = ConductionShare * height;
+        var rise = StartShare * height;
         var starts = 0;
         var conducting = 0;
-        var was = sign * (samplesA[^1] - floor) > threshold;
+        var on = sign * (samplesA[^1] - floor) > rise;
         foreach (var x in samplesA)
         {
-            var on = sign * (x - floor) > threshold;
-            if (on)
+            var level = sign * (x - floor);
+            if (level > threshold)
             {
                 conducting++;
-                if (!was)
-                {
-                    starts++;
-                }
             }
 
-            was = on;
+            if (!on && level > rise)
+            {
+                on = true;
+                starts++;
+            }
+            else if (on && level <= threshold)
+            {
+                on = false;
+            }
         }
 
         var edge = Math.Asin(ConductionShare);

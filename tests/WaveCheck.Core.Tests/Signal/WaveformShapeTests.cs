@@ -27,6 +27,19 @@ public class WaveformShapeTests
     }
 
     [Fact]
+    public void NoisyHalfWaveKeepsItsFloorAndAngle()
+    {
+        // Worked example with 0.2 mA rms Gaussian noise: smooth DC 8 mA within 1 % (the floor band's median is
+        // unbiased by symmetric noise; 1 % covers the edge samples the band takes in), delay angle 90° within 2°.
+        var random = new Random(8);
+        var (shape, _) = Measure(t => 0.008 + Synth.PhaseCut(t, F, 0.030, Math.PI / 2) + (0.0002 * Synth.Gaussian(random)));
+        Assert.True(shape.PulsatingDc);
+        Assert.Equal(0.008, shape.SmoothDcA, 0.01 * 0.008);
+        Assert.NotNull(shape.CurrentDelayAngleDeg);
+        Assert.Equal(90, shape.CurrentDelayAngleDeg!.Value, 2.0);
+    }
+
+    [Fact]
     public void NegativeHalfWaveRidesOnItsCeiling()
     {
         // Mirror of the worked example (closed form): −30 mA half-wave on −8 mA: smooth DC −8 mA.
