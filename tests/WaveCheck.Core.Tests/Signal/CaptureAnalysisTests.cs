@@ -242,6 +242,30 @@ public class CaptureAnalysisTests
         Assert.Equal(result.Bands.Count, root.GetProperty("bands").GetArrayLength());
     }
 
+    [Theory]
+    [InlineData(1_000)]
+    [InlineData(400_000)]
+    public void LowAndHighSampleRatesWork(double fs)
+    {
+        // Closed form as in SineRmsIsPeakOverRootTwo. At 1 kS/s only orders up to 9 fit below Nyquist (the rest are
+        // null in JSON: not seen); at 400 kS/s the 2 kHz bands run to 150 kHz.
+        var samples = Synth.Make(fs, 1, t => 0.02 * Math.Sin(2 * Math.PI * F * t));
+        var result = Analyzer.Analyze(new MemoryCaptureSource(samples, fs, SensorCoupling.Dc), new AnalysisOptions());
+        Assert.Equal(0.02 / Math.Sqrt(2), result.Components.MainsRmsA, 0.002 * 0.02);
+        Assert.Equal(50, result.Mains.FrequencyHz, 0.01);
+        if (fs < 2000)
+        {
+            Assert.Empty(result.Bands);
+            Assert.True(double.IsNaN(result.Harmonics[20].RmsA));
+        }
+        else
+        {
+            Assert.Equal(150_000, result.Bands[^1].HighHz);
+            Assert.Equal(35 + 71, result.Bands.Count);
+            Assert.DoesNotContain(result.Warnings, w => w.Code == "band-limit");
+        }
+    }
+
     [Fact]
     public void RejectsBadOptions()
     {
