@@ -8,6 +8,7 @@ internal static class CommandList
     public static IEnumerable<Command> All()
     {
         yield return InfoCommand.Create();
+        yield return AnalyzeCommand.Create();
         yield return SynthCommand.Create();
     }
 }

@@ -1,0 +1,454 @@
+using System.Runtime.CompilerServices;
+using System.Numerics;
+using System.Runtime.InteropServices;
+
+namespace WaveCheck.Core.Signal;
+
+/// <summary>
+/// In-place radix-2 complex FFT of a power-of-two length on split real/imaginary arrays, with the twiddle factors and
+/// bit-reversal table built once. Immutable after construction, so one instance may be shared between threads.
+/// </summary>
+internal sealed class Radix2Fft
+{
+    // Twiddles of every stage side by side: stage of half-size h uses entries h..2h−1, e^{−iπ j/h}.
+    private readonly double[] _cos;
+    private readonly double[] _sin;
+    private readonly int[] _reverse;
+
+    /// <summary>Builds the plan for <paramref name="length"/> points (a power of two, at least 1).</summary>
+    public Radix2Fft(int length)
+    {
+        if (length < 1 || !BitOperations.IsPow2(length))
+        {
+            throw new ArgumentOutOfRangeException(nameof(length), length, "FFT length must be a power of two");
+        }
+
+        Length = length;
+        _cos = new double[Math.Max(2, length)];
+        _sin = new double[Math.Max(2, length)];
+        for (var h = 1; h < length; h <<= 1)
+        {
+            for (var j = 0; j < h; j++)
+            {
+                var angle = -Math.PI * j / h;
+                _cos[h + j] = Math.Cos(angle);
+                _sin[h + j] = Math.Sin(angle);
+            }
+        }
+
+        _reverse = new int[length];
+        var bits = BitOperations.Log2((uint)length);
+        for (var i = 0; i < length; i++)
+        {
+            _reverse[i] = bits == 0 ? 0 : (int)(ReverseBits((uint)i) >> (32 - bits));
+        }
+    }
+
+    /// <summary>Number of points.</summary>
+    public int Length { get; }
+
+    /// <summary>Forward transform X_k = Σ x_j e^{-2πi jk/n}, in place, unscaled.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void Forward(Span<double> re, Span<double> im)
+    {
+        var n = Length;
+        re = re[..n];
+        im = im[..n];
+        for (var i = 0; i < n; i++)
+        {
+            var j = _reverse[i];
+            if (j > i)
+            {
+                (re[i], re[j]) = (re[j], re[i]);
+                (im[i], im[j]) = (im[j], im[i]);
+            }
+        }
+
+        var width = Vector<double>.Count;
+        var vectorised = Vector.IsHardwareAccelerated && n >= 2 * width;
+        for (var half = 1; half < n; half <<= 1)
+        {
+            var size = half << 1;
+            if (vectorised && half >= width && size < n)
+            {
+                Radix4Pass(re, im, half, width);
+                half <<= 1;
+                continue;
+            }
+
+            if (vectorised && half >= width)
+            {
+                // Split arrays make a butterfly stage a plain element-wise loop over whole vectors.
+                var vr = MemoryMarshal.Cast<double, Vector<double>>(re);
+                var vi = MemoryMarshal.Cast<double, Vector<double>>(im);
+                var wr = MemoryMarshal.Cast<double, Vector<double>>(_cos.AsSpan(half, half));
+                var wi = MemoryMarshal.Cast<double, Vector<double>>(_sin.AsSpan(half, half));
+                var h = half / width;
+                for (var start = 0; start < vr.Length; start += 2 * h)
+                {
+                    for (var j = 0; j < h; j++)
+                    {
+                        var a = start + j;
+                        var b = a + h;
+                        var br = vr[b];
+                        var bi = vi[b];
+                        var tr = (br * wr[j]) - (bi * wi[j]);
+                        var ti = (br * wi[j]) + (bi * wr[j]);
+                        var ar = vr[a];
+                        var ai = vi[a];
+                        vr[b] = ar - tr;
+                        vi[b] = ai - ti;
+                        vr[a] = ar + tr;
+                        vi[a] = ai + ti;
+                    }
+                }
+
+                continue;
+            }
+
+            var cr = _cos.AsSpan(half, half);
+            var ci = _sin.AsSpan(half, half);
+            for (var start = 0; start < n; start += size)
+            {
+                for (var j = 0; j < half; j++)
+                {
+                    var a = start + j;
+                    var b = a + half;
+                    var tr = (re[b] * cr[j]) - (im[b] * ci[j]);
+                    var ti = (re[b] * ci[j]) + (im[b] * cr[j]);
+                    re[b] = re[a] - tr;
+                    im[b] = im[a] - ti;
+                    re[a] += tr;
+                    im[a] += ti;
+                }
+            }
+        }
+    }
+
+    /// <summary>Two radix-2 stages (half sizes h and 2h) in one pass over memory, on whole vectors.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void Radix4Pass(Span<double> re, Span<double> im, int half, int width)
+    {
+        var vr = MemoryMarshal.Cast<double, Vector<double>>(re);
+        var vi = MemoryMarshal.Cast<double, Vector<double>>(im);
+        var w1r = MemoryMarshal.Cast<double, Vector<double>>(_cos.AsSpan(half, half));
+        var w1i = MemoryMarshal.Cast<double, Vector<double>>(_sin.AsSpan(half, half));
+        var w2r = MemoryMarshal.Cast<double, Vector<double>>(_cos.AsSpan(2 * half, 2 * half));
+        var w2i = MemoryMarshal.Cast<double, Vector<double>>(_sin.AsSpan(2 * half, 2 * half));
+        var h = half / width;
+        for (var start = 0; start < vr.Length; start += 4 * h)
+        {
+            for (var j = 0; j < h; j++)
+            {
+                int i0 = start + j, i1 = i0 + h, i2 = i1 + h, i3 = i2 + h;
+                var ar = w1r[j];
+                var ai = w1i[j];
+
+                // First stage: (x0, x1) and (x2, x3) with W_{2h}^j.
+                var t1r = (vr[i1] * ar) - (vi[i1] * ai);
+                var t1i = (vr[i1] * ai) + (vi[i1] * ar);
+                var t3r = (vr[i3] * ar) - (vi[i3] * ai);
+                var t3i = (vr[i3] * ai) + (vi[i3] * ar);
+                var b0r = vr[i0] + t1r;
+                var b0i = vi[i0] + t1i;
+                var b1r = vr[i0] - t1r;
+                var b1i = vi[i0] - t1i;
+                var b2r = vr[i2] + t3r;
+                var b2i = vi[i2] + t3i;
+                var b3r = vr[i2] - t3r;
+                var b3i = vi[i2] - t3i;
+
+                // Second stage: (b0, b2) with W_{4h}^j and (b1, b3) with W_{4h}^{j+h}.
+                var cr = w2r[j];
+                var ci = w2i[j];
+                var dr = w2r[j + h];
+                var di = w2i[j + h];
+                var u2r = (b2r * cr) - (b2i * ci);
+                var u2i = (b2r * ci) + (b2i * cr);
+                var u3r = (b3r * dr) - (b3i * di);
+                var u3i = (b3r * di) + (b3i * dr);
+                vr[i0] = b0r + u2r;
+                vi[i0] = b0i + u2i;
+                vr[i2] = b0r - u2r;
+                vi[i2] = b0i - u2i;
+                vr[i1] = b1r + u3r;
+                vi[i1] = b1i + u3i;
+                vr[i3] = b1r - u3r;
+                vi[i3] = b1i - u3i;
+            }
+        }
+    }
+
+    /// <summary>Inverse transform without the 1/n scale, in place: conj(F(conj x)).</summary>
+    public void InverseUnscaled(Span<double> re, Span<double> im)
+    {
+        Negate(im[..Length]);
+        Forward(re, im);
+        Negate(im[..Length]);
+    }
+
+    private static void Negate(Span<double> values)
+    {
+        for (var i = 0; i < values.Length; i++)
+        {
+            values[i] = -values[i];
+        }
+    }
+
+    private static uint ReverseBits(uint v)
+    {
+        v = ((v >> 1) & 0x55555555u) | ((v & 0x55555555u) << 1);
+        v = ((v >> 2) & 0x33333333u) | ((v & 0x33333333u) << 2);
+        v = ((v >> 4) & 0x0F0F0F0Fu) | ((v & 0x0F0F0F0Fu) << 4);
+        v = ((v >> 8) & 0x00FF00FFu) | ((v & 0x00FF00FFu) << 8);
+        return (v >> 16) | (v << 16);
+    }
+}
+
+/// <summary>
+/// Complex DFT of any length: radix-2 when the length is a power of two, otherwise Bluestein's chirp-z algorithm
+/// (the DFT as a convolution with a chirp, done by power-of-two FFTs). Holds scratch buffers: not thread-safe.
+/// </summary>
+internal sealed class ComplexDft
+{
+    private readonly Radix2Fft _fft;
+    private readonly double[]? _chirpRe;
+    private readonly double[]? _chirpIm;
+    private readonly double[]? _kernelRe;
+    private readonly double[]? _kernelIm;
+    private readonly double[]? _workRe;
+    private readonly double[]? _workIm;
+
+    /// <summary>Builds the plan for <paramref name="length"/> points (at least 1).</summary>
+    public ComplexDft(int length)
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(length, 1);
+        Length = length;
+        if (BitOperations.IsPow2(length))
+        {
+            _fft = new Radix2Fft(length);
+            return;
+        }
+
+        var m = (int)BitOperations.RoundUpToPowerOf2((uint)((2 * length) - 1));
+        _fft = new Radix2Fft(m);
+        _chirpRe = new double[length];
+        _chirpIm = new double[length];
+        for (var j = 0; j < length; j++)
+        {
+            // e^{-iπ j²/n}; j² reduced mod 2n keeps the angle small and exact.
+            var q = (long)j * j % (2L * length);
+            var angle = -Math.PI * q / length;
+            _chirpRe[j] = Math.Cos(angle);
+            _chirpIm[j] = Math.Sin(angle);
+        }
+
+        _kernelRe = new double[m];
+        _kernelIm = new double[m];
+        _kernelRe[0] = 1;
+        for (var j = 1; j < length; j++)
+        {
+            // b_j = conj(chirp_j) = e^{+iπ j²/n}, placed at j and at m - j (negative lags).
+            _kernelRe[j] = _kernelRe[m - j] = _chirpRe[j];
+            _kernelIm[j] = _kernelIm[m - j] = -_chirpIm[j];
+        }
+
+        _fft.Forward(_kernelRe, _kernelIm);
+        _workRe = new double[m];
+        _workIm = new double[m];
+    }
+
+    /// <summary>Number of points.</summary>
+    public int Length { get; }
+
+    /// <summary>Forward DFT X_k = Σ x_j e^{-2πi jk/n}, in place on the first <see cref="Length"/> values, unscaled.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void Forward(Span<double> re, Span<double> im)
+    {
+        if (_chirpRe is null)
+        {
+            _fft.Forward(re, im);
+            return;
+        }
+
+        var n = Length;
+        var wr = _workRe!;
+        var wi = _workIm!;
+        var cr = _chirpRe;
+        var ci = _chirpIm!;
+        for (var j = 0; j < n; j++)
+        {
+            wr[j] = (re[j] * cr[j]) - (im[j] * ci[j]);
+            wi[j] = (re[j] * ci[j]) + (im[j] * cr[j]);
+        }
+
+        Array.Clear(wr, n, wr.Length - n);
+        Array.Clear(wi, n, wi.Length - n);
+        _fft.Forward(wr, wi);
+        var kr = _kernelRe!;
+        var ki = _kernelIm!;
+        for (var k = 0; k < wr.Length; k++)
+        {
+            var r = (wr[k] * kr[k]) - (wi[k] * ki[k]);
+            wi[k] = (wr[k] * ki[k]) + (wi[k] * kr[k]);
+            wr[k] = r;
+        }
+
+        _fft.InverseUnscaled(wr, wi);
+        var scale = 1.0 / wr.Length;
+        for (var k = 0; k < n; k++)
+        {
+            var r = wr[k] * scale;
+            var m = wi[k] * scale;
+            re[k] = (r * cr[k]) - (m * ci[k]);
+            im[k] = (r * ci[k]) + (m * cr[k]);
+        }
+    }
+}
+
+/// <summary>
+/// One-sided power spectrum of a real window of fixed length, built once per length and reused: the mean-square
+/// value of each bin, so that the bins sum to the window's mean square (Parseval). Holds scratch: not thread-safe.
+/// </summary>
+/// <remarks>
+/// An even length is transformed as a complex sequence of half the length (even samples real, odd imaginary) and
+/// split afterwards, which halves the work; an odd length goes through the full complex DFT.
+/// </remarks>
+public sealed class RealSpectrum
+{
+    private readonly ComplexDft _dft;
+    private readonly double[] _re;
+    private readonly double[] _im;
+    private readonly double[]? _twiddleRe;
+    private readonly double[]? _twiddleIm;
+    private ComplexDft? _pairDft;
+    private double[]? _pairRe;
+    private double[]? _pairIm;
+
+    /// <summary>Builds the plan for windows of <paramref name="length"/> samples.</summary>
+    /// <param name="length">Samples per window, at least 2.</param>
+    public RealSpectrum(int length)
+    {
+        if (length < 2)
+        {
+            throw new ArgumentOutOfRangeException(nameof(length), length, "window length must be at least 2 samples");
+        }
+
+        Length = length;
+        var even = length % 2 == 0;
+        var inner = even ? length / 2 : length;
+        _dft = new ComplexDft(inner);
+        _re = new double[inner];
+        _im = new double[inner];
+        if (even)
+        {
+            var half = length / 2;
+            _twiddleRe = new double[half + 1];
+            _twiddleIm = new double[half + 1];
+            for (var k = 0; k <= half; k++)
+            {
+                var angle = -2.0 * Math.PI * k / length;
+                _twiddleRe[k] = Math.Cos(angle);
+                _twiddleIm[k] = Math.Sin(angle);
+            }
+        }
+    }
+
+    /// <summary>Samples per window.</summary>
+    public int Length { get; }
+
+    /// <summary>Number of one-sided bins, <c>Length / 2 + 1</c> (bin k at k·fs/Length hertz).</summary>
+    public int BinCount => (Length / 2) + 1;
+
+    /// <summary>
+    /// Power spectra of two windows of this length at once, as one complex transform of a + i·b split by symmetry
+    /// (A_k = (Z_k + conj Z_{n−k})/2, B_k = (Z_k − conj Z_{n−k})/2i); the same figures as two <see cref="Power"/> calls.
+    /// </summary>
+    /// <param name="first">Exactly <see cref="Length"/> samples.</param>
+    /// <param name="second">Exactly <see cref="Length"/> samples.</param>
+    /// <param name="firstPower">At least <see cref="BinCount"/> values, overwritten.</param>
+    /// <param name="secondPower">At least <see cref="BinCount"/> values, overwritten.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void PowerPair(ReadOnlySpan<double> first, ReadOnlySpan<double> second, Span<double> firstPower,
+        Span<double> secondPower)
+    {
+        if (first.Length != Length || second.Length != Length)
+        {
+            throw new ArgumentException($"expected {Length} samples, got {first.Length} and {second.Length}", nameof(first));
+        }
+
+        var n = Length;
+        var re = new Span<double>(_pairRe ??= new double[n]);
+        var im = new Span<double>(_pairIm ??= new double[n]);
+        _pairDft ??= _twiddleRe is null ? _dft : new ComplexDft(n);
+        first.CopyTo(re);
+        second.CopyTo(im);
+        _pairDft.Forward(re, im);
+        var norm = 1.0 / ((double)n * n);
+        for (var k = 0; k < BinCount; k++)
+        {
+            var m = (n - k) % n;
+            var ar = 0.5 * (re[k] + re[m]);
+            var ai = 0.5 * (im[k] - im[m]);
+            var br = 0.5 * (im[k] + im[m]);
+            var bi = -0.5 * (re[k] - re[m]);
+            var weight = k == 0 || (n % 2 == 0 && k == n / 2) ? norm : 2 * norm;
+            firstPower[k] = ((ar * ar) + (ai * ai)) * weight;
+            secondPower[k] = ((br * br) + (bi * bi)) * weight;
+        }
+    }
+
+    /// <summary>Writes each bin's mean square C_k² (A²): bin 0 the squared mean, others twice |X_k|²/n² except Nyquist.</summary>
+    /// <param name="samples">Exactly <see cref="Length"/> samples.</param>
+    /// <param name="power">At least <see cref="BinCount"/> values, overwritten.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void Power(ReadOnlySpan<double> samples, Span<double> power)
+    {
+        if (samples.Length != Length)
+        {
+            throw new ArgumentException($"expected {Length} samples, got {samples.Length}", nameof(samples));
+        }
+
+        var n = Length;
+        var bins = BinCount;
+        var norm = 1.0 / ((double)n * n);
+        if (_twiddleRe is null)
+        {
+            samples.CopyTo(_re);
+            Array.Clear(_im);
+            _dft.Forward(_re, _im);
+            power[0] = ((_re[0] * _re[0]) + (_im[0] * _im[0])) * norm;
+            for (var k = 1; k < bins; k++)
+            {
+                power[k] = 2 * ((_re[k] * _re[k]) + (_im[k] * _im[k])) * norm;
+            }
+
+            return;
+        }
+
+        var h = n / 2;
+        for (var m = 0; m < h; m++)
+        {
+            _re[m] = samples[2 * m];
+            _im[m] = samples[(2 * m) + 1];
+        }
+
+        _dft.Forward(_re, _im);
+        var tr = _twiddleRe;
+        var ti = _twiddleIm!;
+        for (var k = 0; k <= h; k++)
+        {
+            var a = k % h;
+            var b = (h - k) % h;
+            // E = (Z_a + conj Z_b)/2, O = (Z_a - conj Z_b)/(2i), X = E + W^k O.
+            var er = 0.5 * (_re[a] + _re[b]);
+            var ei = 0.5 * (_im[a] - _im[b]);
+            var or = 0.5 * (_im[a] + _im[b]);
+            var oi = -0.5 * (_re[a] - _re[b]);
+            var xr = er + ((tr[k] * or) - (ti[k] * oi));
+            var xi = ei + ((tr[k] * oi) + (ti[k] * or));
+            var p = ((xr * xr) + (xi * xi)) * norm;
+            power[k] = k == 0 || k == h ? p : 2 * p;
+        }
+    }
+}

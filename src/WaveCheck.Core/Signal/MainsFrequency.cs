@@ -1,0 +1,244 @@
+using System.Runtime.CompilerServices;
+namespace WaveCheck.Core.Signal;
+
+/// <summary>Outcome of looking for mains content at the start of a capture.</summary>
+/// <param name="NominalHz">Nominal frequency to size windows with, hertz.</param>
+/// <param name="FrequencyHz">Estimated frequency at the start, hertz (the nominal when not found).</param>
+/// <param name="Found">True when clear mains content was found (tracking possible).</param>
+/// <param name="FundamentalRmsA">RMS of the component found, amperes.</param>
+/// <param name="AcRmsA">AC RMS of the stretch searched, amperes.</param>
+public readonly record struct MainsDetection(double NominalHz, double FrequencyHz, bool Found, double FundamentalRmsA,
+    double AcRmsA);
+
+/// <summary>
+/// Finding and tracking the mains frequency. Detection: Hann-windowed spectrum of the first seconds (block-averaged to
+/// about 1 to 2 kHz), the strongest bin near 50 or 60 Hz (or near the given frequency), interpolated, then refined by
+/// the phase method below on the full-rate samples. Tracking: per window, the phase of the fundamental measured on the
+/// first and the last whole-cycle stretch of the window; the phase advance between them over their time offset gives
+/// the frequency error. Stateless and thread-safe.
+/// </summary>
+/// <remarks>
+/// Correlating over a whole number of cycles of the reference frequency rejects DC and the harmonics, so a
+/// half-wave current tracks as well as a sine. The Hann interpolation δ = (2|X₊| − |X₀|)/(|X₀| + |X₊|) is exact for one
+/// tone under a Hann window (common practice, no single source).
+/// </remarks>
+public static class MainsFrequency
+{
+    /// <summary>Tracking range around the nominal, as a fraction (±5 %).</summary>
+    public const double TrackingRange = 0.05;
+
+    /// <summary>Least fundamental RMS, as a share of the AC RMS, for mains content to count as present
+    /// (engineering choice: a residual current whose mains part is below 5 % of its AC content gives no reliable phase).</summary>
+    public const double MinFundamentalShare = 0.05;
+
+    /// <summary>Least ratio of the peak bin's power to the median power of the bins around it (engineering choice:
+    /// noise gives ratios of a few, a tone tens of thousands).</summary>
+    public const double MinPeakToMedianPower = 100;
+
+    /// <summary>Smallest fundamental RMS regarded as a signal at all, amperes (engineering choice: 100 nA).</summary>
+    public const double MinFundamentalA = 1e-7;
+
+    /// <summary>Looks for mains content in <paramref name="samplesA"/> (the first seconds of a capture).</summary>
+    /// <param name="samplesA">Samples, amperes.</param>
+    /// <param name="sampleRateHz">Sample rate, hertz.</param>
+    /// <param name="givenHz">Nominal frequency given by the user, hertz; null to choose between 50 and 60 Hz.</param>
+    public static MainsDetection Detect(ReadOnlySpan<double> samplesA, double sampleRateHz, double? givenHz)
+    {
+        var fallbackHz = givenHz ?? 50.0;
+        var mean = Mean(samplesA);
+        var acRms = AcRms(samplesA, mean);
+        var lost = new MainsDetection(fallbackHz, fallbackHz, false, 0, acRms);
+        var decimation = Math.Max(1, (int)(sampleRateHz / 1000));
+        var rate = sampleRateHz / decimation;
+        var count = samplesA.Length / decimation;
+        if (count < 16 || count / rate < 0.1)
+        {
+            return lost;
+        }
+
+        var reduced = new double[count];
+        for (var i = 0; i < count; i++)
+        {
+            var sum = 0.0;
+            var block = samplesA.Slice(i * decimation, decimation);
+            foreach (var x in block)
+            {
+                sum += x;
+            }
+
+            var hann = 0.5 - (0.5 * Math.Cos(2 * Math.PI * i / count));
+            reduced[i] = ((sum / decimation) - mean) * hann;
+        }
+
+        var spectrum = new RealSpectrum(count);
+        var power = new double[spectrum.BinCount];
+        spectrum.Power(reduced, power);
+        var resolution = rate / count;
+
+        var best = -1;
+        foreach (var nominal in givenHz is null ? [50.0, 60.0] : new[] { givenHz.Value })
+        {
+            var from = Math.Max(1, (int)Math.Ceiling(nominal * (1 - TrackingRange) / resolution));
+            var to = Math.Min(power.Length - 2, (int)Math.Floor(nominal * (1 + TrackingRange) / resolution));
+            for (var k = from; k <= to; k++)
+            {
+                if (best < 0 || power[k] > power[best])
+                {
+                    best = k;
+                }
+            }
+        }
+
+        if (best < 1 || !(power[best] > 0))
+        {
+            return lost;
+        }
+
+        var median = MedianAround(power, best, resolution, givenHz);
+        if (power[best] < MinPeakToMedianPower * median)
+        {
+            return lost;
+        }
+
+        var side = power[best + 1] >= power[best - 1] ? 1 : -1;
+        var m0 = Math.Sqrt(power[best]);
+        var m1 = Math.Sqrt(power[best + side]);
+        var delta = ((2 * m1) - m0) / (m0 + m1);
+        var coarseHz = (best + (side * Math.Clamp(delta, 0, 1))) * resolution;
+        var chosen = givenHz ?? (Math.Abs(coarseHz - 50) < Math.Abs(coarseHz - 60) ? 50.0 : 60.0);
+
+        // Refine on full-rate samples with the phase method over the longest whole-cycle halves.
+        var frequency = coarseHz;
+        var fundamental = 0.0;
+        for (var iteration = 0; iteration < 3; iteration++)
+        {
+            var halfCycles = (int)Math.Floor(samplesA.Length * frequency / sampleRateHz / 2);
+            var measured = MeasureWindow(samplesA, sampleRateHz, frequency, halfCycles, mean, out fundamental);
+            if (measured is null)
+            {
+                return lost;
+            }
+
+            frequency = Math.Clamp(measured.Value, chosen * (1 - TrackingRange), chosen * (1 + TrackingRange));
+        }
+
+        if (fundamental < MinFundamentalA || fundamental < MinFundamentalShare * acRms)
+        {
+            return lost;
+        }
+
+        return new MainsDetection(chosen, frequency, true, fundamental, acRms);
+    }
+
+    /// <summary>
+    /// Frequency of the component near <paramref name="referenceHz"/> from the phase advance between the first and the
+    /// last stretch of <paramref name="halfCycles"/> reference cycles in <paramref name="samplesA"/>.
+    /// </summary>
+    /// <param name="samplesA">A window, amperes.</param>
+    /// <param name="sampleRateHz">Sample rate, hertz.</param>
+    /// <param name="referenceHz">Frequency expected, hertz.</param>
+    /// <param name="halfCycles">Cycles per stretch (at least 1; about half the window).</param>
+    /// <param name="meanA">The window's mean, removed before correlating, amperes.</param>
+    /// <param name="fundamentalRmsA">RMS of the component (mean of the two stretches), amperes.</param>
+    /// <returns>The frequency, hertz; null when the window is too short or the component is zero.</returns>
+    public static double? MeasureWindow(ReadOnlySpan<double> samplesA, double sampleRateHz, double referenceHz,
+        int halfCycles, double meanA, out double fundamentalRmsA)
+    {
+        fundamentalRmsA = 0;
+        var stretch = (int)Math.Round(halfCycles * sampleRateHz / referenceHz);
+        var offset = samplesA.Length - stretch;
+        if (halfCycles < 1 || stretch < 4 || offset <= 0)
+        {
+            return null;
+        }
+
+        var omega = 2 * Math.PI * referenceHz / sampleRateHz;
+        var (r1, i1) = Correlate(samplesA[..stretch], omega, 0, meanA);
+        var (r2, i2) = Correlate(samplesA.Slice(offset, stretch), omega, offset, meanA);
+        var m1 = Math.Sqrt((r1 * r1) + (i1 * i1));
+        var m2 = Math.Sqrt((r2 * r2) + (i2 * i2));
+        fundamentalRmsA = (m1 + m2) / 2 * Math.Sqrt(2) / stretch;
+        if (!(m1 > 0) || !(m2 > 0))
+        {
+            return null;
+        }
+
+        // arg(c2 · conj c1) = (ω_true − ω_ref)·offset.
+        var dr = (r2 * r1) + (i2 * i1);
+        var di = (i2 * r1) - (r2 * i1);
+        var phase = Math.Atan2(di, dr);
+        return referenceHz + (phase * sampleRateHz / (2 * Math.PI * offset));
+    }
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static (double Re, double Im) Correlate(ReadOnlySpan<double> x, double omega, int start, double mean)
+    {
+        // Σ (x_n − mean) e^{−iω(start+n)} with a rotating phasor, re-anchored every 1024 samples against drift.
+        double sumRe = 0, sumIm = 0;
+        var stepRe = Math.Cos(omega);
+        var stepIm = -Math.Sin(omega);
+        for (var block = 0; block < x.Length; block += 1024)
+        {
+            var angle = -omega * (start + block);
+            var pr = Math.Cos(angle);
+            var pi = Math.Sin(angle);
+            var end = Math.Min(x.Length, block + 1024);
+            for (var n = block; n < end; n++)
+            {
+                var v = x[n] - mean;
+                sumRe += v * pr;
+                sumIm += v * pi;
+                var t = (pr * stepRe) - (pi * stepIm);
+                pi = (pr * stepIm) + (pi * stepRe);
+                pr = t;
+            }
+        }
+
+        return (sumRe, sumIm);
+    }
+
+    private static double MedianAround(double[] power, int peak, double resolution, double? givenHz)
+    {
+        var centre = givenHz ?? 55.0;
+        var from = Math.Max(1, (int)(centre * 0.7 / resolution));
+        var to = Math.Min(power.Length - 1, (int)(centre * 1.3 / resolution));
+        var values = new List<double>();
+        for (var k = from; k <= to; k++)
+        {
+            if (Math.Abs(k - peak) > 2)
+            {
+                values.Add(power[k]);
+            }
+        }
+
+        if (values.Count == 0)
+        {
+            return 0;
+        }
+
+        values.Sort();
+        return values[values.Count / 2];
+    }
+
+    private static double Mean(ReadOnlySpan<double> x)
+    {
+        var sum = 0.0;
+        foreach (var v in x)
+        {
+            sum += v;
+        }
+
+        return x.Length > 0 ? sum / x.Length : 0;
+    }
+
+    private static double AcRms(ReadOnlySpan<double> x, double mean)
+    {
+        var sum = 0.0;
+        foreach (var v in x)
+        {
+            sum += (v - mean) * (v - mean);
+        }
+
+        return x.Length > 0 ? Math.Sqrt(sum / x.Length) : 0;
+    }
+}

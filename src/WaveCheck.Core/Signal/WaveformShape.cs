@@ -1,0 +1,268 @@
+using System.Runtime.CompilerServices;
+namespace WaveCheck.Core.Signal;
+
+/// <summary>Waveform-shape figures of one window.</summary>
+/// <param name="SmoothDcA">The floor the current rides on, amperes, signed (see <see cref="WaveformShape"/>).</param>
+/// <param name="PulsatingDc">Unipolar pulses that return to the floor in every mains cycle.</param>
+/// <param name="CurrentDelayAngleDeg">Delay angle of a phase-controlled half-wave, degrees; null when not one.</param>
+public readonly record struct ShapeFigures(double SmoothDcA, bool PulsatingDc, double? CurrentDelayAngleDeg);
+
+/// <summary>
+/// Smooth DC, pulsating DC and current-delay angle of a window, from the distribution of its samples
+/// (histograms, no sorting). Holds scratch histograms: not thread-safe; one instance per analysis.
+/// </summary>
+/// <remarks>
+/// <para>Definitions (engineering choices, stated so they can be checked):</para>
+/// <para>Let P2 and P98 be the window's 2nd and 98th percentiles and R = P98 − P2. The <b>floor band</b> is the samples
+/// within <see cref="FloorBandShare"/> (5 %) of R of P2 (or of P98 for negative pulses). A window is <b>pulsating
+/// DC</b> when at least <see cref="MinDwellShare"/> (20 %) of its samples lie in one floor band and fewer than that
+/// in the opposite one (a sine spends about 14 % of its time within 5 % of its range of either extreme, a square wave
+/// 50 % at both, a half-wave at least 50 % at its floor and about 10 % near its top), and every mains cycle of the
+/// window has at least one sample in that band (it returns to the floor each cycle).</para>
+/// <para><b>Smooth DC</b> of a pulsating window is the median of the floor-band samples (so 30 mA half-wave pulses on
+/// 8 mA give 8 mA, not the mean of 17.5 mA); of any other window (AC with an offset, DC with ripple, pure DC) it is
+/// the mean. A full-wave rectified sine without phase control has no resting floor and so is reported as AC on a
+/// smooth DC equal to its mean.</para>
+/// <para><b>Current-delay angle</b> α of a phase-controlled half-wave (conduction from α to π of each cycle): with
+/// r = (mean − floor)/(max − floor), closed form r = (1 + cos α)/(2π) for α ≤ 90° and (1 + cos α)/(2π sin α) above,
+/// solved for α. It is reported only when the window has one conduction start per cycle and a conducting share close
+/// to (π − α)/(2π); otherwise null. Percentiles come from a 4096-bin histogram of the window's range; the floor value is
+/// refined by a second 4096-bin histogram inside its coarse bin (resolution range/16.7 million).</para>
+/// </remarks>
+public sealed class WaveformShape
+{
+    /// <summary>Floor band width as a share of P98 − P2 (engineering choice, see remarks).</summary>
+    public const double FloorBandShare = 0.05;
+
+    /// <summary>Least share of samples in the floor band for a pulsating window (engineering choice, see remarks).</summary>
+    public const double MinDwellShare = 0.20;
+
+    /// <summary>Level above the floor, as a share of the pulse height, where conduction counts as started.</summary>
+    public const double ConductionShare = 0.02;
+
+    /// <summary>Level above the floor, as a share of the pulse height, that a new conduction start must reach after
+    /// falling back to <see cref="ConductionShare"/> (hysteresis against noise; engineering choice).</summary>
+    public const double StartShare = 0.10;
+
+    /// <summary>Largest difference between the measured and the expected conducting share for a delay angle.</summary>
+    public const double ConductionShareTolerance = 0.05;
+
+    private const int Bins = 4096;
+    private readonly int[] _coarse = new int[Bins];
+    private readonly int[] _fine = new int[Bins];
+
+    /// <summary>Measures a window.</summary>
+    /// <param name="samplesA">The window, amperes.</param>
+    /// <param name="cycles">Mains cycles in the window (≥ 1).</param>
+    /// <param name="meanA">The window's mean, amperes.</param>
+    /// <param name="minA">Smallest sample, amperes.</param>
+    /// <param name="maxA">Largest sample, amperes.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public ShapeFigures Measure(ReadOnlySpan<double> samplesA, int cycles, double meanA, double minA, double maxA)
+    {
+        var n = samplesA.Length;
+        var range = maxA - minA;
+        if (n < 4 || !(range > 1e-12 + (1e-9 * Math.Max(Math.Abs(minA), Math.Abs(maxA)))))
+        {
+            return new ShapeFigures(meanA, false, null);
+        }
+
+        var scale = Bins / range;
+        Array.Clear(_coarse);
+        foreach (var x in samplesA)
+        {
+            _coarse[Math.Min((int)((x - minA) * scale), Bins - 1)]++;
+        }
+
+        var width = range / Bins;
+        var p2 = CoarseQuantile(0.02 * (n - 1), minA, width);
+        var p98 = CoarseQuantile(0.98 * (n - 1), minA, width);
+        var spread = p98 - p2;
+        if (!(spread > range * 1e-6))
+        {
+            return new ShapeFigures(meanA, false, null);
+        }
+
+        var lowLimit = p2 + (FloorBandShare * spread);
+        var highLimit = p98 - (FloorBandShare * spread);
+        var dwellLow = CountBelow(lowLimit, minA, scale) / (double)n;
+        var dwellHigh = (n - CountBelow(highLimit, minA, scale)) / (double)n;
+        bool positive;
+        if (dwellLow >= MinDwellShare && dwellHigh < MinDwellShare)
+        {
+            positive = true;
+        }
+        else if (dwellHigh >= MinDwellShare && dwellLow < MinDwellShare)
+        {
+            positive = false;
+        }
+        else
+        {
+            return new ShapeFigures(meanA, false, null);
+        }
+
+        // Exact count of the floor band, and the return to the floor in every cycle.
+        var limit = positive ? lowLimit : highLimit;
+        var inBand = 0;
+        for (var c = 0; c < cycles; c++)
+        {
+            var from = (int)((long)c * n / cycles);
+            var to = (int)((long)(c + 1) * n / cycles);
+            var before = inBand;
+            for (var i = from; i < to; i++)
+            {
+                var x = samplesA[i];
+                if (positive ? x <= limit : x >= limit)
+                {
+                    inBand++;
+                }
+            }
+
+            if (inBand == before)
+            {
+                return new ShapeFigures(meanA, false, null);
+            }
+        }
+
+        // Median of the floor band: rank inBand/2 from the bottom (positive) or from the top (negative).
+        var rank = positive ? (inBand - 1) / 2.0 : n - 1 - ((inBand - 1) / 2.0);
+        var floor = RefinedQuantile(samplesA, rank, minA, scale);
+        var angle = DelayAngle(samplesA, cycles, positive, floor, meanA, positive ? maxA : minA);
+        return new ShapeFigures(floor, true, angle);
+    }
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private double? DelayAngle(ReadOnlySpan<double> samplesA, int cycles, bool positive, double floor, double mean,
+        double extreme)
+    {
+        var sign = positive ? 1.0 : -1.0;
+        var height = sign * (extreme - floor);
+        if (!(height > 0))
+        {
+            return null;
+        }
+
+        var r = sign * (mean - floor) / height;
+        if (r <= 0 || r > 1.02 / Math.PI)
+        {
+            return null;
+        }
+
+        var alpha = r >= 1 / (2 * Math.PI)
+            ? Math.Acos(Math.Clamp((2 * Math.PI * r) - 1, -1, 1))
+            : 2 * Math.Atan(1 / (2 * Math.PI * r));
+
+        // Conduction structure: one start per cycle (counted with hysteresis, so noise on the floor does not flicker)
+        // and the expected conducting share.
+        var threshold = ConductionShare * height;
+        var rise = StartShare * height;
+        var starts = 0;
+        var conducting = 0;
+        var on = sign * (samplesA[^1] - floor) > rise;
+        foreach (var x in samplesA)
+        {
+            var level = sign * (x - floor);
+            if (level > threshold)
+            {
+                conducting++;
+            }
+
+            if (!on && level > rise)
+            {
+                on = true;
+                starts++;
+            }
+            else if (on && level <= threshold)
+            {
+                on = false;
+            }
+        }
+
+        var edge = Math.Asin(ConductionShare);
+        var expected = (Math.PI - alpha - edge - Math.Max(0, edge - alpha)) / (2 * Math.PI);
+        var share = conducting / (double)samplesA.Length;
+        if (Math.Abs(starts - cycles) > Math.Max(1, cycles / 4) || Math.Abs(share - expected) > ConductionShareTolerance)
+        {
+            return null;
+        }
+
+        return alpha * 180 / Math.PI;
+    }
+
+    private double CoarseQuantile(double rank, double min, double width)
+    {
+        var cumulative = 0;
+        for (var b = 0; b < Bins; b++)
+        {
+            var count = _coarse[b];
+            if (cumulative + count > rank)
+            {
+                return min + ((b + ((rank - cumulative + 0.5) / count)) * width);
+            }
+
+            cumulative += count;
+        }
+
+        return min + (Bins * width);
+    }
+
+    private int CountBelow(double limit, double min, double scale)
+    {
+        var last = Math.Min((int)((limit - min) * scale), Bins - 1);
+        var count = 0;
+        for (var b = 0; b <= last; b++)
+        {
+            count += _coarse[b];
+        }
+
+        return count;
+    }
+
+    /// <summary>Sample value at a (fractional) rank: finds its coarse bin, then histograms that bin finely.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private double RefinedQuantile(ReadOnlySpan<double> samplesA, double rank, double min, double scale)
+    {
+        var width = 1 / scale;
+        var cumulative = 0;
+        var bin = 0;
+        for (; bin < Bins - 1; bin++)
+        {
+            if (cumulative + _coarse[bin] > rank)
+            {
+                break;
+            }
+
+            cumulative += _coarse[bin];
+        }
+
+        var low = min + (bin * width);
+        var fineScale = Bins * scale;
+        Array.Clear(_fine);
+        var lowest = double.PositiveInfinity;
+        var highest = double.NegativeInfinity;
+        foreach (var x in samplesA)
+        {
+            if (Math.Min((int)((x - min) * scale), Bins - 1) == bin)
+            {
+                _fine[Math.Clamp((int)((x - low) * fineScale), 0, Bins - 1)]++;
+                lowest = Math.Min(lowest, x);
+                highest = Math.Max(highest, x);
+            }
+        }
+
+        var fineWidth = width / Bins;
+        for (var b = 0; b < Bins; b++)
+        {
+            var count = _fine[b];
+            if (cumulative + count > rank)
+            {
+                var value = low + ((b + 0.5) * fineWidth);
+                return Math.Clamp(value, lowest, highest);
+            }
+
+            cumulative += count;
+        }
+
+        return highest;
+    }
+}

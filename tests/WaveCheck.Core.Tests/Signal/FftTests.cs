@@ -1,0 +1,149 @@
+using System.Numerics;
+using WaveCheck.Core.Signal;
+
+namespace WaveCheck.Core.Tests.Signal;
+
+public class FftTests
+{
+    // Reference: the plain O(n²) DFT X_k = Σ x_j e^{-2πi jk/n}, summed directly.
+    private static Complex[] NaiveDft(double[] x)
+    {
+        var n = x.Length;
+        var result = new Complex[n];
+        for (var k = 0; k < n; k++)
+        {
+            var sum = Complex.Zero;
+            for (var j = 0; j < n; j++)
+            {
+                var angle = -2 * Math.PI * ((long)j * k % n) / n;
+                sum += x[j] * new Complex(Math.Cos(angle), Math.Sin(angle));
+            }
+
+            result[k] = sum;
+        }
+
+        return result;
+    }
+
+    [Theory]
+    [InlineData(2)]
+    [InlineData(3)]
+    [InlineData(16)]
+    [InlineData(17)]
+    [InlineData(100)]
+    [InlineData(999)]
+    [InlineData(1000)]
+    [InlineData(1001)]
+    public void PowerMatchesPlainDft(int length)
+    {
+        var random = new Random(length);
+        var x = new double[length];
+        for (var i = 0; i < length; i++)
+        {
+            x[i] = random.NextDouble() - 0.3;
+        }
+
+        var spectrum = new RealSpectrum(length);
+        var power = new double[spectrum.BinCount];
+        spectrum.Power(x, power);
+        var reference = NaiveDft(x);
+        for (var k = 0; k < spectrum.BinCount; k++)
+        {
+            var weight = k == 0 || (length % 2 == 0 && k == length / 2) ? 1.0 : 2.0;
+            var expected = weight * reference[k].Magnitude * reference[k].Magnitude / ((double)length * length);
+            // 1e-12 of the window's mean square: double rounding of O(n log n) butterflies.
+            Assert.Equal(expected, power[k], 1e-12);
+        }
+    }
+
+    [Theory]
+    [InlineData(10000)]
+    [InlineData(10001)]
+    [InlineData(8192)]
+    public void BinsSumToMeanSquare(int length)
+    {
+        // Parseval: Σ_k C_k² over the one-sided spectrum equals the window's mean square.
+        var random = new Random(7);
+        var x = new double[length];
+        var meanSquare = 0.0;
+        for (var i = 0; i < length; i++)
+        {
+            x[i] = random.NextDouble() * 2 - 0.5;
+            meanSquare += x[i] * x[i] / length;
+        }
+
+        var spectrum = new RealSpectrum(length);
+        var power = new double[spectrum.BinCount];
+        spectrum.Power(x, power);
+        var total = 0.0;
+        foreach (var p in power)
+        {
+            total += p;
+        }
+
+        Assert.Equal(meanSquare, total, 1e-10 * meanSquare);
+    }
+
+    [Fact]
+    public void RadixTwoMatchesMathNet()
+    {
+        // Reference: MathNet.Numerics Fourier.Forward with FourierOptions.Matlab (unscaled, e^{-i} convention).
+        var random = new Random(3);
+        var re = new double[64];
+        var im = new double[64];
+        var data = new Complex[64];
+        for (var i = 0; i < 64; i++)
+        {
+            re[i] = random.NextDouble();
+            im[i] = random.NextDouble();
+            data[i] = new Complex(re[i], im[i]);
+        }
+
+        new ComplexDft(64).Forward(re, im);
+        MathNet.Numerics.IntegralTransforms.Fourier.Forward(data, MathNet.Numerics.IntegralTransforms.FourierOptions.Matlab);
+        for (var i = 0; i < 64; i++)
+        {
+            Assert.Equal(data[i].Real, re[i], 1e-10);
+            Assert.Equal(data[i].Imaginary, im[i], 1e-10);
+        }
+    }
+
+    [Theory]
+    [InlineData(1001)]
+    [InlineData(1000)]
+    public void PairOfWindowsMatchesTwoSingleTransforms(int length)
+    {
+        // Reference: the plain DFT of each window (via PowerMatchesPlainDft's checked single-window path).
+        var random = new Random(11);
+        var a = new double[length];
+        var b = new double[length];
+        for (var i = 0; i < length; i++)
+        {
+            a[i] = random.NextDouble();
+            b[i] = random.NextDouble() - 0.5;
+        }
+
+        var spectrum = new RealSpectrum(length);
+        var pa = new double[spectrum.BinCount];
+        var pb = new double[spectrum.BinCount];
+        var sa = new double[spectrum.BinCount];
+        var sb = new double[spectrum.BinCount];
+        spectrum.PowerPair(a, b, pa, pb);
+        spectrum.Power(a, sa);
+        spectrum.Power(b, sb);
+        for (var k = 0; k < spectrum.BinCount; k++)
+        {
+            Assert.Equal(sa[k], pa[k], 1e-13);
+            Assert.Equal(sb[k], pb[k], 1e-13);
+        }
+    }
+
+    [Fact]
+    public void RejectsWrongLength()
+    {
+        var spectrum = new RealSpectrum(10);
+        var ex = Assert.Throws<ArgumentException>(() => spectrum.Power(new double[9], new double[6]));
+        Assert.Contains("expected 10 samples, got 9", ex.Message);
+        Assert.Throws<ArgumentOutOfRangeException>(() => new RealSpectrum(1));
+    }
+}
