@@ -18,6 +18,14 @@ public static class ToneFinder
     /// <summary>Least tone RMS as a share of the AC RMS (engineering choice: 0.5 %, above spectral leakage of noise).</summary>
     public const double MinShareOfAc = 0.005;
 
+    /// <summary>
+    /// How far a peak on a harmonic bin above order H must stand above the neighbouring harmonics to count as a tone
+    /// of its own (engineering choice: 4, about 12 dB). A pulsating or distorted current continues its harmonic comb
+    /// smoothly past order 50 (a phase-cut edge decays roughly as 1/n), while a drive's switching frequency, often a
+    /// round multiple of 50 Hz, stands tens of dB above the harmonics beside it.
+    /// </summary>
+    public const double CombContrast = 4.0;
+
     /// <summary>Finds up to <paramref name="count"/> tones, strongest first.</summary>
     /// <param name="spectrum">Averaged spectrum (bin 0 at DC).</param>
     /// <param name="cycles">Mains cycles per window (harmonic n on bin cycles·n).</param>
@@ -34,7 +42,8 @@ public static class ToneFinder
         for (var k = 1; k < rms.Count - 1; k++)
         {
             var p = rms[k];
-            if (HarmonicGroups.InHarmonicSubgroup(k, cycles, maxOrder) || !(p >= rms[k - 1]) || !(p > rms[k + 1]))
+            if (HarmonicGroups.InHarmonicSubgroup(k, cycles, maxOrder) || !(p >= rms[k - 1]) || !(p > rms[k + 1]) ||
+                IsPartOfHarmonicComb(rms, k, cycles))
             {
                 continue;
             }
@@ -59,5 +68,30 @@ public static class ToneFinder
 
         found.Sort((a, b) => b.RmsA.CompareTo(a.RmsA));
         return found.Count > count ? found.GetRange(0, count) : found;
+    }
+
+    /// <summary>True when bin <paramref name="k"/> lies on a harmonic (order beyond the grouped ones) whose neighbouring
+    /// harmonics carry comparable energy: part of the comb, not a tone of its own.</summary>
+    private static bool IsPartOfHarmonicComb(IReadOnlyList<double> rms, int k, int cycles)
+    {
+        var order = (int)Math.Round((double)k / cycles);
+        if (order < 2 || Math.Abs(k - (order * cycles)) > 1)
+        {
+            return false;
+        }
+
+        var neighbour = 0.0;
+        foreach (var n in (ReadOnlySpan<int>)[order - 1, order + 1])
+        {
+            for (var b = (n * cycles) - 1; b <= (n * cycles) + 1; b++)
+            {
+                if (b >= 0 && b < rms.Count)
+                {
+                    neighbour = Math.Max(neighbour, rms[b]);
+                }
+            }
+        }
+
+        return rms[k] < CombContrast * neighbour;
     }
 }
