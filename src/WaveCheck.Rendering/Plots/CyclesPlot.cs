@@ -69,26 +69,19 @@ public static class CyclesPlot
         }
 
         var floorA = analysis.Components.SmoothDcMaxA;
-        DeviceLines.Line(model, floorA, $"smooth DC floor {CurrentText.WithUnit(floorA)}", PlotStyle.Black, LineStyle.Dash, mirrored: false);
-
+        model.Series.Add(Level($"smooth DC floor {CurrentText.WithUnit(floorA)}", floorA, PlotStyle.Black, LineStyle.Dash));
         var (positiveA, negativeA, source) = Peaks(analysis);
-        DeviceLines.Line(model, positiveA, $"peak + {CurrentText.WithUnit(positiveA)} ({source})", PlotStyle.BluishGreen, LineStyle.LongDash, mirrored: false);
-        DeviceLines.Line(model, negativeA, $"peak − {CurrentText.WithUnit(negativeA)} ({source})", PlotStyle.BluishGreen, LineStyle.LongDash, mirrored: false);
-        ((LineAnnotation)model.Annotations[^1]).TextVerticalAlignment = VerticalAlignment.Top;
+        model.Series.Add(Level($"peaks: highest {CurrentText.WithUnit(positiveA)}, lowest {CurrentText.WithUnit(negativeA)} ({source})", positiveA, PlotStyle.BluishGreen, LineStyle.LongDash));
+        var negative = Level(null, negativeA, PlotStyle.BluishGreen, LineStyle.LongDash);
+        model.Series.Add(negative);
 
         if (assessment is { RatedResidualCurrentA: > 0 })
         {
             var limitA = 0.5 * assessment.RatedResidualCurrentA;
             DeviceLines.Line(model, limitA, $"{DeviceLines.NonOperatingLabel} = {CurrentText.WithUnit(limitA)}", PlotStyle.Vermillion, LineStyle.Dash, mirrored: false);
-            var line = (LineAnnotation)model.Annotations[^1];
-            line.TextHorizontalAlignment = HorizontalAlignment.Left;
         }
 
-        // Layout only: the y range covers the drawn values with headroom for the labels above the highest line.
-        var (lowMa, highMa) = Range(model);
-        var span = highMa - lowMa > 0 ? highMa - lowMa : Math.Max(1, Math.Abs(highMa));
-        y.Minimum = lowMa - (0.08 * span);
-        y.Maximum = highMa + (0.18 * span);
+        var span = AxisFit.Fit(model, y, 0.2);
 
         var angle = analysis.Components.CurrentDelayAngleDeg;
         if (angle is double alpha)
@@ -96,7 +89,7 @@ public static class CyclesPlot
             model.Annotations.Add(new TextAnnotation
             {
                 Text = string.Create(CultureInfo.InvariantCulture, $"phase-controlled half-wave: current-delay angle α = {alpha:0}°"),
-                TextPosition = new DataPoint(6, y.Maximum - (0.02 * span)),
+                TextPosition = new DataPoint(6, y.Maximum - (0.03 * span)),
                 FontSize = 13,
                 FontWeight = FontWeights.Bold,
                 Background = OxyColor.FromAColor(220, OxyColors.White),
@@ -116,26 +109,12 @@ public static class CyclesPlot
         return model;
     }
 
-    private static (double Low, double High) Range(PlotModel model)
+    private static LineSeries Level(string? title, double valueA, OxyColor colour, LineStyle style)
     {
-        var low = double.PositiveInfinity;
-        var high = double.NegativeInfinity;
-        foreach (var series in model.Series.OfType<LineSeries>())
-        {
-            foreach (var point in series.Points)
-            {
-                low = Math.Min(low, point.Y);
-                high = Math.Max(high, point.Y);
-            }
-        }
-
-        foreach (var line in model.Annotations.OfType<LineAnnotation>())
-        {
-            low = Math.Min(low, line.Y);
-            high = Math.Max(high, line.Y);
-        }
-
-        return double.IsFinite(low) && double.IsFinite(high) ? (Math.Min(low, 0), Math.Max(high, 0)) : (-1, 1);
+        var series = new LineSeries { Title = title, Color = colour, LineStyle = style, StrokeThickness = 1.4 };
+        series.Points.Add(new DataPoint(0, PlotStyle.AxisMilliamps(valueA)));
+        series.Points.Add(new DataPoint(360, PlotStyle.AxisMilliamps(valueA)));
+        return series;
     }
 
     private static (double PositiveA, double NegativeA, string Source) Peaks(AnalysisResult analysis)

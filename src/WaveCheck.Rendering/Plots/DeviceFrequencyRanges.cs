@@ -1,12 +1,13 @@
 namespace WaveCheck.Rendering.Plots;
 
-/// <summary>A frequency range over which device types are specified, for shading behind the spectrum.</summary>
-/// <param name="Label">Which types, e.g. <c>AC, A: mains</c>.</param>
+/// <summary>A stretch of the frequency axis and the device types specified over it, for shading behind the spectrum.</summary>
+/// <param name="Label">Which types, e.g. <c>F, B, B+: to 1 kHz</c>.</param>
 /// <param name="LowHz">Lower edge, hertz (0: from DC).</param>
-/// <param name="HighHz">Upper edge, hertz.</param>
-public sealed record DeviceFrequencyRange(string Label, double LowHz, double HighHz);
+/// <param name="HighHz">Upper edge, hertz (infinity: to the end of the axis).</param>
+/// <param name="Covered">False for the stretch no type is specified for.</param>
+public sealed record DeviceFrequencyRange(string Label, double LowHz, double HighHz, bool Covered);
 
-/// <summary>The frequency ranges each device type is specified for, as drawn on the spectrum.</summary>
+/// <summary>The frequency ranges the device types are specified for, cut into adjacent stretches for drawing.</summary>
 /// <remarks>
 /// AC and A: rated (mains) frequency, IEC 61008-1 / IEC 61009-1 (A adds pulsating DC, which is not a frequency range);
 /// F: composite current with components up to 1 kHz, IEC 62423; B: smooth DC and AC up to 1 kHz, IEC 62423 §5.3;
@@ -24,12 +25,13 @@ public static class DeviceFrequencyRanges
     /// <summary>Upper edge of type B+, hertz (DIN VDE 0664-400).</summary>
     public const double TypeBPlusUpperHz = 20_000;
 
-    /// <summary>The nested ranges, widest last.</summary>
+    /// <summary>The stretches in ascending frequency; the mains band lies on top of the first.</summary>
     /// <param name="mainsHz">Mains frequency, hertz.</param>
     public static IReadOnlyList<DeviceFrequencyRange> For(double mainsHz) =>
     [
-        new("AC, A: mains", mainsHz * (1 - MainsBandShare), mainsHz * (1 + MainsBandShare)),
-        new("F, B: to 1 kHz", 0, TypeFbUpperHz),
-        new("B+: to 20 kHz", 0, TypeBPlusUpperHz),
+        new("F, B, B+: to 1 kHz", 0, TypeFbUpperHz, true),
+        new("B+ only: 1–20 kHz", TypeFbUpperHz, TypeBPlusUpperHz, true),
+        new("no type: above 20 kHz", TypeBPlusUpperHz, double.PositiveInfinity, false),
+        new("AC, A: mains only", mainsHz * (1 - MainsBandShare), mainsHz * (1 + MainsBandShare), true),
     ];
 }

@@ -30,7 +30,8 @@ public static class OverviewPlot
         model.Axes.Add(new LinearAxis { Position = AxisPosition.Bottom, Title = "time", Unit = "s", Minimum = 0, Maximum = xMax });
         model.Axes[0].MajorGridlineStyle = LineStyle.Solid;
         model.Axes[0].MajorGridlineColor = OxyColor.FromRgb(0xDD, 0xDD, 0xDD);
-        model.Axes.Add(PlotStyle.Linear(AxisPosition.Left, "residual current", "mA"));
+        var y = PlotStyle.Linear(AxisPosition.Left, "residual current", "mA");
+        model.Axes.Add(y);
 
         var band = new AreaSeries
         {
@@ -70,6 +71,7 @@ public static class OverviewPlot
 
         DeviceLines.Add(model, assessment, mirrored: true);
         AddEvents(model, events);
+        AxisFit.Fit(model, y, 0.08);
         return model;
     }
 

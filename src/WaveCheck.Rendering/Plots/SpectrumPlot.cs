@@ -66,7 +66,7 @@ public static class SpectrumPlot
         y.StringFormat = "0.#####";
         model.Axes.Add(y);
 
-        AddTypeRanges(model, mainsHz, xMin, floorMa, yMax);
+        AddTypeRanges(model, mainsHz, xMin, xMax, yMax);
         AddHarmonicMarkers(model, analysis, mainsHz, xMax, floorMa, yMax);
 
         var line = new LineSeries
@@ -85,40 +85,54 @@ public static class SpectrumPlot
         return model;
     }
 
-    private static void AddTypeRanges(PlotModel model, double mainsHz, double xMin, double floorMa, double yMax)
+    private static void AddTypeRanges(PlotModel model, double mainsHz, double xMin, double xMax, double yMax)
     {
+        // Fills differ in hue and in lightness so they stay apart in greyscale; the uncovered stretch is hatched-free white.
+        var fills = new[]
+        {
+            OxyColor.FromAColor(55, PlotStyle.SkyBlue),
+            OxyColor.FromAColor(40, PlotStyle.BluishGreen),
+            OxyColors.Transparent,
+            OxyColor.FromAColor(90, PlotStyle.Orange),
+        };
         var ranges = DeviceFrequencyRanges.For(mainsHz);
-        var fills = new[] { OxyColor.FromAColor(70, PlotStyle.Orange), OxyColor.FromAColor(45, PlotStyle.SkyBlue), OxyColor.FromAColor(45, PlotStyle.BluishGreen) };
-        var decades = Math.Log10(yMax / floorMa);
         for (var i = 0; i < ranges.Count; i++)
         {
             var range = ranges[i];
             var low = Math.Max(range.LowHz, xMin);
+            var high = Math.Min(range.HighHz, xMax);
+            if (low >= high)
+            {
+                continue;
+            }
+
             model.Annotations.Add(new RectangleAnnotation
             {
                 MinimumX = low,
-                MaximumX = range.HighHz,
+                MaximumX = high,
                 Fill = fills[i],
                 Layer = AnnotationLayer.BelowSeries,
             });
 
-            // Labels stacked near the top so they clear each other and the data's usual peak at mains.
+            var isMains = i == ranges.Count - 1;
             model.Annotations.Add(new TextAnnotation
             {
                 Text = range.Label,
-                TextPosition = new DataPoint(range.HighHz, yMax / Math.Pow(10, decades * (0.03 + (0.06 * i)))),
-                TextHorizontalAlignment = i == 0 ? HorizontalAlignment.Left : HorizontalAlignment.Right,
+                TextPosition = new DataPoint(isMains ? high : low, yMax),
+                TextHorizontalAlignment = HorizontalAlignment.Left,
                 TextVerticalAlignment = VerticalAlignment.Top,
+                Offset = new ScreenVector(3, isMains ? 20 : 3),
                 FontSize = 11,
+                Padding = new OxyThickness(2, 1, 2, 1),
                 Stroke = OxyColors.Transparent,
-                Background = OxyColor.FromAColor(200, OxyColors.White),
+                Background = OxyColor.FromAColor(215, OxyColors.White),
                 TextColor = PlotStyle.Black,
-                Layer = AnnotationLayer.BelowSeries,
+                Layer = AnnotationLayer.AboveSeries,
             });
         }
 
         // A legend entry that says what the shading means.
-        model.Series.Add(new AreaSeries { Title = "shaded: frequency range a device type is specified for", Fill = fills[1], Color = OxyColors.Transparent });
+        model.Series.Add(new AreaSeries { Title = "shading: range a device type is specified for", Fill = fills[0], Color = OxyColors.Transparent });
     }
 
     private static void AddHarmonicMarkers(PlotModel model, AnalysisResult analysis, double mainsHz, double xMax, double floorMa, double yMax)
@@ -137,7 +151,7 @@ public static class SpectrumPlot
                 Type = LineAnnotationType.Vertical,
                 X = order * mainsHz,
                 Color = label ? OxyColor.FromRgb(0x70, 0x70, 0x70) : OxyColor.FromRgb(0xC8, 0xC8, 0xC8),
-                LineStyle = LineStyle.Dot,
+                LineStyle = label ? LineStyle.Dash : LineStyle.Solid,
                 StrokeThickness = label ? 1 : 0.6,
                 MinimumY = floorMa,
                 MaximumY = yMax,
@@ -153,7 +167,7 @@ public static class SpectrumPlot
             });
         }
 
-        model.Series.Add(new LineSeries { Title = "harmonic orders (Hn labelled where strongest)", Color = OxyColor.FromRgb(0x70, 0x70, 0x70), LineStyle = LineStyle.Dot });
+        model.Series.Add(new LineSeries { Title = "harmonic orders (Hn labelled where strongest)", Color = OxyColor.FromRgb(0x70, 0x70, 0x70), LineStyle = LineStyle.Dash });
     }
 
     private static void AddTones(PlotModel model, IReadOnlyList<ToneValue> tones, double floorMa, double xMin, double xMax)

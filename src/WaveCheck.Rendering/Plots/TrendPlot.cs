@@ -30,7 +30,8 @@ public static class TrendPlot
         x.Minimum = 0;
         x.Maximum = Math.Max(analysis.Capture.DurationS, 1e-3);
         model.Axes.Add(x);
-        model.Axes.Add(PlotStyle.Linear(AxisPosition.Left, "residual current", "mA"));
+        var y = PlotStyle.Linear(AxisPosition.Left, "residual current", "mA");
+        model.Axes.Add(y);
 
         var rms = Series("residual RMS", PlotStyle.Blue, LineStyle.Solid, MarkerType.None);
         var dc = Series("smooth DC", PlotStyle.Black, LineStyle.Dash, MarkerType.None);
@@ -54,6 +55,7 @@ public static class TrendPlot
                 PlotStyle.BluishGreen, LineStyle.LongDash, mirrored: false);
         }
 
+        AxisFit.Fit(model, y, 0.08);
         return model;
     }
 

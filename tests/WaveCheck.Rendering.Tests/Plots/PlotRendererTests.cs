@@ -6,20 +6,14 @@ namespace WaveCheck.Rendering.Tests.Plots;
 
 public sealed class PlotRendererTests : IDisposable
 {
-    private readonly string folder = Path.Combine(Path.GetTempPath(), "wavecheck-plots-" + Guid.NewGuid().ToString("N"));
+    private readonly OutputFolder output = new("plots");
 
-    public void Dispose()
-    {
-        if (Directory.Exists(folder))
-        {
-            Directory.Delete(folder, recursive: true);
-        }
-    }
+    public void Dispose() => output.Dispose();
 
     [Fact]
     public void Png_files_have_the_png_signature_and_the_stated_size()
     {
-        var written = PlotRenderer.WriteAll(ResultBuilder.Typical(), ResultBuilder.Assessment(), folder, PlotFormat.Png);
+        var written = PlotRenderer.WriteAll(ResultBuilder.Typical(), ResultBuilder.Assessment(), output.Path, PlotFormat.Png);
 
         // A minute-long capture gets all four plots.
         Assert.Equal(["overview.png", "cycles.png", "spectrum.png", "trend.png"], written.Select(Path.GetFileName));
@@ -33,5 +27,14 @@ public sealed class PlotRendererTests : IDisposable
             Assert.Equal(PlotStyle.WidthPx, BinaryPrimitives.ReadInt32BigEndian(bytes.AsSpan(16, 4)));
             Assert.Equal(PlotStyle.HeightPx, BinaryPrimitives.ReadInt32BigEndian(bytes.AsSpan(20, 4)));
         }
+    }
+
+    [Fact]
+    public void Probe_svg()
+    {
+        var a = ResultBuilder.Typical();
+        a = a with { WorstWindow = a.WorstWindow with { Reason = "<script>alert(1)</script> & \"q\" 'a'" } };
+        var svg = PlotRenderer.RenderSvg(PlotKind.Cycles, a, ResultBuilder.Assessment());
+        File.WriteAllText(System.IO.Path.Combine(output.Path, "probe.svg"), svg);
     }
 }
