@@ -172,7 +172,7 @@ internal static class ResultBuilder
         NuisanceTrip = new NuisanceTripResult("low", "A", 0.0068, 0.015, 0.0082, 54.7, 0.009, true,
             [new FrequencyContribution("mains", 45, 55, 0.005, 1, 0.005), new FrequencyContribution("1-20 kHz", 1000, 20000, 0.0006, double.PositiveInfinity, 0)],
             "standing current 6.80 mA is 45 % of the 15.0 mA non-operating limit"),
-        Blinding = new BlindingResult("A", 0.0023, 0.006, blinded, blinded ? "smooth DC above the 6 mA tolerance of type A" : "smooth DC 2.30 mA within 6 mA"),
+        Blinding = new BlindingResult("A", blinded ? 0.0084 : 0.0023, 0.006, blinded, blinded ? "smooth DC above the 6 mA tolerance of type A" : "smooth DC 2.30 mA within 6 mA"),
         EvCharging = new EvChargingResult(0.006, 0.0023, false, "type A with an RDC-DD (IEC 62955) suffices while DC stays below 6 mA"),
         Gfci = new GfciResult(0.0073, true, 3.1, false, null, ["UL 943 states no DC sensitivity requirement"]),
         TouchCurrent = new TouchCurrentAssessment(

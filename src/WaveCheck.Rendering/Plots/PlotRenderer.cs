@@ -82,7 +82,7 @@ public static class PlotRenderer
                 new OxyPlot.SkiaSharp.PngExporter { Width = PlotStyle.WidthPx, Height = PlotStyle.HeightPx, Dpi = Dpi }.Export(model, stream);
                 break;
             case PlotFormat.Svg:
-                new OxyPlot.SkiaSharp.SvgExporter { Width = PlotStyle.WidthPx, Height = PlotStyle.HeightPx }.Export(model, stream);
+                SvgPlotExporter.Export(model, stream, PlotStyle.WidthPx, PlotStyle.HeightPx);
                 break;
             default:
                 throw new ArgumentOutOfRangeException(nameof(format), format, "unknown plot format");

@@ -21,7 +21,9 @@ internal static class ReportStyle
         .verdict .headline { font-size: 16px; margin: 0; }
         .alert { border: 3px double var(--warn); padding: 10px 14px; margin: 12px 0; font-weight: bold; }
         .alert::before { content: "⚠ "; }
-        table { border-collapse: collapse; width: 100%; margin: 8px 0 12px; font-size: 13px; }
+        table { border-collapse: collapse; width: auto; min-width: 55%; margin: 8px 0 12px; font-size: 13px; }
+        table.wide { width: 100%; }
+        tbody th { font-weight: normal; background: var(--panel); min-width: 22em; }
         th, td { border: 1px solid var(--rule); padding: 3px 6px; text-align: left; vertical-align: top; }
         th { background: var(--panel); }
         td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }

@@ -163,7 +163,7 @@ public static class ReportWriter
         html.Raw("</div>\n");
         if (a.Blinding.Blinded == true)
         {
-            html.Raw("<div class=\"alert\">").Text($"Blinding: the smooth DC of {CurrentText.WithUnit(a.Blinding.SmoothDcA)} exceeds what a type {a.Blinding.DeviceType} device is specified to work with ({Current(a.Blinding.ToleranceA)}). It may fail to trip on a real earth fault. {a.Blinding.Explanation}").Raw("</div>\n");
+            html.Raw("<div class=\"alert\">").Text($"Blinding: the smooth DC of {CurrentText.WithUnit(a.Blinding.SmoothDcA)} exceeds what a type {a.Blinding.DeviceType} device is specified to work with ({Current(a.Blinding.ToleranceA)}). It may fail to trip on a real earth fault.").Raw("</div>\n");
         }
 
         html.Raw("</section>\n");
@@ -171,7 +171,7 @@ public static class ReportWriter
 
     private static void TypeTable(HtmlWriter html, AssessmentResult a)
     {
-        html.Raw("<section id=\"types\">\n<h2>Each device type</h2>\n<table>\n<thead><tr><th>Type</th><th>Verdict</th><th>Evidence</th></tr></thead>\n<tbody>\n");
+        html.Raw("<section id=\"types\">\n<h2>Each device type</h2>\n<table class=\"wide\">\n<thead><tr><th>Type</th><th>Verdict</th><th>Evidence</th></tr></thead>\n<tbody>\n");
         foreach (var type in a.Types)
         {
             html.Raw("<tr><td><strong>").Text(type.Type).Raw("</strong></td><td class=\"verdict-cell\">").Text(SuitabilityText(type.Suitable)).Raw("</td><td>");
@@ -186,11 +186,6 @@ public static class ReportWriter
     {
         var trip = a.NuisanceTrip;
         html.Raw("<section id=\"device\">\n<h2>").Text($"Margins for a type {trip.DeviceType} device, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}").Raw("</h2>\n");
-        if (a.Blinding.Blinded == true)
-        {
-            html.Raw("<div class=\"alert\">").Text($"Blinded: smooth DC {CurrentText.WithUnit(a.Blinding.SmoothDcA)} is above the type {a.Blinding.DeviceType} tolerance of {Current(a.Blinding.ToleranceA)}.").Raw("</div>\n");
-        }
-
         html.Raw("<h3>Nuisance tripping</h3>\n<table><tbody>\n");
         Row(html, "Risk", RiskText(trip.Risk));
         Row(html, "Standing residual current (frequency-weighted, worst window)", CurrentText.WithUnit(trip.StandingA));
@@ -426,7 +421,7 @@ public static class ReportWriter
             return;
         }
 
-        html.Raw("<table>\n<thead><tr><th>Kind</th><th class=\"num\">Start</th><th class=\"num\">Duration</th><th class=\"num\">Value</th><th>Description</th></tr></thead>\n<tbody>\n");
+        html.Raw("<table class=\"wide\">\n<thead><tr><th>Kind</th><th class=\"num\">Start</th><th class=\"num\">Duration</th><th class=\"num\">Value</th><th>Description</th></tr></thead>\n<tbody>\n");
         foreach (var e in events.Take(MaxEventRows))
         {
             html.Raw("<tr><td>").Text(e.Kind).Raw("</td>");

@@ -29,12 +29,93 @@ public sealed class PlotRendererTests : IDisposable
         }
     }
 
-    [Fact]
-    public void Probe_svg()
+    [Theory]
+    [InlineData(PlotKind.Overview, new[] { "residual current [mA]", "time [s]", "0.5 IΔn = 15.0 mA", "0.3 IΔn = 9.00 mA", "DC level 5.10 mA", "alarm", "transient" })]
+    [InlineData(PlotKind.Cycles, new[] { "phase within the mains period [°]", "residual current [mA]", "0.5 IΔn = 15.0 mA", "smooth DC floor 2.30 mA", "phase-controlled half-wave: current-delay angle α = 90°", "cycle 4" })]
+    [InlineData(PlotKind.Spectrum, new[] { "frequency [Hz]", "RMS [mA]", "H1", "H2", "4.2 kHz: 0.560 mA", "8.4 kHz: 0.090 mA", "AC, A: mains only", "B+ only: 1–20 kHz" })]
+    [InlineData(PlotKind.Trend, new[] { "time [s]", "residual current [mA]", "0.5 IΔn = 15.0 mA", "residual RMS", "smooth DC", "above 1 kHz (RMS)" })]
+    public void Svg_is_xml_of_the_stated_size_with_the_annotation_texts(PlotKind kind, string[] texts)
     {
-        var a = ResultBuilder.Typical();
-        a = a with { WorstWindow = a.WorstWindow with { Reason = "<script>alert(1)</script> & \"q\" 'a'" } };
-        var svg = PlotRenderer.RenderSvg(PlotKind.Cycles, a, ResultBuilder.Assessment());
-        File.WriteAllText(System.IO.Path.Combine(output.Path, "probe.svg"), svg);
+        var svg = PlotRenderer.RenderSvg(kind, ResultBuilder.Typical(), ResultBuilder.Assessment());
+
+        var root = XDocument.Parse(svg).Root!;
+        Assert.Equal("svg", root.Name.LocalName);
+        Assert.Equal(PlotStyle.WidthPx.ToString(System.Globalization.CultureInfo.InvariantCulture), root.Attribute("width")?.Value);
+        Assert.Equal(PlotStyle.HeightPx.ToString(System.Globalization.CultureInfo.InvariantCulture), root.Attribute("height")?.Value);
+        var drawn = SvgTexts(root);
+        Assert.All(texts, t => Assert.Contains(t, drawn));
     }
+
+    [Fact]
+    public void Without_an_assessment_no_device_lines_are_drawn()
+    {
+        var drawn = SvgTexts(XDocument.Parse(PlotRenderer.RenderSvg(PlotKind.Overview, ResultBuilder.Typical(), null)).Root!);
+
+        Assert.DoesNotContain(drawn, t => t.Contains("IΔn", StringComparison.Ordinal));
+        Assert.Contains("time [s]", drawn);
+    }
+
+    [Fact]
+    public void File_derived_text_is_escaped_inside_svg()
+    {
+        var analysis = ResultBuilder.Typical();
+        const string hostile = "<script>alert(1)</script> & \"q\"";
+        analysis = analysis with { WorstWindow = analysis.WorstWindow with { Reason = hostile } };
+
+        var svg = PlotRenderer.RenderSvg(PlotKind.Cycles, analysis, null);
+
+        // Parsing succeeds only if the markup characters were escaped; the text reads back as written.
+        var root = XDocument.Parse(svg).Root!;
+        Assert.Contains(SvgTexts(root), t => t.StartsWith(hostile, StringComparison.Ordinal));
+        Assert.DoesNotContain(root.Descendants(), e => e.Name.LocalName == "script");
+    }
+
+    [Theory]
+    [InlineData(PlotFormat.Png)]
+    [InlineData(PlotFormat.Svg)]
+    public void Flat_zero_capture_renders_every_plot(PlotFormat format)
+    {
+        var analysis = ResultBuilder.FlatZero();
+
+        // One second of zeros: no trend; the other plots must still draw. Trend is drawn directly to cover it too.
+        var written = PlotRenderer.WriteAll(analysis, ResultBuilder.Assessment(), output.Path, format);
+        PlotRenderer.Write(PlotKind.Trend, analysis, null, System.IO.Path.Combine(output.Path, "trend-flat" + format.Extension()));
+
+        Assert.Equal(3, written.Count);
+        Assert.All(written, p => Assert.True(new FileInfo(p).Length > 1000, p));
+    }
+
+    [Fact]
+    public void Format_follows_the_file_extension()
+    {
+        var path = System.IO.Path.Combine(output.Path, "Spectrum.SVG");
+
+        PlotRenderer.Write(PlotKind.Spectrum, ResultBuilder.Typical(), null, path);
+
+        Assert.Equal("svg", XDocument.Load(path).Root!.Name.LocalName);
+        var error = Assert.Throws<ArgumentException>(() => PlotFormats.FromPath("plot.jpg"));
+        Assert.Contains("must end in .png or .svg (got 'plot.jpg')", error.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Trend_only_for_captures_longer_than_a_few_seconds()
+    {
+        Assert.Contains(PlotKind.Trend, PlotRenderer.Applicable(ResultBuilder.Typical()));
+        Assert.DoesNotContain(PlotKind.Trend, PlotRenderer.Applicable(ResultBuilder.FlatZero()));
+    }
+
+    [Fact]
+    public void Overview_band_keeps_every_bucket_extreme()
+    {
+        // No decimation: each bucket's min and max appear as the band's edges (two points per bucket).
+        var analysis = ResultBuilder.Typical();
+        var band = PlotRenderer.Build(PlotKind.Overview, analysis, null).Series.OfType<OxyPlot.Series.AreaSeries>().Single();
+
+        Assert.Equal(2 * analysis.Envelope.MaxA.Count, band.Points.Count);
+        Assert.Equal(analysis.Envelope.MaxA.Max() * 1000, band.Points.Max(p => p.Y), 9);
+        Assert.Equal(analysis.Envelope.MinA.Min() * 1000, band.Points2.Min(p => p.Y), 9);
+    }
+
+    private static List<string> SvgTexts(XElement root) =>
+        root.Descendants().Where(e => e.Name.LocalName == "text").Select(e => e.Value.Trim()).ToList();
 }
