@@ -132,7 +132,7 @@ public static class SpectrumPlot
         }
 
         // A legend entry that says what the shading means.
-        model.Series.Add(new AreaSeries { Title = "shading: range a device type is specified for", Fill = fills[0], Color = OxyColors.Transparent });
+        model.Series.Add(new AreaSeries { Title = "shading: range a device type is specified for", Fill = OxyColor.FromAColor(140, PlotStyle.SkyBlue), Color = OxyColors.Transparent });
     }
 
     private static void AddHarmonicMarkers(PlotModel model, AnalysisResult analysis, double mainsHz, double xMax, double floorMa, double yMax)
@@ -212,7 +212,10 @@ public static class SpectrumPlot
             shown++;
         }
 
-        model.Series.Add(marks);
+        if (marks.Points.Count > 0)
+        {
+            model.Series.Add(marks);
+        }
     }
 
     /// <summary>A tone's frequency for a label: <c>4.2 kHz</c>, <c>160 Hz</c>.</summary>

@@ -481,6 +481,12 @@ public static class ReportWriter
             html.Raw("<li>").Text($"The recorder clips at {CurrentText.WithUnit(fullScale)}.").Raw("</li>\n");
         }
 
+        var clipped = analysis.Trend.Count(w => w.Clipped);
+        if (clipped > 0)
+        {
+            html.Raw("<li><strong>").Text($"{clipped} of the {analysis.Trend.Count} windows in the trend contain clipped samples: peaks and RMS there are too low, and the spectrum holds products of the clipping.").Raw("</strong></li>\n");
+        }
+
         foreach (var warning in analysis.Warnings)
         {
             html.Raw("<li><code>").Text(warning.Code).Raw("</code> ").Text(warning.Message);

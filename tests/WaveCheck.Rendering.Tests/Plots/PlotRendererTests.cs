@@ -78,8 +78,9 @@ public sealed class PlotRendererTests : IDisposable
         var analysis = ResultBuilder.FlatZero();
 
         // One second of zeros: no trend; the other plots must still draw. Trend is drawn directly to cover it too.
-        var written = PlotRenderer.WriteAll(analysis, ResultBuilder.Assessment(), output.Path, format);
-        PlotRenderer.Write(PlotKind.Trend, analysis, null, System.IO.Path.Combine(output.Path, "trend-flat" + format.Extension()));
+        var folder = System.IO.Path.Combine(output.Path, "flat");
+        var written = PlotRenderer.WriteAll(analysis, ResultBuilder.Assessment(), folder, format);
+        PlotRenderer.Write(PlotKind.Trend, analysis, null, System.IO.Path.Combine(folder, "trend" + format.Extension()));
 
         Assert.Equal(3, written.Count);
         Assert.All(written, p => Assert.True(new FileInfo(p).Length > 1000, p));

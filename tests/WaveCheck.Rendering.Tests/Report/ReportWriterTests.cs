@@ -134,6 +134,27 @@ public sealed partial class ReportWriterTests : IDisposable
     }
 
     [Fact]
+    public void Limits_name_the_nyquist_frequency_an_ac_coupled_sensor_and_clipped_windows()
+    {
+        var analysis = ResultBuilder.Typical();
+        analysis = analysis with
+        {
+            Capture = analysis.Capture with { SensorCoupling = WaveCheck.Core.Capture.SensorCoupling.Ac, FullScaleA = 0.1 },
+            Trend = analysis.Trend.Select((w, i) => i < 3 ? w with { Clipped = true } : w).ToList(),
+        };
+
+        var html = ReportWriter.Render(analysis, null, Context);
+        var limits = html[html.IndexOf("<section id=\"limits\">", StringComparison.Ordinal)..];
+
+        // 25 kHz sampling: Nyquist 12.5 kHz (closed form fs/2).
+        Assert.Contains("Nothing above 12.5 kHz", limits, StringComparison.Ordinal);
+        Assert.Contains("The sensor is AC-coupled", limits, StringComparison.Ordinal);
+        Assert.Contains("The recorder clips at 100 mA.", limits, StringComparison.Ordinal);
+        Assert.Contains("3 of the 300 windows in the trend contain clipped samples", limits, StringComparison.Ordinal);
+        Assert.Contains("<code>nyquist</code>", limits, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Inline_svg_ids_are_unique_and_every_reference_resolves()
     {
         var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment(), Context);
