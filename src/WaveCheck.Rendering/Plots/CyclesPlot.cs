@@ -59,11 +59,15 @@ public static class CyclesPlot
             };
             var first = (int)Math.Floor(c * samplesPerCycle);
             var last = Math.Min(samples.Count - 1, (int)Math.Ceiling((c + 1) * samplesPerCycle));
+            var points = new List<DataPoint>(last - first + 1);
             for (var i = first; i <= last; i++)
             {
                 var degrees = ((i / samplesPerCycle) - c) * 360.0;
-                series.Points.Add(new DataPoint(degrees, PlotStyle.AxisMilliamps(samples[i])));
+                points.Add(new DataPoint(degrees, PlotStyle.AxisMilliamps(samples[i])));
             }
+
+            // A fast recorder gives tens of thousands of samples per cycle: keep each pixel column's extremes.
+            MinMaxThinning.Add(points, series.Points, PlotStyle.WidthPx, logX: false);
 
             model.Series.Add(series);
         }

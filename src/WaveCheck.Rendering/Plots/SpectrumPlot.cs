@@ -75,10 +75,14 @@ public static class SpectrumPlot
             Color = PlotStyle.Blue,
             StrokeThickness = 1.2,
         };
+        var bins = new List<DataPoint>(Math.Max(count - 1, 0));
         for (var i = 1; i < count; i++)
         {
-            line.Points.Add(new DataPoint(spectrum.FrequenciesHz[i], Math.Max(PlotStyle.AxisMilliamps(spectrum.RmsA[i]), floorMa)));
+            bins.Add(new DataPoint(spectrum.FrequenciesHz[i], Math.Max(PlotStyle.AxisMilliamps(spectrum.RmsA[i]), floorMa)));
         }
+
+        // Tens of thousands of bins at high sample rates: keep each pixel column's extremes, not every bin.
+        MinMaxThinning.Add(bins, line.Points, PlotStyle.WidthPx, logX: true);
 
         model.Series.Add(line);
         AddTones(model, analysis.Components.Tones, floorMa, xMin, xMax);

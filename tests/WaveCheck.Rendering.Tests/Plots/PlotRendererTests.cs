@@ -117,6 +117,30 @@ public sealed class PlotRendererTests : IDisposable
         Assert.Equal(analysis.Envelope.MinA.Min() * 1000, band.Points2.Min(p => p.Y), 9);
     }
 
+    [Fact]
+    public void High_rate_capture_keeps_the_svg_small()
+    {
+        // 1 MHz sampling: 200 000 samples in the worst window, 100 001 spectrum bins. Thinning keeps the drawn points near
+        // two per pixel column, so each plot stays a size a report can embed (limit: engineering choice, 400 kB).
+        var analysis = ResultBuilder.Typical();
+        const double rateHz = 1_000_000;
+        var samples = Enumerable.Range(0, 200_000).Select(i => 0.01 * Math.Sin(2 * Math.PI * 50 * i / rateHz)).ToArray();
+        var freqs = Enumerable.Range(0, 100_001).Select(b => b * 5.0).ToArray();
+        var rms = freqs.Select(f => f % 50 == 0 ? 1e-3 : 1e-6).ToArray();
+        analysis = analysis with
+        {
+            Capture = analysis.Capture with { SampleRateHz = rateHz, SampleCount = 60_000_000 },
+            WorstWindow = analysis.WorstWindow with { SampleRateHz = rateHz, SamplesA = samples },
+            Spectrum = new WaveCheck.Core.Results.SpectrumResult(5, freqs, rms),
+        };
+
+        foreach (var kind in new[] { PlotKind.Cycles, PlotKind.Spectrum })
+        {
+            var svg = PlotRenderer.RenderSvg(kind, analysis, ResultBuilder.Assessment());
+            Assert.True(svg.Length < 400_000, $"{kind}: {svg.Length} characters");
+        }
+    }
+
     private static List<string> SvgTexts(XElement root) =>
         root.Descendants().Where(e => e.Name.LocalName == "text").Select(e => e.Value.Trim()).ToList();
 }
