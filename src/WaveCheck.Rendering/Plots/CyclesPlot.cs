@@ -17,6 +17,9 @@ public static class CyclesPlot
     /// <summary>Most cycles overlaid.</summary>
     public const int MaxCycles = 4;
 
+    // Bluish green is kept for the peak lines, black for the DC floor.
+    private static readonly OxyColor[] CycleColours = [PlotStyle.Blue, PlotStyle.Vermillion, PlotStyle.SkyBlue, PlotStyle.ReddishPurple];
+
     /// <summary>Builds the cycles plot.</summary>
     /// <param name="analysis">Reads <see cref="AnalysisResult.WorstWindow"/>, <see cref="AnalysisResult.Mains"/>, <see cref="AnalysisResult.Components"/>, the matching <see cref="AnalysisResult.Trend"/> row.</param>
     /// <param name="assessment">Adds the 0.5 IΔn line; null omits it.</param>
@@ -53,9 +56,11 @@ public static class CyclesPlot
             var series = new LineSeries
             {
                 Title = $"cycle {c + 1}",
-                Color = PlotStyle.SeriesColours[c % PlotStyle.SeriesColours.Count],
-                LineStyle = PlotStyle.SeriesLineStyles[c % PlotStyle.SeriesLineStyles.Count],
-                StrokeThickness = 1.6,
+                Color = CycleColours[c % CycleColours.Length],
+                // Solid, told apart by colour and width: dashes on a wiggly line become thousands of SVG shapes, and
+                // overlaid cycles that differ are what the eye should catch anyway.
+                LineStyle = LineStyle.Solid,
+                StrokeThickness = 2.2 - (0.45 * c),
             };
             var first = (int)Math.Floor(c * samplesPerCycle);
             var last = Math.Min(samples.Count - 1, (int)Math.Ceiling((c + 1) * samplesPerCycle));

@@ -33,13 +33,6 @@ public static class PlotStyle
     /// <summary>Okabe-Ito reddish purple.</summary>
     public static readonly OxyColor ReddishPurple = OxyColor.FromRgb(0xCC, 0x79, 0xA7);
 
-    /// <summary>Colours for overlaid series of equal rank, in order.</summary>
-    public static readonly IReadOnlyList<OxyColor> SeriesColours = [Blue, Vermillion, BluishGreen, ReddishPurple, Orange, SkyBlue, Black];
-
-    /// <summary>Line styles for overlaid series, paired with <see cref="SeriesColours"/>.</summary>
-    public static readonly IReadOnlyList<LineStyle> SeriesLineStyles =
-        [LineStyle.Solid, LineStyle.Dash, LineStyle.Dot, LineStyle.DashDot, LineStyle.LongDash, LineStyle.DashDashDot, LineStyle.Solid];
-
     /// <summary>Font family used in every plot (installed with the DejaVu fonts; Skia falls back to its default otherwise).</summary>
     public const string FontFamily = "DejaVu Sans";
 
