@@ -67,7 +67,7 @@ public static class SpectrumPlot
         model.Axes.Add(y);
 
         AddTypeRanges(model, mainsHz, xMin, xMax, yMax);
-        AddHarmonicMarkers(model, analysis, mainsHz, xMax, floorMa, yMax);
+        AddHarmonicMarkers(model, analysis, mainsHz, xMin, xMax, floorMa, yMax);
 
         var line = new LineSeries
         {
@@ -139,12 +139,22 @@ public static class SpectrumPlot
         model.Series.Add(new AreaSeries { Title = "shading: range a device type is specified for", Fill = OxyColor.FromAColor(140, PlotStyle.SkyBlue), Color = OxyColors.Transparent });
     }
 
-    private static void AddHarmonicMarkers(PlotModel model, AnalysisResult analysis, double mainsHz, double xMax, double floorMa, double yMax)
+    private static void AddHarmonicMarkers(PlotModel model, AnalysisResult analysis, double mainsHz, double xMin, double xMax, double floorMa, double yMax)
     {
+        // Strongest orders first; a label closer than about 30 px (plot area ~90 % of the width) to one already placed is dropped so none overlap.
+        var minimumRatio = Math.Pow(xMax / xMin, 30.0 / (0.9 * PlotStyle.WidthPx));
         var labelled = new HashSet<int> { 1 };
-        foreach (var harmonic in analysis.Harmonics.Where(h => h.Order > 1 && h.RmsA > 0).OrderByDescending(h => h.RmsA).Take(MaxHarmonicLabels - 1))
+        foreach (var harmonic in analysis.Harmonics.Where(h => h.Order > 1 && h.RmsA > 0).OrderByDescending(h => h.RmsA))
         {
-            labelled.Add(harmonic.Order);
+            if (labelled.Count == MaxHarmonicLabels)
+            {
+                break;
+            }
+
+            if (labelled.All(o => Math.Max(o, harmonic.Order) / (double)Math.Min(o, harmonic.Order) >= minimumRatio))
+            {
+                labelled.Add(harmonic.Order);
+            }
         }
 
         for (var order = 1; order <= 50 && order * mainsHz <= xMax; order++)

@@ -139,6 +139,13 @@ public sealed class PlotRendererTests : IDisposable
             var svg = PlotRenderer.RenderSvg(kind, analysis, ResultBuilder.Assessment());
             Assert.True(svg.Length < 400_000, $"{kind}: {svg.Length} characters");
         }
+
+        // Nyquist 500 kHz lies beyond B+'s 20 kHz (DIN VDE 0664-400): the stretch no type covers is named.
+        var spectrum = SvgTexts(XDocument.Parse(PlotRenderer.RenderSvg(PlotKind.Spectrum, analysis, null)).Root!);
+        Assert.Contains("no type: above 20 kHz", spectrum);
+        var png = System.IO.Path.Combine(output.Path, "high-rate-spectrum.png");
+        PlotRenderer.Write(PlotKind.Spectrum, analysis, ResultBuilder.Assessment(), png);
+        Assert.True(new FileInfo(png).Length > 1000);
     }
 
     private static List<string> SvgTexts(XElement root) =>
