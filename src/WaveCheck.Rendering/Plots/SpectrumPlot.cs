@@ -26,7 +26,7 @@ public static class SpectrumPlot
     /// <summary>Lowest drawn value, milliamperes (1 µA: below any residual current of interest).</summary>
     public const double AbsoluteFloorMa = 1e-3;
 
-    /// <summary>Builds the spectrum.</summary>
+    /// <summary>Builds the spectrum. Non-finite bins are left as gaps and do not set the axis range.</summary>
     /// <param name="analysis">Reads <see cref="AnalysisResult.Spectrum"/>, <see cref="AnalysisResult.Harmonics"/>, <see cref="ComponentsResult.Tones"/>, <see cref="AnalysisResult.Mains"/>.</param>
     /// <param name="assessment">Unused beyond the title today; accepted for a uniform signature.</param>
     public static PlotModel Build(AnalysisResult analysis, AssessmentResult? assessment)
@@ -45,7 +45,11 @@ public static class SpectrumPlot
         var peakMa = 0.0;
         for (var i = 1; i < count; i++)
         {
-            peakMa = Math.Max(peakMa, PlotStyle.AxisMilliamps(spectrum.RmsA[i]));
+            var valueMa = PlotStyle.AxisMilliamps(spectrum.RmsA[i]);
+            if (double.IsFinite(valueMa))
+            {
+                peakMa = Math.Max(peakMa, valueMa);
+            }
         }
 
         var floorMa = Math.Max(peakMa * FloorShare, AbsoluteFloorMa);

@@ -87,6 +87,32 @@ public sealed class PlotRendererTests : IDisposable
     }
 
     [Fact]
+    public void Non_finite_values_leave_gaps_and_do_not_break_a_plot()
+    {
+        var analysis = ResultBuilder.Typical();
+        var rms = analysis.Spectrum.RmsA.ToArray();
+        rms[11] = double.NaN; // 55 Hz and 65 Hz: between harmonics
+        rms[13] = double.PositiveInfinity;
+        var samples = analysis.WorstWindow.SamplesA.ToArray();
+        samples[100] = double.NaN;
+        analysis = analysis with
+        {
+            Spectrum = analysis.Spectrum with { RmsA = rms },
+            WorstWindow = analysis.WorstWindow with { SamplesA = samples },
+        };
+
+        foreach (var kind in PlotRenderer.Applicable(analysis))
+        {
+            var root = XDocument.Parse(PlotRenderer.RenderSvg(kind, analysis, ResultBuilder.Assessment())).Root!;
+            Assert.DoesNotContain("NaN", root.ToString(), StringComparison.Ordinal);
+        }
+
+        // The y range still comes from the finite bins: the 5 mA fundamental bin, times the 4× headroom of SpectrumPlot.
+        var y = PlotRenderer.Build(PlotKind.Spectrum, analysis, null).Axes[1];
+        Assert.Equal(5 * 4, y.Maximum, 9);
+    }
+
+    [Fact]
     public void Format_follows_the_file_extension()
     {
         var path = System.IO.Path.Combine(output.Path, "Spectrum.SVG");
