@@ -585,7 +585,7 @@ public static class ReportWriter
 
     private static string Percent(double value) => Number(value, Math.Abs(value) >= 10 ? "0.0" : "0.00") + " %";
 
-    private static string Hertz(double hz) => hz >= 10_000 ? Number(hz / 1000, "0.##") + " kHz" : Number(hz, hz >= 100 ? "0" : "0.##") + " Hz";
+    private static string Hertz(double hz) => hz >= 1000 ? Number(hz / 1000, "0.###") + " kHz" : Number(hz, hz >= 100 ? "0" : "0.##") + " Hz";
 
     private static string Seconds(double s) => s >= 1 || s == 0 ? Number(s, "0.###") + " s" : Number(s * 1000, "0.###") + " ms";
 
