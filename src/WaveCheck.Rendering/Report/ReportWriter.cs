@@ -1,0 +1,622 @@
+using System.Globalization;
+using WaveCheck.Core.Capture;
+using WaveCheck.Core.Results;
+using WaveCheck.Rendering.Plots;
+
+namespace WaveCheck.Rendering.Report;
+
+/// <summary>
+/// Writes the HTML report: one self-contained file (inline CSS and SVG plots, no scripts, no network resources) that
+/// opens offline and prints to A4 or Letter. Reads only the result model; every user-supplied or file-derived string is
+/// HTML-escaped. Stateless; safe to use from several threads.
+/// </summary>
+public static class ReportWriter
+{
+    /// <summary>Standards the analysis and assessment rest on, as named in the methods section.</summary>
+    public static readonly IReadOnlyList<(string Standard, string Use)> Standards =
+    [
+        ("IEC 61000-4-7", "harmonic and interharmonic groups, synchronised 10/12-cycle windows"),
+        ("IEC 60990", "touch current measured through weighted networks"),
+        ("IEC 61008-1", "RCCBs: types AC and A, non-operating current 0.5 IΔn, smooth DC tolerance of type A"),
+        ("IEC 61009-1", "RCBOs: types AC and A, as IEC 61008-1"),
+        ("IEC 62423", "types F and B: composite current to 1 kHz, smooth DC, tripping at other frequencies"),
+        ("IEC 62955", "RDC-DD: 6 mA smooth DC detection for EV charging"),
+        ("IEC 60364-5-53", "selection of the RCD type by the residual current the equipment can produce"),
+        ("IEC 60364-7-722", "EV charging points: type A with RDC-DD, or type B"),
+        ("UL 943", "GFCI (North America): Class A trip levels and inverse-time trip curve"),
+        ("DIN VDE 0664-400", "national designation B+: type B with tripping defined up to 20 kHz"),
+    ];
+
+    /// <summary>Cautions stated with every report, whatever the assessment adds.</summary>
+    public static readonly IReadOnlyList<string> StandingCautions =
+    [
+        "Verify on site: a recording shows one period of operation; measure again under every operating mode the equipment has.",
+        "Local wiring codes and the authority having jurisdiction take precedence over this report.",
+        "Check the device maker's data for the exact device: tripping behaviour within a type varies between products.",
+        "Selecting, installing and testing protective devices is work for qualified, licensed people.",
+    ];
+
+    /// <summary>Share of the largest value below which harmonic and band rows are left out of the tables
+    /// (engineering choice: 0.1 % keeps every row a reader could act on).</summary>
+    public const double NegligibleShare = 1e-3;
+
+    /// <summary>Absolute value below which table rows are left out, amperes (1 µA: engineering choice, below any residual current of interest).</summary>
+    public const double NegligibleA = 1e-6;
+
+    /// <summary>Most event rows listed.</summary>
+    public const int MaxEventRows = 200;
+
+    /// <summary>Writes the report to <paramref name="path"/>, whole or not at all.</summary>
+    /// <param name="path">Target <c>.html</c> file; its folder is created if missing.</param>
+    /// <param name="analysis">The analysis.</param>
+    /// <param name="assessment">The verdict; null writes an analysis-only report.</param>
+    /// <param name="context">Site, circuit, note, time and version.</param>
+    public static void Write(string path, AnalysisResult analysis, AssessmentResult? assessment, ReportContext context) =>
+        AtomicFile.WriteText(path, Render(analysis, assessment, context));
+
+    /// <summary>The report as HTML text.</summary>
+    /// <param name="analysis">The analysis.</param>
+    /// <param name="assessment">The verdict; null renders an analysis-only report.</param>
+    /// <param name="context">Site, circuit, note, time and version.</param>
+    public static string Render(AnalysisResult analysis, AssessmentResult? assessment, ReportContext context)
+    {
+        ArgumentNullException.ThrowIfNull(analysis);
+        ArgumentNullException.ThrowIfNull(context);
+        var html = new HtmlWriter();
+        var fileName = Path.GetFileName(analysis.Capture.FilePath);
+        html.Raw("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
+        html.Raw("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
+        html.Raw("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">\n");
+        html.Raw("<title>").Text($"Residual-current report: {fileName}").Raw("</title>\n<style>\n").Raw(ReportStyle.Css).Raw("\n</style>\n</head>\n<body>\n");
+
+        Header(html, analysis, context);
+        if (assessment is null)
+        {
+            html.Raw("<section id=\"verdict\"><div class=\"verdict\"><p class=\"required\">No device assessment</p>");
+            html.Raw("<p class=\"headline\">This report shows the analysis only; no RCD type was assessed.</p></div></section>\n");
+        }
+        else
+        {
+            Verdict(html, assessment);
+            TypeTable(html, assessment);
+            DeviceMargins(html, analysis, assessment);
+        }
+
+        Plots(html, analysis, assessment);
+        Figures(html, analysis);
+        Limitations(html, analysis);
+        Cautions(html, assessment);
+        Methods(html, analysis, context);
+        if (assessment is not null)
+        {
+            Thresholds(html, assessment);
+        }
+
+        html.Raw("<footer>").Text($"Made by WaveCheck {context.ToolVersion} on {Timestamp(context.GeneratedAt)}. ")
+            .Text("A tool's reading of a recording: it supports a qualified person's decision and does not replace it.").Raw("</footer>\n");
+        html.Raw("</body>\n</html>\n");
+        return html.ToString();
+    }
+
+    /// <summary>Words and a symbol for a type's verdict, never colour alone.</summary>
+    public static string SuitabilityText(bool? suitable) => suitable switch
+    {
+        true => "✔ suitable",
+        false => "✘ not suitable",
+        null => "? cannot be determined",
+    };
+
+    /// <summary>Words and a symbol for the installed device's adequacy.</summary>
+    public static string AdequacyText(bool? adequate) => adequate switch
+    {
+        true => "✔ adequate",
+        false => "✘ not adequate",
+        null => "? cannot be determined",
+    };
+
+    private static void Header(HtmlWriter html, AnalysisResult analysis, ReportContext context)
+    {
+        var capture = analysis.Capture;
+        html.Raw("<header>\n<h1>Residual-current assessment</h1>\n<p class=\"muted\">")
+            .Text($"Capture {Path.GetFileName(capture.FilePath)}, {Seconds(capture.DurationS)} at {Hertz(capture.SampleRateHz)}")
+            .Raw("</p>\n<dl class=\"facts\">\n");
+        Fact(html, "Site", Given(context.Site));
+        Fact(html, "Circuit", Given(context.Circuit));
+        Fact(html, "Capture file", capture.FilePath);
+        Fact(html, "Format", $"{capture.Format}: {capture.Encoding}");
+        Fact(html, "Residual current", capture.ResidualSource);
+        Fact(html, "Calibration", capture.Calibration.Source);
+        Fact(html, "Sample rate", Hertz(capture.SampleRateHz) + (capture.MeasuredSampleRateHz is double m ? $" (measured {Hertz(m)})" : string.Empty));
+        Fact(html, "Duration", $"{Seconds(capture.DurationS)} ({capture.SampleCount.ToString(CultureInfo.InvariantCulture)} samples{(capture.SampleCountExact ? string.Empty : ", estimated")})");
+        Fact(html, "Recorded", capture.StartTime is DateTimeOffset start ? Timestamp(start) : "not stated in the file");
+        Fact(html, "Sensor coupling", CouplingText(capture.SensorCoupling));
+        Fact(html, "Mains", $"{Hertz(analysis.Mains.FrequencyHz)} ({analysis.Mains.Source}; {Hertz(analysis.Mains.MinHz)} to {Hertz(analysis.Mains.MaxHz)})");
+        Fact(html, "Report made", $"{Timestamp(context.GeneratedAt)}, WaveCheck {context.ToolVersion}");
+        html.Raw("</dl>\n");
+        if (!string.IsNullOrWhiteSpace(context.Note))
+        {
+            html.Raw("<p><strong>Note:</strong> ").Text(context.Note).Raw("</p>\n");
+        }
+
+        html.Raw("</header>\n");
+    }
+
+    private static void Verdict(HtmlWriter html, AssessmentResult a)
+    {
+        html.Raw("<section id=\"verdict\">\n<h2>Verdict</h2>\n<div class=\"verdict\">\n<p class=\"required\">");
+        if (a.RequiredType is { } required)
+        {
+            html.Text($"Required RCD type: {required}");
+        }
+        else
+        {
+            html.Text($"Required RCD type: cannot be determined from this capture (at least type {a.MinimumType})");
+        }
+
+        html.Raw("</p>\n<p class=\"headline\">").Text(a.Headline).Raw("</p>\n");
+        if (a.InstalledType is { } installed)
+        {
+            html.Raw("<p><strong>").Text($"Installed type {installed}: {AdequacyText(a.InstalledAdequate)}").Raw("</strong></p>\n");
+        }
+
+        html.Raw("<p class=\"muted\">").Text($"Rated residual operating current assessed: IΔn = {CurrentText.WithUnit(a.RatedResidualCurrentA)}; rules: {RegimeText(a.Regime)}.").Raw("</p>\n");
+        html.Raw("</div>\n");
+        if (a.Blinding.Blinded == true)
+        {
+            html.Raw("<div class=\"alert\">").Text($"Blinding: the smooth DC of {CurrentText.WithUnit(a.Blinding.SmoothDcA)} exceeds what a type {a.Blinding.DeviceType} device is specified to work with ({Current(a.Blinding.ToleranceA)}). It may fail to trip on a real earth fault.").Raw("</div>\n");
+        }
+
+        html.Raw("</section>\n");
+    }
+
+    private static void TypeTable(HtmlWriter html, AssessmentResult a)
+    {
+        html.Raw("<section id=\"types\">\n<h2>Each device type</h2>\n<table class=\"wide\">\n<thead><tr><th>Type</th><th>Verdict</th><th>Evidence</th></tr></thead>\n<tbody>\n");
+        foreach (var type in a.Types)
+        {
+            html.Raw("<tr><td><strong>").Text(type.Type).Raw("</strong></td><td class=\"verdict-cell\">").Text(SuitabilityText(type.Suitable)).Raw("</td><td>");
+            List(html, type.Reasons, "reasons");
+            html.Raw("</td></tr>\n");
+        }
+
+        html.Raw("</tbody>\n</table>\n</section>\n");
+    }
+
+    private static void DeviceMargins(HtmlWriter html, AnalysisResult analysis, AssessmentResult a)
+    {
+        var trip = a.NuisanceTrip;
+        html.Raw("<section id=\"device\">\n<h2>").Text($"Margins for a type {trip.DeviceType} device, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}").Raw("</h2>\n");
+        html.Raw("<h3>Nuisance tripping</h3>\n<table><tbody>\n");
+        Row(html, "Risk", RiskText(trip.Risk));
+        Row(html, "Standing residual current (frequency-weighted, worst window)", CurrentText.WithUnit(trip.StandingA));
+        Row(html, "Non-operating limit 0.5 IΔn", CurrentText.WithUnit(trip.NonOperatingLimitA));
+        Row(html, "Margin to the limit", $"{CurrentText.WithUnit(trip.MarginA)} ({Percent(trip.MarginPercent)} of the limit){(trip.MarginA < 0 ? " — above the limit" : string.Empty)}");
+        Row(html, "Leakage budget 0.3 IΔn", $"{CurrentText.WithUnit(trip.LeakageBudgetA)}: {(trip.WithinLeakageBudget ? "✔ within" : "✘ exceeded")}");
+        html.Raw("</tbody></table>\n<p>").Text(trip.Explanation).Raw("</p>\n");
+        if (trip.Contributions.Count > 0)
+        {
+            html.Raw("<table>\n<thead><tr><th>Frequency range</th><th class=\"num\">From</th><th class=\"num\">To</th><th class=\"num\">RMS</th><th class=\"num\">Trip factor</th><th class=\"num\">Weighted RMS</th></tr></thead>\n<tbody>\n");
+            foreach (var c in trip.Contributions)
+            {
+                html.Raw("<tr><td>").Text(c.Label).Raw("</td>");
+                Num(html, Hertz(c.LowHz));
+                Num(html, Hertz(c.HighHz));
+                Num(html, CurrentText.WithUnit(c.RmsA));
+                Num(html, double.IsPositiveInfinity(c.TripFactor) ? "does not respond" : Number(c.TripFactor, "0.##"));
+                Num(html, CurrentText.WithUnit(c.WeightedRmsA));
+                html.Raw("</tr>\n");
+            }
+
+            html.Raw("</tbody>\n</table>\n");
+        }
+
+        var blinding = a.Blinding;
+        html.Raw("<h3>Smooth-DC blinding</h3>\n<table><tbody>\n");
+        Row(html, "Smooth DC (worst window)", CurrentText.WithUnit(blinding.SmoothDcA));
+        Row(html, $"Type {blinding.DeviceType} tolerance", blinding.ToleranceA is double t ? CurrentText.WithUnit(t) : "none specified");
+        Row(html, "Blinded", blinding.Blinded switch { true => "✘ yes: may not trip on a fault", false => "✔ no", null => "? cannot be determined with this sensor" });
+        html.Raw("</tbody></table>\n<p>").Text(blinding.Explanation).Raw("</p>\n");
+
+        var ev = a.EvCharging;
+        html.Raw("<h3>EV charging points</h3>\n<table><tbody>\n");
+        Row(html, "Smooth DC (worst window)", CurrentText.WithUnit(ev.SmoothDcA));
+        Row(html, "RDC-DD threshold (IEC 62955)", CurrentText.WithUnit(ev.RdcDdThresholdA));
+        Row(html, "DC above the threshold", ev.DcAboveRdcDdThreshold switch { true => "✘ yes", false => "✔ no", null => "? cannot be determined" });
+        Row(html, "Recommendation", ev.Recommendation);
+        html.Raw("</tbody></table>\n");
+
+        if (a.Gfci is { } gfci)
+        {
+            html.Raw("<h3>GFCI (UL 943)</h3>\n<table><tbody>\n");
+            Row(html, "Standing residual RMS", CurrentText.WithUnit(gfci.StandingRmsA));
+            Row(html, "Class A (6 mA) trips on the standing current alone", TripsText(gfci.ClassATripsAlone));
+            Row(html, "Class A trip time at that level", gfci.ClassATripTimeS is double ta ? Seconds(ta) : "not applicable (below 6 mA)");
+            Row(html, "Special-purpose (20 mA) trips on it alone", TripsText(gfci.SpecialPurposeTripsAlone));
+            Row(html, "Special-purpose trip time", gfci.SpecialPurposeTripTimeS is double ts ? Seconds(ts) : "not applicable (below 20 mA)");
+            html.Raw("</tbody></table>\n");
+            List(html, gfci.Notes, null);
+        }
+
+        if (a.TouchCurrent is { } touch)
+        {
+            html.Raw("<h3>Touch current (IEC 60990)</h3>\n");
+            TouchReadings(html, touch.Readings);
+            if (touch.Comparisons.Count > 0)
+            {
+                html.Raw("<table>\n<thead><tr><th>Limit</th><th>Reading</th><th class=\"num\">Reading value</th><th class=\"num\">Limit value</th><th>Within</th><th>Source</th></tr></thead>\n<tbody>\n");
+                foreach (var c in touch.Comparisons)
+                {
+                    html.Raw("<tr><td>").Text(c.Limit).Raw("</td><td>").Text(c.Reading).Raw("</td>");
+                    Num(html, CurrentText.WithUnit(c.ValueA));
+                    Num(html, CurrentText.WithUnit(c.LimitA));
+                    html.Raw("<td class=\"verdict-cell\">").Text(c.Within ? "✔ within" : "✘ above").Raw("</td><td>").Text(c.Source).Raw("</td></tr>\n");
+                }
+
+                html.Raw("</tbody>\n</table>\n");
+            }
+        }
+        else if (analysis.TouchCurrent is { } readings)
+        {
+            html.Raw("<h3>Touch current (IEC 60990)</h3>\n");
+            TouchReadings(html, readings);
+        }
+
+        html.Raw("</section>\n");
+    }
+
+    private static void TouchReadings(HtmlWriter html, TouchCurrentResult r)
+    {
+        html.Raw("<table>\n<thead><tr><th>Network</th><th class=\"num\">Peak</th><th class=\"num\">RMS</th></tr></thead>\n<tbody>\n");
+        TouchRow(html, "unweighted", r.UnweightedPeakA, r.UnweightedRmsA);
+        TouchRow(html, "perception/reaction", r.PerceptionPeakA, r.PerceptionRmsA);
+        TouchRow(html, "let-go", r.LetGoPeakA, r.LetGoRmsA);
+        html.Raw("<tr><td>DC (mean, unweighted)</td>");
+        Num(html, CurrentText.WithUnit(r.DcA));
+        Num(html, string.Empty);
+        html.Raw("</tr>\n</tbody>\n</table>\n");
+    }
+
+    private static void TouchRow(HtmlWriter html, string network, double peakA, double rmsA)
+    {
+        html.Raw("<tr><td>").Text(network).Raw("</td>");
+        Num(html, CurrentText.WithUnit(peakA));
+        Num(html, CurrentText.WithUnit(rmsA));
+        html.Raw("</tr>\n");
+    }
+
+    private static void Plots(HtmlWriter html, AnalysisResult analysis, AssessmentResult? assessment)
+    {
+        html.Raw("<section id=\"plots\">\n<h2>Plots</h2>\n");
+        var index = 0;
+        foreach (var kind in PlotRenderer.Applicable(analysis))
+        {
+            var (title, caption) = PlotCaption(kind, assessment);
+            var svg = PlotRenderer.RenderSvg(kind, analysis, assessment);
+            html.Raw("<figure id=\"plot-").Raw(kind.ToString().ToLowerInvariant()).Raw("\">\n");
+            html.Raw(InlineSvg.Prepare(svg, $"p{index}-", title));
+            html.Raw("\n<figcaption>").Text(caption).Raw("</figcaption>\n</figure>\n");
+            index++;
+        }
+
+        html.Raw("</section>\n");
+    }
+
+    private static (string Title, string Caption) PlotCaption(PlotKind kind, AssessmentResult? assessment)
+    {
+        var lines = assessment is null ? string.Empty : " Dashed and dotted lines: 0.5 IΔn (non-operating limit) and 0.3 IΔn (leakage budget).";
+        return kind switch
+        {
+            PlotKind.Overview => ("Residual current over the whole capture",
+                "The band spans the smallest and largest sample in each time bucket, so no peak is lost. Black dashed: the DC level." + lines + " Vertical lines: events."),
+            PlotKind.Cycles => ("Mains cycles of the worst window",
+                "Consecutive mains cycles of the window with the highest RMS drawn over one period. 0° is the start of the excerpt, not a voltage zero crossing."),
+            PlotKind.Spectrum => ("Spectrum",
+                "RMS per frequency bin on logarithmic axes; DC is stated above the plot. Shading shows which device types are specified for each frequency range; content in the unshaded part lies outside every type's range."),
+            PlotKind.Trend => ("Trend", "One point per window (decimated, worst value kept, for long captures)." + lines),
+            _ => (kind.ToString(), string.Empty),
+        };
+    }
+
+    private static void Figures(HtmlWriter html, AnalysisResult analysis)
+    {
+        var s = analysis.Summary;
+        var c = analysis.Components;
+        html.Raw("<section id=\"figures\">\n<h2>Measured figures</h2>\n<h3>Whole capture</h3>\n<table><tbody>\n");
+        Row(html, "True RMS", CurrentText.WithUnit(s.RmsA));
+        Row(html, "DC (mean)", CurrentText.WithUnit(s.DcA));
+        Row(html, "AC RMS (mean removed)", CurrentText.WithUnit(s.AcRmsA));
+        Row(html, "Peak (largest absolute sample)", CurrentText.WithUnit(s.PeakA));
+        Row(html, "Highest / lowest sample", $"{CurrentText.WithUnit(s.PeakPositiveA)} / {CurrentText.WithUnit(s.PeakNegativeA)}");
+        Row(html, "Crest factor", Number(s.CrestFactor, "0.00"));
+        html.Raw("</tbody></table>\n<h3>Components</h3>\n<table><tbody>\n");
+        Row(html, "Smooth DC (capture mean / worst window)", $"{CurrentText.WithUnit(c.SmoothDcA)} / {CurrentText.WithUnit(c.SmoothDcMaxA)}");
+        Row(html, "Pulsating DC", $"{(c.PulsatingDc ? "yes" : "no")} ({Percent(c.PulsatingDcShare * 100)} of windows)");
+        Row(html, "Current-delay angle", c.CurrentDelayAngleDeg is double alpha ? Number(alpha, "0") + "°" : "not a phase-controlled half-wave");
+        Row(html, "Mains frequency (harmonic group 1)", CurrentText.WithUnit(c.MainsRmsA));
+        Row(html, "Below mains frequency", CurrentText.WithUnit(c.BelowMainsRmsA));
+        Row(html, "Harmonics 2 to 50", CurrentText.WithUnit(c.HarmonicsRmsA));
+        Row(html, "Above 1 kHz", CurrentText.WithUnit(c.Above1kHzRmsA));
+        Row(html, "Above 9 kHz", CurrentText.WithUnit(c.Above9kHzRmsA));
+        Row(html, "THD", c.ThdPercent is double thd ? Percent(thd) : "no fundamental");
+        html.Raw("</tbody></table>\n");
+        if (c.Tones.Count > 0)
+        {
+            html.Raw("<h3>Strongest tones that are not mains harmonics</h3>\n<table>\n<thead><tr><th class=\"num\">Frequency</th><th class=\"num\">RMS</th></tr></thead>\n<tbody>\n");
+            foreach (var tone in c.Tones)
+            {
+                html.Raw("<tr>");
+                Num(html, Hertz(tone.FrequencyHz));
+                Num(html, CurrentText.WithUnit(tone.RmsA));
+                html.Raw("</tr>\n");
+            }
+
+            html.Raw("</tbody>\n</table>\n");
+        }
+
+        Harmonics(html, analysis);
+        Bands(html, analysis.Bands);
+        Events(html, analysis.Events);
+        Statistics(html, analysis.Windows);
+        html.Raw("</section>\n");
+    }
+
+    private static void Harmonics(HtmlWriter html, AnalysisResult analysis)
+    {
+        var largest = analysis.Harmonics.Count == 0 ? 0 : analysis.Harmonics.Max(h => h.RmsA);
+        var shown = analysis.Harmonics.Where(h => h.Order is >= 1 and <= 50 && !Negligible(h.RmsA, largest)).ToList();
+        var fundamental = analysis.Harmonics.FirstOrDefault(h => h.Order == 1)?.RmsA ?? 0;
+        html.Raw("<h3>Harmonic groups (IEC 61000-4-7)</h3>\n");
+        if (shown.Count == 0)
+        {
+            html.Raw("<p>No harmonic group above the table's floor.</p>\n");
+            return;
+        }
+
+        html.Raw("<table>\n<thead><tr><th class=\"num\">Order</th><th class=\"num\">Frequency</th><th class=\"num\">RMS</th><th class=\"num\">Largest window</th><th class=\"num\">Of fundamental</th></tr></thead>\n<tbody>\n");
+        foreach (var h in shown)
+        {
+            html.Raw("<tr>");
+            Num(html, h.Order.ToString(CultureInfo.InvariantCulture));
+            Num(html, Hertz(h.FrequencyHz));
+            Num(html, CurrentText.WithUnit(h.RmsA));
+            Num(html, CurrentText.WithUnit(h.MaxA));
+            Num(html, fundamental > 0 ? Percent(100 * h.RmsA / fundamental) : "–");
+            html.Raw("</tr>\n");
+        }
+
+        html.Raw("</tbody>\n</table>\n<p class=\"muted\">").Text(FloorNote(analysis.Harmonics.Count - shown.Count, "groups")).Raw("</p>\n");
+    }
+
+    private static void Bands(HtmlWriter html, IReadOnlyList<BandValue> bands)
+    {
+        var largest = bands.Count == 0 ? 0 : bands.Max(b => b.RmsA);
+        var shown = bands.Where(b => !Negligible(b.RmsA, largest)).ToList();
+        html.Raw("<h3>Frequency bands above 2 kHz</h3>\n");
+        if (shown.Count == 0)
+        {
+            html.Raw("<p>No band above the table's floor.</p>\n");
+            return;
+        }
+
+        html.Raw("<table>\n<thead><tr><th class=\"num\">From</th><th class=\"num\">To</th><th class=\"num\">RMS</th><th class=\"num\">Largest window</th></tr></thead>\n<tbody>\n");
+        foreach (var b in shown)
+        {
+            html.Raw("<tr>");
+            Num(html, Hertz(b.LowHz));
+            Num(html, Hertz(b.HighHz));
+            Num(html, CurrentText.WithUnit(b.RmsA));
+            Num(html, CurrentText.WithUnit(b.MaxA));
+            html.Raw("</tr>\n");
+        }
+
+        html.Raw("</tbody>\n</table>\n<p class=\"muted\">").Text(FloorNote(bands.Count - shown.Count, "bands")).Raw("</p>\n");
+    }
+
+    private static void Events(HtmlWriter html, IReadOnlyList<EventRecord> events)
+    {
+        html.Raw("<h3>Events</h3>\n");
+        if (events.Count == 0)
+        {
+            html.Raw("<p>No alarms or transients.</p>\n");
+            return;
+        }
+
+        html.Raw("<table class=\"wide\">\n<thead><tr><th>Kind</th><th class=\"num\">Start</th><th class=\"num\">Duration</th><th class=\"num\">Value</th><th>Description</th></tr></thead>\n<tbody>\n");
+        foreach (var e in events.Take(MaxEventRows))
+        {
+            html.Raw("<tr><td>").Text(e.Kind).Raw("</td>");
+            Num(html, Seconds(e.StartS));
+            Num(html, Seconds(e.DurationS));
+            Num(html, CurrentText.WithUnit(e.ValueA));
+            html.Raw("<td>").Text(e.Message).Raw("</td></tr>\n");
+        }
+
+        html.Raw("</tbody>\n</table>\n");
+        if (events.Count > MaxEventRows)
+        {
+            html.Raw("<p class=\"muted\">").Text($"First {MaxEventRows} of {events.Count} events listed; the analysis JSON holds them all.").Raw("</p>\n");
+        }
+    }
+
+    private static void Statistics(HtmlWriter html, WindowsResult windows)
+    {
+        html.Raw("<h3>Statistics over windows</h3>\n<p>")
+            .Text($"{windows.Count} windows of {windows.CyclesPerWindow} mains cycles ({Seconds(windows.LengthS)}); largest synchronisation error {Percent(windows.MaxSyncErrorPercent)}.")
+            .Raw("</p>\n");
+        if (windows.Statistics.Count == 0)
+        {
+            return;
+        }
+
+        html.Raw("<table>\n<thead><tr><th>Metric</th><th class=\"num\">Mean</th><th class=\"num\">95th percentile</th><th class=\"num\">Maximum</th><th class=\"num\">At</th></tr></thead>\n<tbody>\n");
+        foreach (var (name, stat) in windows.Statistics.OrderBy(p => p.Key, StringComparer.Ordinal))
+        {
+            html.Raw("<tr><td><code>").Text(name).Raw("</code></td>");
+            Num(html, MetricValue(name, stat.Mean));
+            Num(html, MetricValue(name, stat.P95));
+            Num(html, MetricValue(name, stat.Max));
+            Num(html, Seconds(stat.TimeOfMaxS));
+            html.Raw("</tr>\n");
+        }
+
+        html.Raw("</tbody>\n</table>\n");
+    }
+
+    private static void Limitations(HtmlWriter html, AnalysisResult analysis)
+    {
+        var capture = analysis.Capture;
+        html.Raw("<section id=\"limits\">\n<h2>What this capture could not show</h2>\n<ul>\n");
+        html.Raw("<li>").Text($"Nothing above {Hertz(capture.NyquistHz)} (half the sample rate) is seen.").Raw("</li>\n");
+        if (capture.SensorCoupling == SensorCoupling.Ac)
+        {
+            html.Raw("<li><strong>").Text("The sensor is AC-coupled: smooth DC is invisible to it, so the DC figures and anything decided by them are incomplete. Measure again with a DC-coupled sensor (fluxgate or Hall-effect).").Raw("</strong></li>\n");
+        }
+        else if (capture.SensorCoupling == SensorCoupling.Unknown)
+        {
+            html.Raw("<li>").Text("The sensor coupling was not stated: if the sensor is a plain current transformer, smooth DC was not recorded.").Raw("</li>\n");
+        }
+
+        if (capture.FullScaleA is double fullScale)
+        {
+            html.Raw("<li>").Text($"The recorder clips at {CurrentText.WithUnit(fullScale)}.").Raw("</li>\n");
+        }
+
+        var clipped = analysis.Trend.Count(w => w.Clipped);
+        if (clipped > 0)
+        {
+            html.Raw("<li><strong>").Text($"{clipped} of the {analysis.Trend.Count} windows in the trend contain clipped samples: peaks and RMS there are too low, and the spectrum holds products of the clipping.").Raw("</strong></li>\n");
+        }
+
+        foreach (var warning in analysis.Warnings)
+        {
+            html.Raw("<li><code>").Text(warning.Code).Raw("</code> ").Text(warning.Message);
+            if (warning.TimeS is double t)
+            {
+                html.Text($" (at {Seconds(t)})");
+            }
+
+            html.Raw("</li>\n");
+        }
+
+        html.Raw("</ul>\n</section>\n");
+    }
+
+    private static void Cautions(HtmlWriter html, AssessmentResult? assessment)
+    {
+        html.Raw("<section id=\"cautions\">\n<h2>Cautions</h2>\n");
+        var all = new List<string>(StandingCautions);
+        if (assessment is not null)
+        {
+            all.AddRange(assessment.Cautions.Where(c => !all.Contains(c, StringComparer.Ordinal)));
+        }
+
+        List(html, all, null);
+        html.Raw("</section>\n");
+    }
+
+    private static void Methods(HtmlWriter html, AnalysisResult analysis, ReportContext context)
+    {
+        html.Raw("<section id=\"methods\">\n<h2>Methods</h2>\n<p>")
+            .Text($"Mains frequency: {analysis.Mains.Method}. The capture is cut into synchronised windows of {analysis.Windows.CyclesPerWindow} mains cycles; spectra, harmonic groups and bands are computed per window and combined as the RMS over windows. Analysis by WaveCheck {analysis.ToolVersion}; report by WaveCheck {context.ToolVersion}.")
+            .Raw("</p>\n<table>\n<thead><tr><th>Standard</th><th>Used for</th></tr></thead>\n<tbody>\n");
+        foreach (var (standard, use) in Standards)
+        {
+            html.Raw("<tr><td>").Text(standard).Raw("</td><td>").Text(use).Raw("</td></tr>\n");
+        }
+
+        html.Raw("</tbody>\n</table>\n</section>\n");
+    }
+
+    private static void Thresholds(HtmlWriter html, AssessmentResult a)
+    {
+        html.Raw("<section id=\"thresholds\">\n<h2>Thresholds applied</h2>\n<table>\n<thead><tr><th>Name</th><th class=\"num\">Value</th><th>Source</th></tr></thead>\n<tbody>\n");
+        foreach (var t in a.Thresholds)
+        {
+            html.Raw("<tr><td><code>").Text(t.Name).Raw("</code></td>");
+            Num(html, t.Unit == "A" ? CurrentText.WithUnit(t.Value) : t.Unit == "1" ? Number(t.Value, "0.####") : $"{Number(t.Value, "0.####")} {t.Unit}");
+            html.Raw("<td>").Text(t.Source).Raw("</td></tr>\n");
+        }
+
+        html.Raw("</tbody>\n</table>\n</section>\n");
+    }
+
+    private static void Fact(HtmlWriter html, string name, string value) =>
+        html.Raw("<dt>").Text(name).Raw("</dt><dd>").Text(value).Raw("</dd>\n");
+
+    private static void Row(HtmlWriter html, string name, string value) =>
+        html.Raw("<tr><th scope=\"row\">").Text(name).Raw("</th><td>").Text(value).Raw("</td></tr>\n");
+
+    private static void Num(HtmlWriter html, string value) => html.Raw("<td class=\"num\">").Text(value).Raw("</td>");
+
+    private static void List(HtmlWriter html, IReadOnlyList<string> items, string? cssClass)
+    {
+        if (items.Count == 0)
+        {
+            return;
+        }
+
+        html.Raw(cssClass is null ? "<ul>" : $"<ul class=\"{cssClass}\">");
+        foreach (var item in items)
+        {
+            html.Raw("<li>").Text(item).Raw("</li>");
+        }
+
+        html.Raw("</ul>\n");
+    }
+
+    private static bool Negligible(double valueA, double largestA) => valueA < Math.Max(NegligibleA, NegligibleShare * largestA);
+
+    private static string FloorNote(int left, string what) => left > 0
+        ? $"{left} {what} below {Percent(NegligibleShare * 100)} of the largest (or below {CurrentText.WithUnit(NegligibleA)}) are left out."
+        : $"All {what} shown.";
+
+    private static string MetricValue(string name, double value) =>
+        name.EndsWith('A') ? CurrentText.WithUnit(value)
+        : name.EndsWith("Hz", StringComparison.Ordinal) ? Hertz(value)
+        : name.EndsWith("Percent", StringComparison.Ordinal) ? Percent(value)
+        : name.EndsWith("Deg", StringComparison.Ordinal) ? Number(value, "0") + "°"
+        : Number(value, "0.###");
+
+    private static string Given(string? text) => string.IsNullOrWhiteSpace(text) ? "not given" : text;
+
+    private static string Current(double? amperes) => amperes is double a ? CurrentText.WithUnit(a) : "none specified";
+
+    private static string Number(double value, string format) => value.ToString(format, CultureInfo.InvariantCulture);
+
+    private static string Percent(double value) => Number(value, Math.Abs(value) >= 10 ? "0.0" : "0.00") + " %";
+
+    private static string Hertz(double hz) => hz >= 1000 ? Number(hz / 1000, "0.###") + " kHz" : Number(hz, hz >= 100 ? "0" : "0.##") + " Hz";
+
+    private static string Seconds(double s) => s >= 1 || s == 0 ? Number(s, "0.###") + " s" : Number(s * 1000, "0.###") + " ms";
+
+    private static string Timestamp(DateTimeOffset t) => t.ToString("yyyy-MM-dd HH:mm:ss zzz", CultureInfo.InvariantCulture);
+
+    private static string CouplingText(SensorCoupling coupling) => coupling switch
+    {
+        SensorCoupling.Dc => "DC-coupled: sees smooth DC",
+        SensorCoupling.Ac => "AC-coupled: blind to smooth DC",
+        _ => "not stated",
+    };
+
+    private static string RegimeText(string regime) => regime switch
+    {
+        "iec" => "IEC (RCD types AC, A, F, B, B+)",
+        "na" => "North America (UL 943 GFCI figures added)",
+        _ => regime,
+    };
+
+    private static string RiskText(string risk) => risk switch
+    {
+        "low" => "low",
+        "possible" => "⚠ possible",
+        "likely" => "✘ likely",
+        _ => risk,
+    };
+
+    private static string TripsText(bool? trips) => trips switch
+    {
+        true => "✘ yes, trips",
+        false => "✔ no",
+        null => "? may trip (between the must-not-trip and must-trip levels)",
+    };
+}
