@@ -1,0 +1,43 @@
+using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Capture;
+using WaveCheck.Core.Results;
+using WaveCheck.Core.Signal;
+
+namespace WaveCheck.Core;
+
+/// <summary>A capture measured and judged: the analysis with its touch-current figures, and the verdict on it.</summary>
+/// <param name="Analysis">What was measured.</param>
+/// <param name="Assessment">What it demands.</param>
+public sealed record Evaluation(AnalysisResult Analysis, AssessmentResult Assessment)
+{
+    /// <summary>
+    /// Reads one capture in one streaming pass (analysis and IEC 60990 touch-current networks together), then assesses it.
+    /// </summary>
+    /// <param name="source">An opened capture; read to its end, not disposed.</param>
+    /// <param name="analysisOptions">Measurement settings.</param>
+    /// <param name="assessmentOptions">The device and thresholds to judge against.</param>
+    /// <param name="progress">Receives the share read, 0..1.</param>
+    /// <exception cref="UserInputException">Malformed data, or an option out of range.</exception>
+    public static Evaluation Run(ICaptureSource source, AnalysisOptions analysisOptions, AssessmentOptions assessmentOptions,
+        IProgress<double>? progress = null)
+    {
+        ArgumentNullException.ThrowIfNull(source);
+        ArgumentNullException.ThrowIfNull(analysisOptions);
+        ArgumentNullException.ThrowIfNull(assessmentOptions);
+        analysisOptions.Validate();
+        assessmentOptions.Validate();
+        var meter = new TouchCurrentMeter(source.Info.SampleRateHz);
+        var analysis = Analyzer.Analyze(source, analysisOptions with { Sinks = [.. analysisOptions.Sinks, meter] }, progress);
+        analysis = analysis with { TouchCurrent = meter.Result };
+        return new Evaluation(analysis, DeviceTypeAssessor.Assess(analysis, assessmentOptions));
+    }
+
+    /// <summary>Opens <paramref name="path"/> and runs <see cref="Run(ICaptureSource, AnalysisOptions, AssessmentOptions, IProgress{double}?)"/>.</summary>
+    /// <exception cref="CaptureFormatException">The file cannot be read as a capture.</exception>
+    public static Evaluation Run(string path, ImportOptions importOptions, AnalysisOptions analysisOptions,
+        AssessmentOptions assessmentOptions, IProgress<double>? progress = null)
+    {
+        using var source = CaptureOpener.Open(path, importOptions);
+        return Run(source, analysisOptions, assessmentOptions, progress);
+    }
+}

@@ -1,0 +1,115 @@
+using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Capture;
+using WaveCheck.Core.Signal;
+using WaveCheck.Core.Synthesis;
+
+namespace WaveCheck.Core.Tests;
+
+/// <summary>
+/// The whole job on the test currents of the standards: synthesized, measured and judged. Each waveform must get
+/// the type its standard assigns it (IEC 60755 family as taken into IEC 60364-5-53:2015 §531.3.3; REFERENCE.md,
+/// "Device types"): the least capable type whose test currents include it.
+/// </summary>
+public class EvaluationTests
+{
+    private static Evaluation Evaluate(string[] parts, double mainsHz = 50, double rateHz = 50_000,
+        SensorCoupling sensor = SensorCoupling.Dc, AssessmentOptions? assessment = null, double? givenMainsHz = null)
+    {
+        var components = parts.SelectMany(p => SynthesisSpec.Parse(p, mainsHz)).ToList();
+        // A little noise, as on any real recording: 20 µA rms, far below every significance threshold.
+        components.Add(new NoiseComponent(20e-6, 3));
+        using var source = new SynthCaptureSource(components, rateHz, 1.0, sensor);
+        return Evaluation.Run(source, new AnalysisOptions { MainsHz = givenMainsHz }, assessment ?? new AssessmentOptions());
+    }
+
+    [Theory]
+    // IEC 61008-1: type AC is tested with sinusoidal AC residual current.
+    [InlineData("AC", new[] { "sine:rms=20mA" })]
+    // IEC 61008-1 / 61009-1: type A adds pulsating DC at current-delay angles 0°, 90°, 135°.
+    [InlineData("A", new[] { "halfwave:peak=30mA,angle=0" })]
+    [InlineData("A", new[] { "halfwave:peak=30mA,angle=90" })]
+    [InlineData("A", new[] { "halfwave:peak=30mA,angle=135" })]
+    [InlineData("A", new[] { "halfwave:peak=30mA,polarity=neg" })]
+    // Type A still trips with up to 6 mA smooth DC superimposed; type F with up to 10 mA (IEC 62423).
+    [InlineData("A", new[] { "halfwave:peak=30mA", "dc:level=4mA" })]
+    [InlineData("F", new[] { "halfwave:peak=30mA", "dc:level=8mA" })]
+    [InlineData("B", new[] { "halfwave:peak=30mA", "dc:level=14mA" })]
+    // IEC 62423: type F's composite test current of 10 Hz, 50 Hz and 1 kHz components.
+    [InlineData("F", new[] { "composite:rms=20mA,motor=10Hz,switch=1kHz" })]
+    // IEC 62423: type B adds smooth DC and rectified current from two or more phases.
+    [InlineData("B", new[] { "dc:level=20mA" })]
+    [InlineData("B", new[] { "dc:level=-20mA" })]
+    [InlineData("B", new[] { "sixpulse:mean=20mA" })]
+    // Extended-frequency type B (B+, DIN VDE 0664-400): tripping defined up to 20 kHz; switching leakage at 16 kHz.
+    [InlineData("B+", new[] { "sine:rms=5mA", "switching:rms=10mA,freq=16kHz" })]
+    public void Each_test_current_of_the_standards_gets_its_type(string expected, string[] parts)
+    {
+        var result = Evaluate(parts);
+        Assert.True(expected == result.Assessment.RequiredType,
+            $"{string.Join(" + ", parts)}: expected {expected}, got {result.Assessment.RequiredType ?? "null"}: {result.Assessment.Headline}");
+    }
+
+    [Theory]
+    [InlineData("AC", new[] { "sine:rms=20mA" })]
+    [InlineData("A", new[] { "halfwave:peak=30mA,angle=90" })]
+    public void The_same_holds_at_60_Hz(string expected, string[] parts)
+    {
+        // IEC 61000-4-7: 12-cycle windows at 60 Hz; the verdict must not depend on the mains frequency.
+        var result = Evaluate(parts, mainsHz: 60);
+        Assert.Equal(60, result.Analysis.Mains.FrequencyHz, 0.01);
+        Assert.Equal(12, result.Analysis.Windows.CyclesPerWindow);
+        Assert.Equal(expected, result.Assessment.RequiredType);
+    }
+
+    [Fact]
+    public void Six_pulse_current_at_60_Hz_has_no_mains_content_and_needs_the_mains_given()
+    {
+        // A six-pulse bridge's ripple is at 6 × mains with no fundamental (closed form of the bridge): auto detection
+        // falls back to 50 Hz and says so; with --mains 60 the windows are 12 cycles and the verdict is the same.
+        var auto = Evaluate(["sixpulse:mean=20mA"], mainsHz: 60);
+        Assert.Equal("fallback", auto.Analysis.Mains.Source);
+        Assert.Equal("B", auto.Assessment.RequiredType);
+        var given = Evaluate(["sixpulse:mean=20mA"], mainsHz: 60, givenMainsHz: 60);
+        Assert.Equal(12, given.Analysis.Windows.CyclesPerWindow);
+        Assert.Equal("B", given.Assessment.RequiredType);
+    }
+
+    [Fact]
+    public void An_ac_coupled_sensor_leaves_the_dc_verdicts_open()
+    {
+        // An AC-coupled clamp cannot see smooth DC (common practice, no source): with it declared, the smooth-DC
+        // test currents cannot decide between F and B, and the caution says what to measure instead.
+        var result = Evaluate(["sine:rms=10mA"], sensor: SensorCoupling.Ac);
+        Assert.Null(result.Assessment.RequiredType);
+        Assert.Contains(result.Assessment.Types, t => t.Type == "B" && t.Suitable != false);
+        Assert.Contains(result.Assessment.Cautions, c => c.Contains("DC", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_low_sample_rate_leaves_b_plus_open()
+    {
+        // Nyquist: at 10 kS/s nothing above 5 kHz is seen, so tripping up to 20 kHz cannot be judged (REFERENCE.md B+).
+        var result = Evaluate(["sine:rms=10mA"], rateHz: 10_000);
+        Assert.Null(result.Assessment.Types.Single(t => t.Type == "B+").Suitable);
+    }
+
+    [Fact]
+    public void Touch_current_rides_on_the_same_pass()
+    {
+        // IEC 60990 unweighted network under current drive reads the injected current: a 1 mA rms 50 Hz sine reads
+        // 1 mA rms (closed form; see TouchCurrentNetworks), within 1 %.
+        var result = Evaluate(["sine:rms=1mA"]);
+        Assert.NotNull(result.Analysis.TouchCurrent);
+        Assert.Equal(0.001, result.Analysis.TouchCurrent!.UnweightedRmsA, 0.001 * 0.01);
+        Assert.NotNull(result.Assessment.TouchCurrent);
+    }
+
+    [Fact]
+    public void A_blinded_type_a_device_is_said_so()
+    {
+        // REFERENCE.md "blinding": smooth DC above 6 mA pre-magnetises a type A core (IEC 62955 Note 2).
+        var result = Evaluate(["sine:rms=5mA", "dc:level=9mA"], assessment: new AssessmentOptions { InstalledType = DeviceType.A });
+        Assert.True(result.Assessment.Blinding.Blinded);
+        Assert.False(result.Assessment.InstalledAdequate);
+    }
+}
