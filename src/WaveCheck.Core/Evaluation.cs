@@ -29,7 +29,8 @@ public sealed record Evaluation(AnalysisResult Analysis, AssessmentResult Assess
         var meter = new TouchCurrentMeter(source.Info.SampleRateHz);
         var analysis = Analyzer.Analyze(source, analysisOptions with { Sinks = [.. analysisOptions.Sinks, meter] }, progress);
         analysis = analysis with { TouchCurrent = meter.Result };
-        return new Evaluation(analysis, DeviceTypeAssessor.Assess(analysis, assessmentOptions));
+        var assessment = DeviceTypeAssessor.Assess(analysis, assessmentOptions);
+        return new Evaluation(analysis with { Assessment = assessment }, assessment);
     }
 
     /// <summary>Opens <paramref name="path"/> and runs <see cref="Run(ICaptureSource, AnalysisOptions, AssessmentOptions, IProgress{double}?)"/>.</summary>

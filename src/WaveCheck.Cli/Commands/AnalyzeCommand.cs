@@ -2,9 +2,13 @@ using System.CommandLine;
 using System.Globalization;
 using System.Text;
 using Spectre.Console;
+using WaveCheck.Core;
+using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Results;
 using WaveCheck.Core.Signal;
+using WaveCheck.Rendering.Plots;
+using WaveCheck.Rendering.Report;
 
 namespace WaveCheck.Cli.Commands;
 
@@ -24,8 +28,10 @@ internal static class AnalyzeCommand
 
     public static Command Create()
     {
-        var file = new Argument<string>("file") { Description = "Capture to analyse (WAV or CSV)." };
+        var file = new Argument<string>("file") { Description = "Capture to analyse (WAV, CSV, or COMTRADE .cfg/.cff)." };
         var imports = new ImportOptionSet();
+        var assessment = new AssessmentOptionSet();
+        var outputs = new ReportOptionSet();
         var mains = new Option<string>("--mains")
         {
             Description = "Mains frequency: auto (find 50 or 60 Hz), 50, 60 or another frequency such as 400Hz; tracked within ±5 %.",
@@ -33,59 +39,100 @@ internal static class AnalyzeCommand
         };
         var alarm = new Option<string?>("--alarm")
         {
-            Description = "Record windows whose RMS exceeds this current, e.g. 30mA, and exit with code 1 if any does.",
+            Description = "Record windows whose RMS exceeds this current as alarm events, e.g. 15mA (with --fail-on alarm: exit code 1).",
         };
-        var json = new Option<string?>("--json") { Description = "Write the full analysis as JSON to this file, or - for stdout." };
+        var json = new Option<string?>("--json") { Description = "Write the full analysis and assessment as JSON to this file, or - for stdout." };
+        var touch = new Option<bool>("--touch") { Description = "Also print the IEC 60990 weighted touch-current readings and common limits (equipment testing)." };
         var windowsCsv = new Option<string?>("--windows-csv") { Description = "Write one CSV row per 10/12-cycle window (SI units) to this file." };
 
-        var command = new Command("analyze", "Measure a residual-current capture: RMS, DC, smooth DC, harmonics, bands, events.");
+        var command = new Command("analyze",
+            "Measure a residual-current capture and tell which RCD type it demands. Examples:\n" +
+            "  wavecheck analyze fan.wav --scale 100mA --sensor dc --device A --rated 30mA --report fan.html\n" +
+            "  wavecheck analyze log.csv --sum L1,L2,L3,N --rate 10kHz --alarm 15mA --json result.json");
         command.Arguments.Add(file);
         imports.AddTo(command);
+        assessment.AddTo(command);
         command.Options.Add(mains);
         command.Options.Add(alarm);
         command.Options.Add(json);
         command.Options.Add(windowsCsv);
+        command.Options.Add(touch);
+        outputs.AddTo(command);
         command.SetAction(parse => CliRun.Guard(() =>
         {
             var import = imports.Read(parse);
+            var assessmentOptions = assessment.Read(parse);
             var mainsText = parse.GetValue(mains) ?? "auto";
             var options = new AnalysisOptions
             {
                 MainsHz = mainsText.Trim().Equals("auto", StringComparison.OrdinalIgnoreCase)
                     ? null
                     : Quantity.ParseFrequencyHz("--mains", mainsText),
-                AlarmA = parse.GetValue(alarm) is { } alarmText ? Quantity.ParseCurrentA("--alarm", alarmText) : null,
+                AlarmA = parse.GetValue(alarm) is { } alarmText ? Quantity.ParseCurrentA("--alarm", alarmText, bareUnit: "mA") : null,
             };
             options.Validate();
+            var plotFormat = outputs.ReadPlotFormat(parse);
+            var failOn = outputs.ReadFailOn(parse);
             var jsonPath = parse.GetValue(json);
             var csvPath = parse.GetValue(windowsCsv);
-            using var source = CaptureOpener.Open(parse.GetValue(file)!, import);
-            var result = csvPath is null ? Analyzer.Analyze(source, options) : AnalyzeWithCsv(source, options, csvPath);
+            var path = parse.GetValue(file)!;
+            using var source = CaptureOpener.Open(path, import);
+            var evaluation = ProgressDisplay.Run(parse.GetValue(outputs.Quiet), $"analysing {Path.GetFileName(path)}", progress =>
+                csvPath is null
+                    ? Evaluation.Run(source, options, assessmentOptions, progress)
+                    : EvaluateWithCsv(source, options, assessmentOptions, csvPath, progress));
+            var result = evaluation.Analysis;
             if (jsonPath is not null)
             {
                 ResultJson.Write(jsonPath, result);
             }
 
-            if (jsonPath != "-")
+            if (parse.GetValue(outputs.Plots) is { } plotsDir)
             {
-                Print(result);
+                PlotRenderer.WriteAll(result, evaluation.Assessment, plotsDir, plotFormat);
             }
 
-            return result.Events.Any(e => e.Kind == "alarm") ? CliRun.Finding : CliRun.Ok;
+            if (parse.GetValue(outputs.Report) is { } reportPath)
+            {
+                ReportWriter.Write(reportPath, result, evaluation.Assessment, new ReportContext(
+                    parse.GetValue(outputs.Site), parse.GetValue(outputs.Circuit), parse.GetValue(outputs.Note),
+                    DateTimeOffset.Now, result.ToolVersion));
+            }
+
+            if (jsonPath != "-")
+            {
+                var console = ConsoleOutput.Create();
+                VerdictPrinter.Print(console, evaluation.Assessment, parse.GetValue(touch));
+                Print(console, result);
+            }
+
+            return Exit(evaluation, failOn);
         }));
         return command;
     }
 
-    /// <summary>Streams each window's row into the CSV as it completes; the file appears only when the run succeeds.</summary>
-    private static AnalysisResult AnalyzeWithCsv(ICaptureSource source, AnalysisOptions options, string path)
+    /// <summary>Exit code 1 only for the findings the user asked to fail on.</summary>
+    internal static int Exit(Evaluation evaluation, FailOnFindings failOn)
     {
-        AnalysisResult? result = null;
+        var a = evaluation.Assessment;
+        var finding =
+            (failOn.HasFlag(FailOnFindings.Upgrade) && a.InstalledAdequate == false) ||
+            (failOn.HasFlag(FailOnFindings.Nuisance) && a.NuisanceTrip.Risk is "possible" or "likely") ||
+            (failOn.HasFlag(FailOnFindings.Alarm) && evaluation.Analysis.Events.Any(e => e.Kind == "alarm"));
+        return finding ? CliRun.Finding : CliRun.Ok;
+    }
+
+    /// <summary>Streams each window's row into the CSV as it completes; the file appears only when the run succeeds.</summary>
+    private static Evaluation EvaluateWithCsv(ICaptureSource source, AnalysisOptions options,
+        AssessmentOptions assessmentOptions, string path, IProgress<double>? progress)
+    {
+        Evaluation? result = null;
         AtomicFile.Write(path, stream =>
         {
             using var writer = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16, leaveOpen: true);
             writer.WriteLine(string.Join(',', CsvColumns.Select(c => c.Name)));
             var row = new StringBuilder(256);
-            result = Analyzer.Analyze(source, options with
+            result = Evaluation.Run(source, options with
             {
                 WindowCompleted = w =>
                 {
@@ -106,12 +153,12 @@ internal static class AnalyzeCommand
 
                     writer.WriteLine(row);
                 },
-            });
+            }, assessmentOptions, progress);
         });
         return result!;
     }
 
-    private static void Print(AnalysisResult result)
+    private static void Print(IAnsiConsole console, AnalysisResult result)
     {
         var s = result.Summary;
         var c = result.Components;
@@ -146,10 +193,10 @@ internal static class AnalyzeCommand
 
         Row("windows", result.Windows.Count.ToString(CultureInfo.InvariantCulture),
             string.Create(CultureInfo.InvariantCulture, $"{result.Windows.CyclesPerWindow} cycles, {result.Events.Count} events"));
-        AnsiConsole.Write(table);
+        console.Write(table);
         foreach (var warning in result.Warnings)
         {
-            AnsiConsole.MarkupLine($"[yellow]warning[/] {Markup.Escape(warning.Code)}: {Markup.Escape(warning.Message)}");
+            console.MarkupLine($"[yellow]warning[/] {Markup.Escape(warning.Code)}: {Markup.Escape(warning.Message)}");
         }
     }
 }

@@ -58,6 +58,9 @@ public sealed record AnalysisResult
 
     /// <summary>IEC 60990 weighted touch-current figures; null when not computed.</summary>
     public TouchCurrentResult? TouchCurrent { get; init; }
+
+    /// <summary>The verdict on this capture (JSON <c>assessment</c>); null when only measured.</summary>
+    public AssessmentResult? Assessment { get; init; }
 }
 
 /// <summary>Mains frequency.</summary>

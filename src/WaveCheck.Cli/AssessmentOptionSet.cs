@@ -1,0 +1,116 @@
+using System.CommandLine;
+using System.Globalization;
+using WaveCheck.Core;
+using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Capture;
+
+namespace WaveCheck.Cli;
+
+/// <summary>The options that say what device the waveform is judged against and which thresholds the user overrides.</summary>
+internal sealed class AssessmentOptionSet
+{
+    public Option<string> Rated { get; } = new("--rated")
+    {
+        Description = "Rated residual operating current IΔn of the device, e.g. 30mA, 100mA, 300mA.",
+        DefaultValueFactory = _ => "30mA",
+    };
+
+    public Option<string?> Device { get; } = new("--device")
+    {
+        Description = "Installed device type: AC, A, F, B or B+ (margins and the adequacy verdict are for it).",
+    };
+
+    public Option<string> Regime { get; } = new("--regime")
+    {
+        Description = "iec (residual-current devices) or na (also UL 943 GFCI classes).",
+        DefaultValueFactory = _ => "iec",
+    };
+
+    public Option<bool> Ev { get; } = new("--ev")
+    {
+        Description = "The circuit feeds an EV charging point (IEC 60364-7-722 and the 6 mA DC of IEC 62955).",
+    };
+
+    private readonly (Option<string?> Option, bool Fraction, Func<AssessmentOptions, double, AssessmentOptions> Apply)[] _thresholds;
+
+    public AssessmentOptionSet()
+    {
+        _thresholds =
+        [
+            (Threshold("--dc-threshold", "Smooth DC counted as present, e.g. 2mA (default: max(1 mA, 5 % of the worst-window RMS))."),
+                false, (o, v) => o with { DcThresholdA = v }),
+            (Threshold("--below-mains-threshold", "Sub-mains and non-harmonic content counted as a converter signature (default: max(1 mA, 10 % of RMS))."),
+                false, (o, v) => o with { BelowMainsThresholdA = v }),
+            (Threshold("--harmonic-threshold", "Harmonic content to 1 kHz counted as non-sinusoidal (default: max(1 mA, 50 % of the mains component))."),
+                false, (o, v) => o with { HarmonicThresholdA = v }),
+            (Threshold("--hf-threshold", "Content above 1 kHz counted as present, e.g. 3mA (default: max(1 mA, 10 % of RMS))."),
+                false, (o, v) => o with { HighFrequencyThresholdA = v }),
+            (Threshold("--type-a-dc", "Smooth DC a type A device tolerates (default 6mA, IEC 61008-1)."),
+                false, (o, v) => o with { TypeASmoothDcToleranceA = v }),
+            (Threshold("--type-f-dc", "Smooth DC a type F device tolerates (default 10mA, IEC 62423)."),
+                false, (o, v) => o with { TypeFSmoothDcToleranceA = v }),
+            (Threshold("--rdc-dd", "DC threshold of an RDC-DD (default 6mA, IEC 62955)."),
+                false, (o, v) => o with { RdcDdThresholdA = v }),
+            (Threshold("--pulsating-share", "Share of windows (0 to 1) that must be pulsating DC to count (default 0.05)."),
+                true, (o, v) => o with { PulsatingShareThreshold = v }),
+            (Threshold("--leakage-budget", "Leakage budget as a fraction of IΔn (default 0.3, IEC 60364-5-53 §531.3.2)."),
+                true, (o, v) => o with { LeakageBudgetFraction = v }),
+            (Threshold("--risk-possible", "Nuisance risk 'possible' from this fraction of IΔn (default 0.3)."),
+                true, (o, v) => o with { PossibleRiskFraction = v }),
+            (Threshold("--risk-likely", "Nuisance risk 'likely' from this fraction of IΔn (default 0.5)."),
+                true, (o, v) => o with { LikelyRiskFraction = v }),
+        ];
+    }
+
+    private static Option<string?> Threshold(string name, string description) => new(name) { Description = description };
+
+    public void AddTo(Command command)
+    {
+        command.Options.Add(Rated);
+        command.Options.Add(Device);
+        command.Options.Add(Regime);
+        command.Options.Add(Ev);
+        foreach (var (option, _, _) in _thresholds)
+        {
+            command.Options.Add(option);
+        }
+    }
+
+    /// <summary>Parses the typed values once; checks ranges.</summary>
+    /// <exception cref="OptionValueException">A value cannot be parsed or is out of range.</exception>
+    public AssessmentOptions Read(ParseResult parse)
+    {
+        var ratedText = parse.GetValue(Rated) ?? "30mA";
+        var options = new AssessmentOptions { RatedResidualCurrentA = Quantity.ParseCurrentA("--rated", ratedText, bareUnit: "mA") };
+        if (parse.GetValue(Device) is { } deviceText)
+        {
+            options = DeviceTypeNames.TryParse(deviceText, out var type)
+                ? options with { InstalledType = type }
+                : throw new OptionValueException("--device", deviceText, "AC, A, F, B or B+");
+        }
+
+        var regimeText = parse.GetValue(Regime) ?? "iec";
+        options = RegimeNames.TryParse(regimeText, out var regime)
+            ? options with { Regime = regime }
+            : throw new OptionValueException("--regime", regimeText, "iec or na");
+        options = options with { EvChargingPoint = parse.GetValue(Ev) };
+
+        foreach (var (option, fraction, apply) in _thresholds)
+        {
+            if (parse.GetValue(option) is not { } text)
+            {
+                continue;
+            }
+
+            var value = fraction
+                ? double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out var f)
+                    ? f
+                    : throw new OptionValueException(option.Name, text, "a number such as 0.3")
+                : Quantity.ParseCurrentA(option.Name, text, bareUnit: "mA");
+            options = apply(options, value);
+        }
+
+        options.Validate();
+        return options;
+    }
+}
