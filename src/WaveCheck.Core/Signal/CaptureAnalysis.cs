@@ -458,13 +458,15 @@ public sealed class CaptureAnalysis
         }
 
         var belowPower = HarmonicGroups.BelowFundamental(power, _cycles);
-        var above1k = HarmonicGroups.Sum(power, (int)Math.Floor(1000 / resolution) + 1, power.Length - 1);
-        var above9k = HarmonicGroups.Sum(power, (int)Math.Floor(9000 / resolution) + 1, power.Length - 1);
+        // Edges are rounded to the nearest bin: with a tracked window one sample short (resolution 5.0005 Hz), a floor
+        // would put a 1 kHz tone's own bin (1000.1 Hz) "above 1 kHz".
+        var above1k = HarmonicGroups.Sum(power, (int)Math.Round(1000 / resolution) + 1, power.Length - 1);
+        var above9k = HarmonicGroups.Sum(power, (int)Math.Round(9000 / resolution) + 1, power.Length - 1);
         for (var b = 0; b < _bands.Length; b++)
         {
             var (low, high) = _bands[b];
-            var from = (int)Math.Floor(low / resolution) + 1;
-            var to = (int)Math.Floor(high / resolution);
+            var from = (int)Math.Round(low / resolution) + 1;
+            var to = (int)Math.Round(high / resolution);
             if (from >= power.Length)
             {
                 continue;
