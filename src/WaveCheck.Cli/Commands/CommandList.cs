@@ -9,6 +9,8 @@ internal static class CommandList
     {
         yield return InfoCommand.Create();
         yield return AnalyzeCommand.Create();
+        yield return SurveyCommand.Create();
         yield return SynthCommand.Create();
+        yield return DemoCommand.Create();
     }
 }
