@@ -48,6 +48,8 @@ internal sealed class AppliedThresholds
         Add("typeBSmoothDcFactor", Limits.TypeBSmoothDcFactor, "1", "IEC 62423 type B smooth DC upper limit 2 IΔn (std)");
         Add("pulsatingDcFactor", Limits.PulsatingDcFactor, "1", "IEC 61008-1 pulsating DC upper limit 1.4 IΔn (std)");
         Add("bPlusUpperLimitA", Limits.BPlusUpperLimitA, "A", "DIN VDE 0664-400 B+ upper limit 420 mA to 20 kHz (from memory)");
+        Add("sixPulseRippleShareOfDc", Limits.MultiPhaseRippleShareOfDc, "1",
+            "engineering choice: 6 × mains ripple of at least 2 % of the smooth DC reads as a three-phase bridge (closed form 4.0 %)");
         Add("harmonicRippleRatio", Limits.MultiPhaseRippleRatio, "1",
             "engineering choice: ripple above the mains component on smooth DC reads as multi-phase rectified");
         Add("nonMainsDominanceRatio", Limits.NonMainsDominanceRatio, "1",

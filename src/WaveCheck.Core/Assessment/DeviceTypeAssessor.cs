@@ -39,7 +39,7 @@ public static class DeviceTypeAssessor
         var dcKnown = m.Coupling == SensorCoupling.Dc || (m.Coupling == SensorCoupling.Unknown && (dcSeen || pulsating));
         var hfCovered = m.SampleRateHz >= Limits.BPlusMinimumSampleRateHz;
 
-        var findings = Findings(m, th, pulsating, dcKnown, out var hfSeen);
+        var findings = Findings(m, th, pulsating, dcKnown, options.EvChargingPoint, out var hfSeen);
         var verdicts = new List<TypeVerdict>(AllTypes.Length);
         foreach (var t in AllTypes)
         {
@@ -73,7 +73,22 @@ public static class DeviceTypeAssessor
     /// <summary>A measured fact that rules out (definite) or may rule out (open) every type up to <paramref name="Exceeds"/>.</summary>
     private sealed record Finding(DeviceType Exceeds, string Text, bool Definite);
 
-    private static List<Finding> Findings(MeasuredFigures m, AppliedThresholds th, bool pulsating, bool dcKnown, out bool hfSeen)
+    /// <summary>RMS of the harmonic at 6 × mains, amperes; null when the spectrum does not reach it.</summary>
+    private static double? SixPulseRippleA(MeasuredFigures m)
+    {
+        foreach (var (frequencyHz, rmsA) in m.HarmonicsTo1k)
+        {
+            if (Math.Abs(frequencyHz - (6 * m.MainsHz)) < m.MainsHz / 2)
+            {
+                return rmsA;
+            }
+        }
+
+        return null;
+    }
+
+    private static List<Finding> Findings(MeasuredFigures m, AppliedThresholds th, bool pulsating, bool dcKnown,
+        bool evChargingPoint, out bool hfSeen)
     {
         var f = new List<Finding>();
         var dc = Ma(m.SmoothDcA);
@@ -90,6 +105,21 @@ public static class DeviceTypeAssessor
         if (m.SmoothDcA > th.TypeFDcA)
         {
             f.Add(new(DeviceType.F, $"smooth DC {dc} exceeds the {Ma(th.TypeFDcA)} that type F tolerates (IEC 62423)", true));
+        }
+
+        // IEC 60364-7-722: a charging point's device is type B, or type A with an RDC-DD, once smooth DC of 6 mA or
+        // more cannot be ruled out; type F is not among the choices, so DC within F's tolerance does not make F enough.
+        if (evChargingPoint && m.SmoothDcA >= th.RdcDdA && m.SmoothDcA <= th.TypeFDcA)
+        {
+            f.Add(new(DeviceType.F, $"charging point with smooth DC {dc} ≥ {Ma(th.RdcDdA)}: IEC 60364-7-722 asks for type B, or type A with an RDC-DD (IEC 62955), which would disconnect at this DC; type F is not one of its choices", true));
+        }
+
+        // A three-phase bridge leaves smooth DC with ripple at 6 × mains (closed form: 4.0 % of the mean, RMS) and no
+        // own fundamental; a fault on it gives smooth DC, which only type B detects (IEC 60364-5-53 guidance).
+        if (!pulsating && dcKnown && m.SmoothDcA >= th.DcA && SixPulseRippleA(m) is { } ripple &&
+            ripple >= Math.Max(Limits.MultiPhaseRippleFloorA, Limits.MultiPhaseRippleShareOfDc * m.SmoothDcA))
+        {
+            f.Add(new(DeviceType.F, $"ripple {Ma(ripple)} at 6 × mains ({6 * m.MainsHz:0} Hz) on smooth DC {dc} (≥ {Limits.MultiPhaseRippleShareOfDc * 100:0} % of it, engineering choice): rectified current from a three-phase bridge, which type B adds (IEC 62423)", true));
         }
 
         if (pulsating)

@@ -147,6 +147,18 @@ public static class Limits
     /// (IEC 60364-5-53 guidance).</remarks>
     public const double MultiPhaseRippleRatio = 1.0;
 
+    /// <summary>Smooth DC with ripple at 6 × mains of at least this share of the DC (RMS of the ripple over the DC)
+    /// reads as a three-phase bridge's output, which demands type B: 0.02.</summary>
+    /// <remarks>Engineering choice: the six-pulse bridge's 6th-harmonic ripple is 2/35 of its mean in amplitude, 4.0 %
+    /// in RMS (closed form of the bridge rectifier); half of that leaves room for a smoothed or partly loaded bridge
+    /// while staying far above the 6th harmonic a single-phase load leaves on a DC offset (even harmonics are small in
+    /// a symmetrical supply).</remarks>
+    public const double MultiPhaseRippleShareOfDc = 0.02;
+
+    /// <summary>Least ripple RMS at 6 × mains that counts for <see cref="MultiPhaseRippleShareOfDc"/>: 0.1 mA
+    /// (engineering choice: above a DC-coupled clamp's noise floor).</summary>
+    public const double MultiPhaseRippleFloorA = 0.0001;
+
     /// <summary>Pulsating DC counts as present when the analysis flags the capture so, or at least this share of
     /// windows is pulsating: 0.05.</summary>
     /// <remarks>Engineering choice: a load that runs phase-controlled for one minute in twenty still needs a device
