@@ -73,18 +73,29 @@ public static class DeviceTypeAssessor
     /// <summary>A measured fact that rules out (definite) or may rule out (open) every type up to <paramref name="Exceeds"/>.</summary>
     private sealed record Finding(DeviceType Exceeds, string Text, bool Definite);
 
-    /// <summary>RMS of the harmonic at 6 × mains, amperes; null when the spectrum does not reach it.</summary>
+    /// <summary>
+    /// RMS of the harmonic at 6 × mains, amperes, when it stands out as a six-pulse bridge's ripple: at least
+    /// <see cref="Limits.MultiPhaseRippleContrast"/> times every other harmonic from order 2 to 7 (a six-pulse
+    /// bridge has only orders 6k, closed form); null otherwise or when the spectrum does not reach it.
+    /// </summary>
     private static double? SixPulseRippleA(MeasuredFigures m)
     {
+        double? sixth = null;
+        var others = 0.0;
         foreach (var (frequencyHz, rmsA) in m.HarmonicsTo1k)
         {
-            if (Math.Abs(frequencyHz - (6 * m.MainsHz)) < m.MainsHz / 2)
+            var order = (int)Math.Round(frequencyHz / m.MainsHz);
+            if (order == 6)
             {
-                return rmsA;
+                sixth = rmsA;
+            }
+            else if (order is >= 2 and <= 7)
+            {
+                others = Math.Max(others, rmsA);
             }
         }
 
-        return null;
+        return sixth is { } r && r >= Limits.MultiPhaseRippleContrast * others ? r : null;
     }
 
     private static List<Finding> Findings(MeasuredFigures m, AppliedThresholds th, bool pulsating, bool dcKnown,

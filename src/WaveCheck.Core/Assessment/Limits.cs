@@ -159,6 +159,11 @@ public static class Limits
     /// (engineering choice: above a DC-coupled clamp's noise floor).</summary>
     public const double MultiPhaseRippleFloorA = 0.0001;
 
+    /// <summary>How far the 6th harmonic must stand above harmonics 2 to 5 and 7 to read as a six-pulse bridge: 3.
+    /// Engineering choice: the bridge has only orders 6k (closed form), while spectral leakage of a drive's motor
+    /// frequency or a distorted leakage current spreads over neighbouring orders alike.</summary>
+    public const double MultiPhaseRippleContrast = 3.0;
+
     /// <summary>Pulsating DC counts as present when the analysis flags the capture so, or at least this share of
     /// windows is pulsating: 0.05.</summary>
     /// <remarks>Engineering choice: a load that runs phase-controlled for one minute in twenty still needs a device
