@@ -6,7 +6,7 @@ namespace WaveCheck.Core.Assessment;
 /// divided by this factor is the mains-frequency current the device "feels"; the nuisance-trip margin uses it.
 /// </summary>
 /// <remarks>
-/// <para>Model (each choice documented in docs/methods-assessment.md):</para>
+/// <para>Model (each choice documented in docs/methods.md (Part II)):</para>
 /// <list type="bullet">
 /// <item>Types F, B, B+ at AC from mains to 1 kHz: the IEC 62423 §5.3 upper tripping limits (2.4 IΔn at 150 Hz,
 /// 6 at 400 Hz, 14 at 1 kHz, from memory) relative to 1 IΔn at mains, linearly interpolated in log-frequency.
