@@ -1,0 +1,22 @@
+#!/usr/bin/env bash
+# Runs every test of WaveCheck. Some tests check against outside references that are not .NET packages:
+# headless Chromium (the HTML report), DejaVu fonts (plots), Debian's numpy and scipy (spectra, filter responses).
+# They are installed from Debian's packages when missing (needs root or sudo).
+set -euo pipefail
+cd "$(dirname "$0")/.."
+
+need=()
+command -v chromium >/dev/null 2>&1 || need+=(chromium)
+[ -e /usr/share/fonts/truetype/dejavu/DejaVuSans.ttf ] || need+=(fonts-dejavu-core)
+/usr/bin/python3 -c 'import numpy, scipy' >/dev/null 2>&1 || need+=(python3-numpy python3-scipy)
+if [ ${#need[@]} -gt 0 ]; then
+  echo "installing test prerequisites: ${need[*]}" >&2
+  sudo=""
+  [ "$(id -u)" -eq 0 ] || sudo="sudo"
+  export DEBIAN_FRONTEND=noninteractive
+  $sudo apt-get update -qq
+  $sudo apt-get install -y -qq --no-install-recommends "${need[@]}"
+fi
+
+export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1
+dotnet test WaveCheck.sln -c Release
