@@ -24,6 +24,97 @@ public static class WaveCheckCommand
     {
         var root = Build();
         var parse = root.Parse(args);
+        if (!AsksForHelp(args) && UnknownOption(parse, args) is { } unknown)
+        {
+            Console.Error.WriteLine(UsageLine(parse, unknown));
+            return CliRun.BadInput;
+        }
+
+        if (parse.Errors.Count > 0 && !AsksForHelp(args))
+        {
+            if (args.Length == 0)
+            {
+                root.Parse(["--help"]).Invoke();
+                return CliRun.BadInput;
+            }
+
+            Console.Error.WriteLine(UsageLine(parse));
+            return CliRun.BadInput;
+        }
+
         return parse.Invoke(new InvocationConfiguration { EnableDefaultExceptionHandler = false });
+    }
+
+    private static bool AsksForHelp(string[] args) => args.Any(a => a is "--help" or "-h" or "-?");
+
+    /// <summary>A token that looks like an option but is none of the command's, even where an argument would swallow it.</summary>
+    private static string? UnknownOption(ParseResult parse, string[] args)
+    {
+        var command = parse.CommandResult.Command;
+        var known = command.Options.SelectMany(o => o.Aliases.Append(o.Name)).ToHashSet(StringComparer.Ordinal);
+        foreach (var arg in args)
+        {
+            if (arg == "--")
+            {
+                break;
+            }
+
+            var name = arg.Split('=', 2)[0];
+            if (name.StartsWith("--", StringComparison.Ordinal) && !known.Contains(name) && name != "--version")
+            {
+                return name;
+            }
+        }
+
+        return null;
+    }
+
+    /// <summary>One line for a usage error: the first problem, the nearest option or command where one was mistyped, and where help is.</summary>
+    internal static string UsageLine(ParseResult parse, string? unknownOption = null)
+    {
+        var command = parse.CommandResult.Command;
+        var path = command is RootCommand ? "wavecheck" : $"wavecheck {command.Name}";
+        var unmatched = unknownOption ?? parse.UnmatchedTokens.FirstOrDefault();
+        if (unmatched is not null)
+        {
+            var candidates = unmatched.StartsWith('-')
+                ? command.Options.SelectMany(o => o.Aliases.Append(o.Name))
+                : command.Subcommands.Select(c => c.Name);
+            var nearest = candidates
+                .Select(c => (Name: c, Distance: Distance(unmatched, c)))
+                .Where(c => c.Distance <= Math.Max(2, unmatched.Length / 3))
+                .OrderBy(c => c.Distance)
+                .Select(c => c.Name)
+                .FirstOrDefault();
+            var hint = nearest is null ? "" : $"; did you mean '{nearest}'?";
+            return $"wavecheck: {path}: unknown option or argument '{unmatched}'{hint} (see '{path} --help')";
+        }
+
+        return $"wavecheck: {path}: {parse.Errors[0].Message} (see '{path} --help')";
+    }
+
+    /// <summary>Levenshtein distance, for suggesting the option a user meant.</summary>
+    private static int Distance(string a, string b)
+    {
+        var previous = new int[b.Length + 1];
+        var current = new int[b.Length + 1];
+        for (var j = 0; j <= b.Length; j++)
+        {
+            previous[j] = j;
+        }
+
+        for (var i = 1; i <= a.Length; i++)
+        {
+            current[0] = i;
+            for (var j = 1; j <= b.Length; j++)
+            {
+                var cost = char.ToLowerInvariant(a[i - 1]) == char.ToLowerInvariant(b[j - 1]) ? 0 : 1;
+                current[j] = Math.Min(Math.Min(current[j - 1] + 1, previous[j] + 1), previous[j - 1] + cost);
+            }
+
+            (previous, current) = (current, previous);
+        }
+
+        return previous[b.Length];
     }
 }

@@ -1,0 +1,106 @@
+using System.Text.Json;
+
+namespace WaveCheck.Cli.Tests;
+
+/// <summary><c>wavecheck survey</c> and <c>wavecheck demo</c> end to end, and usage errors of every command.</summary>
+[Collection(ConsoleCollection.Name)]
+public sealed class SurveyCommandTests : IDisposable
+{
+    private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));
+
+    public SurveyCommandTests() => Directory.CreateDirectory(_folder);
+
+    public void Dispose() => Directory.Delete(_folder, recursive: true);
+
+    private string FilePath(string name) => Path.Combine(_folder, name);
+
+    private void Synth(string name, params string[] parts)
+    {
+        var (exit, _, error) = CliHarness.Run(["synth", .. parts, "-o", FilePath(name), "--duration", "1s"]);
+        Assert.True(exit == 0, error);
+    }
+
+    [Fact]
+    public void A_bad_capture_is_isolated_in_its_row_and_the_rest_are_judged()
+    {
+        // IEC 60364-5-53 §531.3.3: a dimmer's pulsating DC needs type A (AC not suitable); a sine needs type AC.
+        Synth("a-dimmer.wav", "halfwave:peak=20mA,angle=90");
+        Synth("b-sine.wav", "sine:rms=5mA");
+        File.WriteAllText(FilePath("c-broken.csv"), "time [s],I [mA]\n0,1\n0.001,abc\n");
+        var output = FilePath("out");
+        var (exit, stdout, error) = CliHarness.Run("survey", _folder, "--device", "AC", "-o", output, "--parquet");
+        Assert.True(exit == 0, error);
+        Assert.Contains("c-broken.csv", stdout, StringComparison.Ordinal);
+
+        using var doc = JsonDocument.Parse(File.ReadAllText(Path.Combine(output, "survey.json")));
+        var rows = doc.RootElement.GetProperty("rows").EnumerateArray().ToList();
+        Assert.Equal(3, rows.Count);
+        Assert.Equal("upgrade", rows[0].GetProperty("verdict").GetString());
+        Assert.Equal("A", rows[0].GetProperty("requiredType").GetString());
+        Assert.Equal("ok", rows[1].GetProperty("verdict").GetString());
+        Assert.Equal("error", rows[2].GetProperty("verdict").GetString());
+        Assert.Contains("abc", rows[2].GetProperty("error").GetString(), StringComparison.Ordinal);
+
+        Assert.Equal(4, File.ReadAllLines(Path.Combine(output, "survey.csv")).Length);
+        Assert.True(File.Exists(Path.Combine(output, "captures.parquet")));
+        Assert.True(File.Exists(Path.Combine(output, "windows.parquet")));
+        var index = File.ReadAllText(Path.Combine(output, "index.html"));
+        Assert.Contains("reports/a-dimmer.html", index, StringComparison.Ordinal);
+        Assert.True(File.Exists(Path.Combine(output, "reports", "a-dimmer.html")));
+
+        Assert.Equal(1, CliHarness.Run("survey", _folder, "--device", "AC", "-o", output, "--fail-on", "upgrade").Exit);
+        Assert.Equal(1, CliHarness.Run("survey", _folder, "--device", "A", "-o", output, "--fail-on", "error").Exit);
+    }
+
+    [Fact]
+    public void A_site_file_error_names_its_line_and_column()
+    {
+        var config = FilePath("site.json");
+        File.WriteAllText(config, "{\n  \"site\": \"Harbour Clinic\",\n  \"captures\": [ { \"file\": \"x.wav\", \"device\": \"Q\" } ]\n}\n");
+        var (exit, _, error) = CliHarness.Run("survey", "--config", config, "-o", FilePath("out"));
+        Assert.Equal(2, exit);
+        Assert.Contains("site.json:3:", error, StringComparison.Ordinal);
+        Assert.Single(error.TrimEnd().Split('\n'));
+    }
+
+    [Fact]
+    public void Demo_runs_the_bundled_site()
+    {
+        // samples/README.md states what each demo circuit should show; the survey must agree with it.
+        var output = FilePath("demo");
+        var (exit, stdout, error) = CliHarness.Run("demo", "-o", output, "-q");
+        Assert.True(exit == 0, error);
+        Assert.Contains("Fernbrook Joinery", stdout, StringComparison.Ordinal);
+        using var doc = JsonDocument.Parse(File.ReadAllText(Path.Combine(output, "survey.json")));
+        var required = doc.RootElement.GetProperty("rows").EnumerateArray()
+            .ToDictionary(r => Path.GetFileName(r.GetProperty("file").GetString()!), r => r.GetProperty("requiredType").GetString());
+        Assert.Equal("B+", required["c1-panel-saw-drive.wav"]);
+        Assert.Equal("F", required["c2-extractor-fan.wav"]);
+        Assert.Equal("A", required["c3-ev-bay1.wav"]);
+        Assert.Equal("B", required["c4-ev-bay2.wav"]);
+        Assert.Equal("F", required["c5-heat-pump.wav"]);
+        Assert.Equal("A", required["c6-office-dimmers.csv"]);
+        Assert.Single(doc.RootElement.GetProperty("upstream").EnumerateArray());
+    }
+
+    [Theory]
+    [InlineData(new[] { "analyze", "x.wav", "--devise", "A" }, "did you mean '--device'")]
+    [InlineData(new[] { "anlyze" }, "did you mean 'analyze'")]
+    [InlineData(new[] { "info" }, "wavecheck info")]
+    [InlineData(new[] { "survey", "--parkett" }, "did you mean '--parquet'")]
+    public void Usage_errors_give_one_line_and_exit_2(string[] args, string expected)
+    {
+        var (exit, _, error) = CliHarness.Run(args);
+        Assert.Equal(2, exit);
+        Assert.Contains(expected, error, StringComparison.Ordinal);
+        Assert.Single(error.TrimEnd().Split('\n'));
+    }
+
+    [Fact]
+    public void Version_is_printed()
+    {
+        var (exit, stdout, _) = CliHarness.Run("--version");
+        Assert.Equal(0, exit);
+        Assert.Matches(@"^\d+\.\d+\.\d+", stdout.Trim());
+    }
+}
