@@ -119,13 +119,7 @@ internal sealed class ImportOptionSet
             sum = names;
         }
 
-        var sensor = sensorText.Trim().ToLowerInvariant() switch
-        {
-            "dc" => SensorCoupling.Dc,
-            "ac" => SensorCoupling.Ac,
-            "unknown" => SensorCoupling.Unknown,
-            _ => throw new OptionValueException("--sensor", sensorText, "dc, ac or unknown"),
-        };
+        var sensor = SensorCouplingNames.Parse("--sensor", sensorText);
 
         return new ImportOptions
         {

@@ -1,5 +1,6 @@
 using System.CommandLine;
 using WaveCheck.Cli.Commands;
+using WaveCheck.Core;
 
 namespace WaveCheck.Cli;
 
@@ -80,41 +81,11 @@ public static class WaveCheckCommand
             var candidates = unmatched.StartsWith('-')
                 ? command.Options.SelectMany(o => o.Aliases.Append(o.Name))
                 : command.Subcommands.Select(c => c.Name);
-            var nearest = candidates
-                .Select(c => (Name: c, Distance: Distance(unmatched, c)))
-                .Where(c => c.Distance <= Math.Max(2, unmatched.Length / 3))
-                .OrderBy(c => c.Distance)
-                .Select(c => c.Name)
-                .FirstOrDefault();
+            var nearest = NearestName.Find(unmatched, candidates);
             var hint = nearest is null ? "" : $"; did you mean '{nearest}'?";
             return $"wavecheck: {path}: unknown option or argument '{unmatched}'{hint} (see '{path} --help')";
         }
 
         return $"wavecheck: {path}: {parse.Errors[0].Message} (see '{path} --help')";
-    }
-
-    /// <summary>Levenshtein distance, for suggesting the option a user meant.</summary>
-    private static int Distance(string a, string b)
-    {
-        var previous = new int[b.Length + 1];
-        var current = new int[b.Length + 1];
-        for (var j = 0; j <= b.Length; j++)
-        {
-            previous[j] = j;
-        }
-
-        for (var i = 1; i <= a.Length; i++)
-        {
-            current[0] = i;
-            for (var j = 1; j <= b.Length; j++)
-            {
-                var cost = char.ToLowerInvariant(a[i - 1]) == char.ToLowerInvariant(b[j - 1]) ? 0 : 1;
-                current[j] = Math.Min(Math.Min(current[j - 1] + 1, previous[j] + 1), previous[j - 1] + cost);
-            }
-
-            (previous, current) = (current, previous);
-        }
-
-        return previous[b.Length];
     }
 }

@@ -46,7 +46,7 @@ internal static class SurveyCommand
                 InstalledType = parse.GetValue(device) is { } d
                     ? DeviceTypeNames.TryParse(d, out var t) ? t : throw new OptionValueException("--device", d, "AC, A, F, B or B+")
                     : null,
-                Sensor = parse.GetValue(sensor) is { } s ? ParseSensor(s) : null,
+                Sensor = parse.GetValue(sensor) is { } s ? SensorCouplingNames.Parse("--sensor", s) : null,
                 ScaleA = parse.GetValue(scale) is { } sc ? Quantity.ParseCurrentA("--scale", sc) : null,
                 Regime = parse.GetValue(regime) is { } rg
                     ? RegimeNames.TryParse(rg, out _) ? rg.Trim().ToLowerInvariant() : throw new OptionValueException("--regime", rg, "iec or na")
@@ -210,13 +210,6 @@ internal static class SurveyCommand
         return result;
     }
 
-    private static SensorCoupling ParseSensor(string text) => text.Trim().ToLowerInvariant() switch
-    {
-        "dc" => SensorCoupling.Dc,
-        "ac" => SensorCoupling.Ac,
-        "unknown" => SensorCoupling.Unknown,
-        _ => throw new OptionValueException("--sensor", text, "dc, ac or unknown"),
-    };
 
     private sealed class SurveyProgress(Action<(int Done, int Total)> report) : IProgress<(int Done, int Total)>
     {

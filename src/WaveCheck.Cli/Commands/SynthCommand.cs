@@ -50,7 +50,7 @@ internal static class SynthCommand
                 throw new OptionValueException("--duration", parse.GetValue(duration)!, "a positive duration of at most 4e9 samples");
             }
 
-            var sensorCoupling = ParseSensor(parse.GetValue(sensor)!);
+            var sensorCoupling = SensorCouplingNames.Parse("--sensor", parse.GetValue(sensor)!);
             var components = parse.GetValue(parts)!.SelectMany(p => SynthesisSpec.Parse(p, mainsHz)).ToList();
             var path = parse.GetValue(output)!;
             var extension = Path.GetExtension(path).ToLowerInvariant();
@@ -137,13 +137,5 @@ internal static class SynthCommand
         "float32" => WavSampleFormat.Float32,
         "float64" => WavSampleFormat.Float64,
         _ => throw new OptionValueException("--format", text, "pcm16, pcm24, pcm32, float32 or float64"),
-    };
-
-    private static SensorCoupling ParseSensor(string text) => text.Trim().ToLowerInvariant() switch
-    {
-        "dc" => SensorCoupling.Dc,
-        "ac" => SensorCoupling.Ac,
-        "unknown" => SensorCoupling.Unknown,
-        _ => throw new OptionValueException("--sensor", text, "dc, ac or unknown"),
     };
 }

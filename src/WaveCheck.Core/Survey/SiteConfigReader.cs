@@ -539,47 +539,7 @@ public static class SiteConfigReader
 
         private static string Quote(IEnumerable<string> names) => string.Join(", ", names.Select(n => $"\"{n}\""));
 
-        /// <summary>The known key closest in edit distance, when it is close enough to be a slip (at most a third of
-        /// its length, at least 1, differs); null otherwise.</summary>
-        internal static string? Nearest(string key, string[] known)
-        {
-            string? best = null;
-            var bestDistance = int.MaxValue;
-            foreach (var candidate in known)
-            {
-                var distance = Levenshtein(key.ToLowerInvariant(), candidate);
-                if (distance < bestDistance)
-                {
-                    best = candidate;
-                    bestDistance = distance;
-                }
-            }
-
-            return best is not null && bestDistance <= Math.Max(1, best.Length / 3 + 1) ? best : null;
-        }
-
-        private static int Levenshtein(string a, string b)
-        {
-            var previous = new int[b.Length + 1];
-            var current = new int[b.Length + 1];
-            for (var j = 0; j <= b.Length; j++)
-            {
-                previous[j] = j;
-            }
-
-            for (var i = 1; i <= a.Length; i++)
-            {
-                current[0] = i;
-                for (var j = 1; j <= b.Length; j++)
-                {
-                    var cost = a[i - 1] == b[j - 1] ? 0 : 1;
-                    current[j] = Math.Min(Math.Min(current[j - 1] + 1, previous[j] + 1), previous[j - 1] + cost);
-                }
-
-                (previous, current) = (current, previous);
-            }
-
-            return previous[b.Length];
-        }
+        /// <summary>The known key closest to a mistyped one; null when none is close.</summary>
+        internal static string? Nearest(string key, string[] known) => NearestName.Find(key, known);
     }
 }
