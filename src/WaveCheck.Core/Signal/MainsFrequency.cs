@@ -173,24 +173,54 @@ public static class MainsFrequency
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static (double Re, double Im) Correlate(ReadOnlySpan<double> x, double omega, int start, double mean)
     {
-        // Σ (x_n − mean) e^{−iω(start+n)} with a rotating phasor, re-anchored every 1024 samples against drift.
+        // Σ (x_n − mean) e^{−iω(start+n)} with four interleaved rotating phasors (n ≡ 0..3 mod 4, stepped by e^{−4iω}:
+        // independent chains the processor overlaps), re-anchored every 1024 samples against drift.
         double sumRe = 0, sumIm = 0;
-        var stepRe = Math.Cos(omega);
-        var stepIm = -Math.Sin(omega);
+        var stepRe = Math.Cos(4 * omega);
+        var stepIm = -Math.Sin(4 * omega);
+        Span<double> pr = stackalloc double[4];
+        Span<double> pi = stackalloc double[4];
         for (var block = 0; block < x.Length; block += 1024)
         {
-            var angle = -omega * (start + block);
-            var pr = Math.Cos(angle);
-            var pi = Math.Sin(angle);
-            var end = Math.Min(x.Length, block + 1024);
-            for (var n = block; n < end; n++)
+            for (var k = 0; k < 4; k++)
             {
+                var angle = -omega * (start + block + k);
+                pr[k] = Math.Cos(angle);
+                pi[k] = Math.Sin(angle);
+            }
+
+            double p0r = pr[0], p0i = pi[0], p1r = pr[1], p1i = pi[1], p2r = pr[2], p2i = pi[2], p3r = pr[3], p3i = pi[3];
+            double s0r = 0, s0i = 0, s1r = 0, s1i = 0, s2r = 0, s2i = 0, s3r = 0, s3i = 0;
+            var end = Math.Min(x.Length, block + 1024);
+            var n = block;
+            for (; n + 4 <= end; n += 4)
+            {
+                var v0 = x[n] - mean;
+                var v1 = x[n + 1] - mean;
+                var v2 = x[n + 2] - mean;
+                var v3 = x[n + 3] - mean;
+                s0r += v0 * p0r;
+                s0i += v0 * p0i;
+                s1r += v1 * p1r;
+                s1i += v1 * p1i;
+                s2r += v2 * p2r;
+                s2i += v2 * p2i;
+                s3r += v3 * p3r;
+                s3i += v3 * p3i;
+                (p0r, p0i) = ((p0r * stepRe) - (p0i * stepIm), (p0r * stepIm) + (p0i * stepRe));
+                (p1r, p1i) = ((p1r * stepRe) - (p1i * stepIm), (p1r * stepIm) + (p1i * stepRe));
+                (p2r, p2i) = ((p2r * stepRe) - (p2i * stepIm), (p2r * stepIm) + (p2i * stepRe));
+                (p3r, p3i) = ((p3r * stepRe) - (p3i * stepIm), (p3r * stepIm) + (p3i * stepRe));
+            }
+
+            sumRe += s0r + s1r + s2r + s3r;
+            sumIm += s0i + s1i + s2i + s3i;
+            for (; n < end; n++)
+            {
+                var angle = -omega * (start + n);
                 var v = x[n] - mean;
-                sumRe += v * pr;
-                sumIm += v * pi;
-                var t = (pr * stepRe) - (pi * stepIm);
-                pi = (pr * stepIm) + (pi * stepRe);
-                pr = t;
+                sumRe += v * Math.Cos(angle);
+                sumIm += v * Math.Sin(angle);
             }
         }
 
