@@ -66,7 +66,14 @@ internal sealed class Radix2Fft
 
         var width = Vector<double>.Count;
         var vectorised = Vector.IsHardwareAccelerated && n >= 2 * width;
-        for (var half = 1; half < n; half <<= 1)
+        var first = 1;
+        if (n >= 4)
+        {
+            FirstTwoStages(re, im);
+            first = 4;
+        }
+
+        for (var half = first; half < n; half <<= 1)
         {
             var size = half << 1;
             if (vectorised && half >= width && size < n)
@@ -122,6 +129,28 @@ internal sealed class Radix2Fft
                     im[a] += ti;
                 }
             }
+        }
+    }
+
+    /// <summary>The stages of half sizes 1 and 2 as one radix-4 pass (twiddles 1 and −i, so no multiplications).</summary>
+    private static void FirstTwoStages(Span<double> re, Span<double> im)
+    {
+        for (var i = 0; i + 3 < re.Length; i += 4)
+        {
+            double b0r = re[i] + re[i + 1], b0i = im[i] + im[i + 1];
+            double b1r = re[i] - re[i + 1], b1i = im[i] - im[i + 1];
+            double b2r = re[i + 2] + re[i + 3], b2i = im[i + 2] + im[i + 3];
+            double b3r = re[i + 2] - re[i + 3], b3i = im[i + 2] - im[i + 3];
+            re[i] = b0r + b2r;
+            im[i] = b0i + b2i;
+            re[i + 2] = b0r - b2r;
+            im[i + 2] = b0i - b2i;
+
+            // −i·b3 = (b3i, −b3r).
+            re[i + 1] = b1r + b3i;
+            im[i + 1] = b1i - b3r;
+            re[i + 3] = b1r - b3i;
+            im[i + 3] = b1i + b3r;
         }
     }
 
@@ -481,12 +510,7 @@ internal sealed class ComplexDft
         _fft.Forward(wr, wi);
         var kr = _kernelRe!;
         var ki = _kernelIm!;
-        for (var k = 0; k < wr.Length; k++)
-        {
-            var r = (wr[k] * kr[k]) - (wi[k] * ki[k]);
-            wi[k] = (wr[k] * ki[k]) + (wi[k] * kr[k]);
-            wr[k] = r;
-        }
+        MultiplyInPlace(wr, wi, kr, ki);
 
         _fft.InverseUnscaled(wr, wi);
         var scale = 1.0 / wr.Length;
@@ -496,6 +520,33 @@ internal sealed class ComplexDft
             var m = wi[k] * scale;
             re[k] = (r * cr[k]) - (m * ci[k]);
             im[k] = (r * ci[k]) + (m * cr[k]);
+        }
+    }
+    /// <summary>(ar + i·ai) ·= (br + i·bi), element-wise over whole vectors, then the tail.</summary>
+    private static void MultiplyInPlace(Span<double> ar, Span<double> ai, ReadOnlySpan<double> br, ReadOnlySpan<double> bi)
+    {
+        var k = 0;
+        if (Vector.IsHardwareAccelerated)
+        {
+            var vr = MemoryMarshal.Cast<double, Vector<double>>(ar);
+            var vai = MemoryMarshal.Cast<double, Vector<double>>(ai);
+            var vbr = MemoryMarshal.Cast<double, Vector<double>>(br);
+            var vbi = MemoryMarshal.Cast<double, Vector<double>>(bi);
+            for (var v = 0; v < vr.Length; v++)
+            {
+                var r = (vr[v] * vbr[v]) - (vai[v] * vbi[v]);
+                vai[v] = (vr[v] * vbi[v]) + (vai[v] * vbr[v]);
+                vr[v] = r;
+            }
+
+            k = vr.Length * Vector<double>.Count;
+        }
+
+        for (; k < ar.Length; k++)
+        {
+            var r = (ar[k] * br[k]) - (ai[k] * bi[k]);
+            ai[k] = (ar[k] * bi[k]) + (ai[k] * br[k]);
+            ar[k] = r;
         }
     }
 }
