@@ -1,5 +1,6 @@
 // Core-level benchmark of the analysis engine: a synthetic capture generated block by block (no file, no reader),
-// so the figures are the engine's own. Usage: dotnet run -c Release -- [minutes=10] [rateHz=50000]
+// so the figures are the engine's own. Usage: dotnet run -c Release -- [minutes=10] [rateHz=50000]; WORKERS=n sets
+// AnalysisOptions.WorkerCount (default the processor count; 1 measures windows on the calling thread).
 using System.Diagnostics;
 using System.Globalization;
 using WaveCheck.Core.Capture;
@@ -31,7 +32,8 @@ Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
 static WaveCheck.Core.Results.AnalysisResult Run(long samples, double rate)
 {
     using var source = new SyntheticSource(samples, rate);
-    return Analyzer.Analyze(source, new AnalysisOptions());
+    var workers = Environment.GetEnvironmentVariable("WORKERS") is { } text ? int.Parse(text, CultureInfo.InvariantCulture) : Environment.ProcessorCount;
+    return Analyzer.Analyze(source, new AnalysisOptions { WorkerCount = workers });
 }
 
 /// <summary>A phase-controlled half-wave at 49.95 Hz on 4 mA smooth DC, a 16 kHz switching tone and noise: 20 s
