@@ -133,6 +133,7 @@ internal sealed class Radix2Fft
     }
 
     /// <summary>The stages of half sizes 1 and 2 as one radix-4 pass (twiddles 1 and −i, so no multiplications).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void FirstTwoStages(Span<double> re, Span<double> im)
     {
         for (var i = 0; i + 3 < re.Length; i += 4)
@@ -282,12 +283,17 @@ internal sealed class MixedRadixFft
             }
         }
 
-        _rootRe = new double[_q];
-        _rootIm = new double[_q];
-        for (var j = 0; j < _q; j++)
+        // The q-point DFT matrix, entry [k1·q + n1] = W_q^{n1·k1}.
+        _rootRe = new double[_q * _q];
+        _rootIm = new double[_q * _q];
+        for (var k1 = 0; k1 < _q; k1++)
         {
-            _rootRe[j] = Math.Cos(-2.0 * Math.PI * j / _q);
-            _rootIm[j] = Math.Sin(-2.0 * Math.PI * j / _q);
+            for (var n1 = 0; n1 < _q; n1++)
+            {
+                var j = n1 * k1 % _q;
+                _rootRe[(k1 * _q) + n1] = Math.Cos(-2.0 * Math.PI * j / _q);
+                _rootIm[(k1 * _q) + n1] = Math.Sin(-2.0 * Math.PI * j / _q);
+            }
         }
 
         _workRe = new double[length];
@@ -375,7 +381,7 @@ internal sealed class MixedRadixFft
                     var si = ti[0];
                     for (var n1 = 1; n1 < q; n1++)
                     {
-                        var j = n1 * k1 % q;
+                        var j = (k1 * q) + n1;
                         sr += (tr[n1] * _rootRe[j]) - (ti[n1] * _rootIm[j]);
                         si += (tr[n1] * _rootIm[j]) + (ti[n1] * _rootRe[j]);
                     }
@@ -407,7 +413,7 @@ internal sealed class MixedRadixFft
                 var si = si1[0];
                 for (var n1 = 1; n1 < q; n1++)
                 {
-                    var j = n1 * k1 % q;
+                    var j = (k1 * q) + n1;
                     sr += (sr1[n1] * _rootRe[j]) - (si1[n1] * _rootIm[j]);
                     si += (sr1[n1] * _rootIm[j]) + (si1[n1] * _rootRe[j]);
                 }
@@ -523,6 +529,7 @@ internal sealed class ComplexDft
         }
     }
     /// <summary>(ar + i·ai) ·= (br + i·bi), element-wise over whole vectors, then the tail.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void MultiplyInPlace(Span<double> ar, Span<double> ai, ReadOnlySpan<double> br, ReadOnlySpan<double> bi)
     {
         var k = 0;
@@ -632,7 +639,7 @@ public sealed class RealSpectrum
         var norm = 1.0 / ((double)n * n);
         for (var k = 0; k < BinCount; k++)
         {
-            var m = (n - k) % n;
+            var m = k == 0 ? 0 : n - k;
             var ar = 0.5 * (re[k] + re[m]);
             var ai = 0.5 * (im[k] - im[m]);
             var br = 0.5 * (im[k] + im[m]);
@@ -683,8 +690,9 @@ public sealed class RealSpectrum
         var ti = _twiddleIm!;
         for (var k = 0; k <= h; k++)
         {
-            var a = k % h;
-            var b = (h - k) % h;
+            // Z index k mod h and (h − k) mod h, without a division per bin.
+            var a = k == h ? 0 : k;
+            var b = k == 0 ? 0 : h - k;
             // E = (Z_a + conj Z_b)/2, O = (Z_a - conj Z_b)/(2i), X = E + W^k O.
             var er = 0.5 * (_re[a] + _re[b]);
             var ei = 0.5 * (_im[a] - _im[b]);
