@@ -52,8 +52,6 @@ internal sealed class Radix2Fft
     public void Forward(Span<double> re, Span<double> im)
     {
         var n = Length;
-        re = re[..n];
-        im = im[..n];
         for (var i = 0; i < n; i++)
         {
             var j = _reverse[i];
@@ -64,6 +62,20 @@ internal sealed class Radix2Fft
             }
         }
 
+        ForwardFromBitReversed(re, im);
+    }
+
+    /// <summary>Bit-reversal permutation: entry i is the index whose bits reversed give i.</summary>
+    public ReadOnlySpan<int> BitReversed => _reverse;
+
+    /// <summary><see cref="Forward"/> of values already placed in bit-reversed order (x_j at
+    /// <see cref="BitReversed"/>[j]), so a caller that gathers its input anyway saves the permutation pass.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void ForwardFromBitReversed(Span<double> re, Span<double> im)
+    {
+        var n = Length;
+        re = re[..n];
+        im = im[..n];
         var width = Vector<double>.Count;
         var vectorised = Vector.IsHardwareAccelerated && n >= 2 * width;
         var first = 1;
@@ -209,23 +221,6 @@ internal sealed class Radix2Fft
         }
     }
 
-    /// <summary>Inverse transform without the 1/n scale, in place: conj(F(conj x)).</summary>
-    public void InverseUnscaled(Span<double> re, Span<double> im)
-    {
-        Negate(im[..Length]);
-        Forward(re, im);
-        Negate(im[..Length]);
-    }
-
-    /// <summary>Negates every value in place (the conjugation of the inverse transforms).</summary>
-    internal static void Negate(Span<double> values)
-    {
-        for (var i = 0; i < values.Length; i++)
-        {
-            values[i] = -values[i];
-        }
-    }
-
     private static uint ReverseBits(uint v)
     {
         v = ((v >> 1) & 0x55555555u) | ((v & 0x55555555u) << 1);
@@ -336,18 +331,20 @@ internal sealed class MixedRadixFft
         var wr = _workRe;
         var wi = _workIm;
 
-        // x[q·n2 + n1] → column n1, then a 2^k FFT per column.
+        // x[q·n2 + n1] → column n1 in bit-reversed order, then a 2^k FFT per column.
+        var reverse = _fft.BitReversed;
         for (var n1 = 0; n1 < q; n1++)
         {
             var cr = wr.AsSpan(n1 * p, p);
             var ci = wi.AsSpan(n1 * p, p);
             for (var n2 = 0; n2 < p; n2++)
             {
-                cr[n2] = re[(q * n2) + n1];
-                ci[n2] = im[(q * n2) + n1];
+                var to = reverse[n2];
+                cr[to] = re[(q * n2) + n1];
+                ci[to] = im[(q * n2) + n1];
             }
 
-            _fft.Forward(cr, ci);
+            _fft.ForwardFromBitReversed(cr, ci);
         }
 
         // X[k2 + p·k1] = Σ_n1 W_q^{n1·k1} · W_M^{n1·k2} · C_n1[k2].
@@ -422,14 +419,6 @@ internal sealed class MixedRadixFft
                 im[(k1 * p) + k2] = si;
             }
         }
-    }
-
-    /// <summary>Inverse transform without the 1/n scale, in place: conj(F(conj x)).</summary>
-    public void InverseUnscaled(Span<double> re, Span<double> im)
-    {
-        Radix2Fft.Negate(im[..Length]);
-        Forward(re, im);
-        Radix2Fft.Negate(im[..Length]);
     }
 }
 
@@ -516,21 +505,22 @@ internal sealed class ComplexDft
         _fft.Forward(wr, wi);
         var kr = _kernelRe!;
         var ki = _kernelIm!;
-        MultiplyInPlace(wr, wi, kr, ki);
-
-        _fft.InverseUnscaled(wr, wi);
+        // Inverse transform as conj(F(conj w)): the conjugations folded into the product and the last loop.
+        MultiplyConjugateInPlace(wr, wi, kr, ki);
+        _fft.Forward(wr, wi);
         var scale = 1.0 / wr.Length;
         for (var k = 0; k < n; k++)
         {
             var r = wr[k] * scale;
-            var m = wi[k] * scale;
+            var m = -wi[k] * scale;
             re[k] = (r * cr[k]) - (m * ci[k]);
             im[k] = (r * ci[k]) + (m * cr[k]);
         }
     }
-    /// <summary>(ar + i·ai) ·= (br + i·bi), element-wise over whole vectors, then the tail.</summary>
+
+    /// <summary>(ar + i·ai) = conj((ar + i·ai)·(br + i·bi)), element-wise over whole vectors, then the tail.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void MultiplyInPlace(Span<double> ar, Span<double> ai, ReadOnlySpan<double> br, ReadOnlySpan<double> bi)
+    private static void MultiplyConjugateInPlace(Span<double> ar, Span<double> ai, ReadOnlySpan<double> br, ReadOnlySpan<double> bi)
     {
         var k = 0;
         if (Vector.IsHardwareAccelerated)
@@ -542,7 +532,7 @@ internal sealed class ComplexDft
             for (var v = 0; v < vr.Length; v++)
             {
                 var r = (vr[v] * vbr[v]) - (vai[v] * vbi[v]);
-                vai[v] = (vr[v] * vbi[v]) + (vai[v] * vbr[v]);
+                vai[v] = -((vr[v] * vbi[v]) + (vai[v] * vbr[v]));
                 vr[v] = r;
             }
 
@@ -552,7 +542,7 @@ internal sealed class ComplexDft
         for (; k < ar.Length; k++)
         {
             var r = (ar[k] * br[k]) - (ai[k] * bi[k]);
-            ai[k] = (ar[k] * bi[k]) + (ai[k] * br[k]);
+            ai[k] = -((ar[k] * bi[k]) + (ai[k] * br[k]));
             ar[k] = r;
         }
     }
