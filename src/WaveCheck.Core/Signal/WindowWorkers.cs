@@ -36,8 +36,8 @@ internal sealed class WindowSlot(int capacity)
 
 /// <summary>
 /// Measures the spectra and shapes of a batch of windows on worker threads while the caller reads on; each worker has
-/// its own plans and scratch. The work on a window depends only on the batch (two consecutive odd windows of equal
-/// length share one complex transform), never on which thread does it, so the figures are the same for every worker
+/// its own plans and scratch. The work on a window depends only on the batch (two odd windows of equal length in it
+/// share one complex transform), never on which thread does it, so the figures are the same for every worker
 /// count. One batch in flight at a time; not thread-safe towards its caller.
 /// </summary>
 internal sealed class WindowWorkers
@@ -66,19 +66,30 @@ internal sealed class WindowWorkers
     public void Start(ReadOnlySpan<WindowSlot> batch)
     {
         Wait();
+        // An odd window shares its complex transform with the next unpaired odd window of the same length in the
+        // batch (an even one has its half-length transform alone).
         _jobs.Clear();
+        Span<bool> paired = stackalloc bool[batch.Length];
         for (var i = 0; i < batch.Length; i++)
         {
+            if (paired[i])
+            {
+                continue;
+            }
+
             var slot = batch[i];
-            if (slot.Length % 2 == 1 && i + 1 < batch.Length && batch[i + 1].Length == slot.Length)
+            WindowSlot? partner = null;
+            for (var j = i + 1; j < batch.Length && slot.Length % 2 == 1; j++)
             {
-                _jobs.Add((slot, batch[i + 1]));
-                i++;
+                if (!paired[j] && batch[j].Length == slot.Length)
+                {
+                    paired[j] = true;
+                    partner = batch[j];
+                    break;
+                }
             }
-            else
-            {
-                _jobs.Add((slot, null));
-            }
+
+            _jobs.Add((slot, partner));
         }
 
         if (_tools.Length == 1)
