@@ -1,21 +1,27 @@
 #!/usr/bin/env bash
-# Times `wavecheck analyze` on a generated 10-minute, 50 kS/s float32 WAV (wall time, peak RSS, samples/s), then the
-# engine alone (bench/AnalyzeBench: synthetic capture, no file reading).
+# Times `wavecheck analyze` (the real CLI reading a real WAV) on a generated 10-minute, 50 kS/s float32 WAV: wall time,
+# CPU time (user + system: other processes may share the machine) and peak RSS, median of 3 runs; then the peak RSS on a
+# 1-hour capture (memory must not grow with the capture's length); then the engine alone (bench/AnalyzeBench:
+# synthetic capture, no file reading) and its per-stage costs.
 # Targets: >= 50 million samples/s through the whole analysis (a 10-minute 50 kS/s capture in < 1 s after start-up),
-# peak memory < 200 MB. Generated data goes to $BENCH_DIR (default /tmp/wavecheck-bench) and is not committed.
+# peak memory < 200 MB whatever the length. Generated data goes to $BENCH_DIR (default /tmp/wavecheck-bench) and is
+# not committed. MINUTES (default 10) sets the timed capture, LONG_MINUTES (default 60; 0 to skip) the memory one.
 set -euo pipefail
 here="$(cd "$(dirname "$0")" && pwd)"
 root="$(cd "$here/.." && pwd)"
 out="${BENCH_DIR:-/tmp/wavecheck-bench}"
 minutes="${MINUTES:-10}"
+long_minutes="${LONG_MINUTES:-60}"
 rate=50000
 mkdir -p "$out"
-wav="$out/analyze-${minutes}min-50k.wav"
 
-if [[ ! -f "$wav" ]]; then
-  # Invented scenario: a workshop dimmer (phase-controlled half-wave at 49.97 Hz) on 4 mA smooth DC, a 16 kHz drive
-  # switching tone and noise; float32 mono, values in amperes (full scale 1.0 = 1 A).
-  /usr/bin/python3 - "$wav" "$minutes" "$rate" <<'PY'
+# make_wav MINUTES: writes $out/analyze-<MINUTES>min-50k.wav unless it exists, and prints its path.
+make_wav() {
+  local wav="$out/analyze-$1min-50k.wav"
+  if [[ ! -f "$wav" ]]; then
+    # Invented scenario: a workshop dimmer (phase-controlled half-wave at 49.97 Hz) on 4 mA smooth DC, a 16 kHz drive
+    # switching tone and noise; float32 mono, values in amperes (full scale 1.0 = 1 A).
+  /usr/bin/python3 - "$wav.part" "$1" "$rate" <<'PY'
 import struct
 import sys
 import numpy as np
@@ -35,24 +41,57 @@ with open(path, "wb") as f:
         x = 0.004 + np.where((theta >= 1.2) & (theta < np.pi), 0.03 * np.sin(theta), 0.0)
         x += 0.002 * np.sin(2 * np.pi * 16000 * t) + 0.0002 * rng.standard_normal(len(i))
         f.write(x.astype("<f4").tobytes())
-print(f"wrote {path}: {n} samples")
+print(f"wrote {path}: {n} samples", file=sys.stderr)
 PY
-fi
+    mv "$wav.part" "$wav"
+  fi
+  echo "$wav"
+}
 
 dotnet build "$root/src/WaveCheck.Cli" -c Release -v q -nologo > /dev/null
 dotnet build "$here/AnalyzeBench" -c Release -v q -nologo > /dev/null
-cli="$root/src/WaveCheck.Cli/bin/Release/net10.0/wavecheck"
-samples=$(( ${minutes%.*} * 60 * rate ))
+cli="$root/src/WaveCheck.Cli/bin/Release/net10.0/wavecheck.dll"
 
-echo "== wavecheck analyze (whole pipeline, includes process start-up)"
-if /usr/bin/time -v "$cli" analyze "$wav" --scale 1A --sensor dc --json "$out/analysis.json" > "$out/analyze.out" 2> "$out/time.txt"; then
-  wall=$(grep "Elapsed (wall clock)" "$out/time.txt" | awk '{print $NF}')
-  rss=$(grep "Maximum resident set size" "$out/time.txt" | awk '{print $NF}')
-  secs=$(echo "$wall" | awk -F: '{ if (NF==3) print $1*3600+$2*60+$3; else print $1*60+$2 }')
-  echo "wall ${wall} (${secs} s), peak RSS $((rss / 1024)) MB, $(awk -v n="$samples" -v s="$secs" 'BEGIN { printf "%.1f", n / s / 1e6 }') Msamples/s"
-else
-  echo "wavecheck analyze failed (is the WAV reader merged?):"
-  grep "^wavecheck:" "$out/time.txt" || tail -n 3 "$out/time.txt"
+# run_cli WAV: one timed `wavecheck analyze`; prints "wall_s cpu_s rss_mb".
+run_cli() {
+  if ! /usr/bin/time -v dotnet "$cli" analyze "$1" --scale 1A --sensor dc --json "$out/analysis.json" \
+      > "$out/analyze.out" 2> "$out/time.txt"; then
+    echo "wavecheck analyze failed:" >&2
+    grep "^wavecheck:" "$out/time.txt" >&2 || tail -n 3 "$out/time.txt" >&2
+    exit 1
+  fi
+  awk '/Elapsed \(wall clock\)/ { n = split($NF, p, ":"); wall = (n == 3) ? p[1] * 3600 + p[2] * 60 + p[3] : p[1] * 60 + p[2] }
+       /User time/ { user = $NF } /System time/ { sys = $NF } /Maximum resident set size/ { rss = $NF }
+       END { printf "%.2f %.2f %.0f\n", wall, user + sys, rss / 1024 }' "$out/time.txt"
+}
+
+wav="$(make_wav "$minutes")"
+samples=$(( ${minutes%.*} * 60 * rate ))
+echo "== wavecheck analyze, ${minutes} min at 50 kS/s float32 (whole pipeline, includes process start-up), 3 runs"
+runs=()
+for i in 1 2 3; do
+  runs+=("$(run_cli "$wav")")
+  echo "run $i: wall/CPU s, peak RSS MB: ${runs[-1]}"
+done
+median="$(printf '%s\n' "${runs[@]}" | sort -n | sed -n 2p)"
+echo "$median" | awk -v n="$samples" \
+  '{ printf "median: wall %.2f s (%.1f Msamples/s), CPU %.2f s (%.1f Msamples/s per CPU-second), peak RSS %d MB\n", $1, n / $1 / 1e6, $2, n / $2 / 1e6, $3 }'
+
+# After start-up: the same command on a 1-minute capture (start-up, JIT, console and JSON output cost about the same
+# for any length), so (10 min − 1 min) / (wall difference) is the rate of the analysis itself.
+short="$(make_wav 1)"
+short_runs=()
+for i in 1 2 3; do
+  short_runs+=("$(run_cli "$short")")
+done
+short_median="$(printf '%s\n' "${short_runs[@]}" | sort -n | sed -n 2p)"
+echo "$median $short_median" | awk -v n="$samples" -v m=$(( 60 * rate )) \
+  '{ printf "1 min: wall %.2f s, CPU %.2f s; after start-up: %.1f Msamples/s wall, %.1f Msamples/s per CPU-second\n", $4, $5, (n - m) / ($1 - $4) / 1e6, (n - m) / ($2 - $5) / 1e6 }'
+
+if [[ "$long_minutes" != 0 ]]; then
+  long="$(make_wav "$long_minutes")"
+  echo "== wavecheck analyze, ${long_minutes} min (memory must not grow with length)"
+  run_cli "$long" | awk '{ printf "wall %.2f s, CPU %.2f s, peak RSS %d MB\n", $1, $2, $3 }'
 fi
 
 echo "== engine only (bench/AnalyzeBench, synthetic capture, after warm-up)"

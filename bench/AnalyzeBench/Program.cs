@@ -1,9 +1,30 @@
 // Core-level benchmark of the analysis engine: a synthetic capture generated block by block (no file, no reader),
-// so the figures are the engine's own. Usage: dotnet run -c Release -- [minutes=10] [rateHz=50000]
+// so the figures are the engine's own. Usage: dotnet run -c Release -- [minutes=10] [rateHz=50000]; WORKERS=n sets
+// AnalysisOptions.WorkerCount (default the processor count; 1 measures windows on the calling thread).
 using System.Diagnostics;
 using System.Globalization;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Signal;
+
+if (args.Length > 1 && args[0] == "wav")
+{
+    // Cold, like the CLI: read the file alone, then read and analyse it, each timed (wall and CPU).
+    var import = new ImportOptions { ScaleA = 1, Sensor = SensorCoupling.Dc };
+    Timed("read only", () =>
+    {
+        using var source = CaptureOpener.Open(args[1], import);
+        var block = source.CreateBlock(Analyzer.BlockSamples);
+        while (source.Read(block))
+        {
+        }
+    });
+    Timed("read + analyse", () =>
+    {
+        using var source = CaptureOpener.Open(args[1], import);
+        Analyzer.Analyze(source, new AnalysisOptions());
+    });
+    return;
+}
 
 if (args.Length > 0 && args[0] == "stages")
 {
@@ -28,10 +49,20 @@ var cpuSeconds = (Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalSec
 Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
     $"samples {total}, windows {result.Windows.Count}, analysis {seconds:0.000} s wall ({total / seconds / 1e6:0.0} Msamples/s), {cpuSeconds:0.000} s CPU ({total / cpuSeconds / 1e6:0.0} Msamples/s), peak working set {peak / 1048576.0:0} MB (before {before / 1048576.0:0} MB), mains {result.Mains.FrequencyHz:0.000} Hz"));
 
+static void Timed(string name, Action action)
+{
+    var cpu = Process.GetCurrentProcess().TotalProcessorTime;
+    var watch = Stopwatch.StartNew();
+    action();
+    Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
+        $"{name,-16} {watch.Elapsed.TotalSeconds:0.000} s wall, {(Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalSeconds:0.000} s CPU"));
+}
+
 static WaveCheck.Core.Results.AnalysisResult Run(long samples, double rate)
 {
     using var source = new SyntheticSource(samples, rate);
-    return Analyzer.Analyze(source, new AnalysisOptions());
+    var workers = Environment.GetEnvironmentVariable("WORKERS") is { } text ? int.Parse(text, CultureInfo.InvariantCulture) : Environment.ProcessorCount;
+    return Analyzer.Analyze(source, new AnalysisOptions { WorkerCount = workers });
 }
 
 /// <summary>A phase-controlled half-wave at 49.95 Hz on 4 mA smooth DC, a 16 kHz switching tone and noise: 20 s

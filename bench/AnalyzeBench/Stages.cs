@@ -45,16 +45,24 @@ internal static class Stages
             action();
         }
 
-        var watch = Stopwatch.StartNew();
-        var cpu = Process.GetCurrentProcess().TotalProcessorTime;
-        const int runs = 500;
-        for (var i = 0; i < runs; i++)
+        // Best of 7 rounds of 100: other processes share the machine, and the least time is the stage's own.
+        var best = double.PositiveInfinity;
+        var bestCpu = double.PositiveInfinity;
+        const int runs = 100;
+        for (var round = 0; round < 7; round++)
         {
-            action();
+            var watch = Stopwatch.StartNew();
+            var cpu = Process.GetCurrentProcess().TotalProcessorTime;
+            for (var i = 0; i < runs; i++)
+            {
+                action();
+            }
+
+            best = Math.Min(best, watch.Elapsed.TotalMilliseconds * 1000 / runs);
+            bestCpu = Math.Min(bestCpu, (Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalMilliseconds * 1000 / runs);
         }
 
-        var used = Process.GetCurrentProcess().TotalProcessorTime - cpu;
         Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-            $"{name,-28} {watch.Elapsed.TotalMilliseconds * 1000 / runs,8:0.0} µs wall, {used.TotalMilliseconds * 1000 / runs,8:0.0} µs CPU per window"));
+            $"{name,-28} {best,8:0.0} µs wall, {bestCpu,8:0.0} µs CPU per window (best of 7 rounds)"));
     }
 }

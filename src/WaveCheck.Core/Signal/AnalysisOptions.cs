@@ -35,6 +35,12 @@ public sealed record AnalysisOptions
     /// <summary>Called with each window's figures as it completes, in time order (e.g. to stream a CSV).</summary>
     public Action<WindowResult>? WindowCompleted { get; init; }
 
+    /// <summary>
+    /// Threads that measure window spectra and shapes while the caller reads on; 1 measures them on the calling
+    /// thread. The figures are the same for every value. Default: the processor count.
+    /// </summary>
+    public int WorkerCount { get; init; } = Environment.ProcessorCount;
+
     /// <summary>Checks the values.</summary>
     /// <exception cref="OptionValueException">A value is out of range.</exception>
     public void Validate()
@@ -54,6 +60,11 @@ public sealed record AnalysisOptions
         if (!(TransientFactor > 1))
         {
             throw new ArgumentOutOfRangeException(nameof(TransientFactor), TransientFactor, "must be greater than 1");
+        }
+
+        if (WorkerCount < 1)
+        {
+            throw new ArgumentOutOfRangeException(nameof(WorkerCount), WorkerCount, "must be at least 1");
         }
 
         if (MaxHarmonicOrder < 1 || ToneCount < 0)

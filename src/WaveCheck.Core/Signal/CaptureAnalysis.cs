@@ -30,12 +30,14 @@ public sealed class CaptureAnalysis
     /// <summary>A sample at or beyond this share of the full scale counts as clipped (engineering choice).</summary>
     public const double ClipShare = 0.999;
 
+    // Windows measured per batch on the workers (engineering choice: 8 windows, 1.6 s at 50 Hz, about 1 MB of slots,
+    // enough to keep two workers busy while the caller reads the next batch).
+    private const int BatchWindows = 8;
+
     private readonly CaptureInfo _info;
     private readonly AnalysisOptions _options;
     private readonly double _fs;
     private readonly EnvelopeBuilder _envelope;
-    private readonly SpectrumPlans _plans = new();
-    private readonly WaveformShape _shape = new();
     private readonly List<EventRecord> _events = [];
     private readonly List<CaptureWarning> _warnings = [];
     private readonly (string Name, bool Signed, Func<WindowResult, double> Get, MetricAccumulator Stats)[] _metrics;
@@ -49,16 +51,14 @@ public sealed class CaptureAnalysis
     private int _cycles;
     private int _maxOrder;
 
-    private double[] _window = [];
+    private WindowWorkers? _workers;
+    private WindowSlot[] _filling = [];
+    private WindowSlot[] _flying = [];
+    private int _fillCount;
+    private int _flyCount;
     private int _windowFill;
     private int _windowLength;
     private long _windowStart;
-    private double[] _power = [];
-    private double[] _pending = [];
-    private double[] _pendingPower = [];
-    private int _pendingLength;
-    private long _pendingStart;
-    private double _pendingHz;
 
     private long _count;
     private double _sum;
@@ -185,7 +185,10 @@ public sealed class CaptureAnalysis
             StartWindows();
         }
 
-        FlushPending();
+        var partial = _filling[_fillCount];
+        Dispatch();
+        _workers!.Wait();
+        DrainFlying();
         CloseAlarm();
         CloseClipStretch();
         var warnings = new List<CaptureWarning>();
@@ -251,7 +254,7 @@ public sealed class CaptureAnalysis
             WorstWindow = _worstLength > 0
                 ? new WaveformExcerpt(_worstStart / _fs, _fs, _worst.AsSpan(0, _worstLength).ToArray(),
                     "window with the highest RMS")
-                : new WaveformExcerpt(_windowStart / _fs, _fs, _window.AsSpan(0, _windowFill).ToArray(),
+                : new WaveformExcerpt(_windowStart / _fs, _fs, partial.Samples.AsSpan(0, _windowFill).ToArray(),
                     "the whole capture (shorter than one window)"),
             Trend = _trend!.Result(),
         };
@@ -277,11 +280,16 @@ public sealed class CaptureAnalysis
         var nominal = _mains.NominalHz;
         _cycles = CyclesFor(nominal);
         var maxLength = (int)Math.Ceiling(_cycles * _fs / (nominal * (1 - MainsFrequency.TrackingRange))) + 2;
-        _window = new double[maxLength];
+        _filling = new WindowSlot[BatchWindows];
+        _flying = new WindowSlot[BatchWindows];
+        for (var i = 0; i < BatchWindows; i++)
+        {
+            _filling[i] = new WindowSlot(maxLength);
+            _flying[i] = new WindowSlot(maxLength);
+        }
+
+        _workers = new WindowWorkers(_options.WorkerCount, _cycles);
         _worst = new double[maxLength];
-        _power = new double[(maxLength / 2) + 1];
-        _pending = new double[maxLength];
-        _pendingPower = new double[(maxLength / 2) + 1];
         _windowLength = NextLength();
         _trend = new TrendTable(nominal);
         _maxOrder = _options.MaxHarmonicOrder;
@@ -291,7 +299,7 @@ public sealed class CaptureAnalysis
         _band = new GroupAccumulator(_bands.Length);
         var resolution = nominal / _cycles;
         var upper = Math.Min(_fs / 2, _options.HighBandUpperHz);
-        var bins = Math.Min((int)Math.Floor(upper / resolution) + 1, _power.Length);
+        var bins = Math.Min((int)Math.Floor(upper / resolution) + 1, (maxLength / 2) + 1);
         _spectrumSum = new double[bins];
         _spectrumCount = new int[bins];
         FeedWindows(head);
@@ -326,12 +334,12 @@ public sealed class CaptureAnalysis
         while (!samplesA.IsEmpty)
         {
             var take = Math.Min(samplesA.Length, _windowLength - _windowFill);
-            samplesA[..take].CopyTo(_window.AsSpan(_windowFill));
+            samplesA[..take].CopyTo(_filling[_fillCount].Samples.AsSpan(_windowFill));
             _windowFill += take;
             samplesA = samplesA[take..];
             if (_windowFill == _windowLength)
             {
-                CompleteWindow(_window.AsSpan(0, _windowLength));
+                CompleteWindow();
                 _windowStart += _windowLength;
                 _windowFill = 0;
                 _windowLength = NextLength();
@@ -340,61 +348,52 @@ public sealed class CaptureAnalysis
     }
 
     /// <summary>
-    /// Tracks the frequency at once (it sizes the next window), then analyses the window. Odd lengths have no
-    /// half-length real transform, so two consecutive odd windows of equal length share one complex transform; the
-    /// first waits for the second (figures and callbacks stay in time order).
+    /// Tracks the frequency at once (it sizes the next window) and queues the window; a full batch goes to the
+    /// workers for spectra and shape while the batch before is folded into the figures here, in time order.
     /// </summary>
-    private void CompleteWindow(ReadOnlySpan<double> w)
+    private void CompleteWindow()
     {
-        var frequency = TrackFrequency(w);
-        var n = w.Length;
-        var plan = _plans.For(n);
-        if (n % 2 == 0)
+        var slot = _filling[_fillCount];
+        slot.Length = _windowLength;
+        slot.Start = _windowStart;
+        slot.Moments = SampleMath.Moments(slot.Window);
+        slot.FrequencyHz = TrackFrequency(slot);
+        _fillCount++;
+        if (_fillCount == _filling.Length)
         {
-            FlushPending();
-            plan.Power(w, _power.AsSpan(0, plan.BinCount));
-            AnalyzeWindow(w, _windowStart, frequency, _power.AsSpan(0, plan.BinCount));
-            return;
+            Dispatch();
         }
-
-        if (_pendingLength == n)
-        {
-            plan.PowerPair(_pending.AsSpan(0, n), w, _pendingPower.AsSpan(0, plan.BinCount), _power.AsSpan(0, plan.BinCount));
-            _pendingLength = 0;
-            AnalyzeWindow(_pending.AsSpan(0, n), _pendingStart, _pendingHz, _pendingPower.AsSpan(0, plan.BinCount));
-            AnalyzeWindow(w, _windowStart, frequency, _power.AsSpan(0, plan.BinCount));
-            return;
-        }
-
-        FlushPending();
-        w.CopyTo(_pending);
-        _pendingLength = n;
-        _pendingStart = _windowStart;
-        _pendingHz = frequency;
     }
 
-    private void FlushPending()
+    private void Dispatch()
     {
-        if (_pendingLength == 0)
-        {
-            return;
-        }
-
-        var n = _pendingLength;
-        _pendingLength = 0;
-        var plan = _plans.For(n);
-        plan.Power(_pending.AsSpan(0, n), _pendingPower.AsSpan(0, plan.BinCount));
-        AnalyzeWindow(_pending.AsSpan(0, n), _pendingStart, _pendingHz, _pendingPower.AsSpan(0, plan.BinCount));
+        _workers!.Wait();
+        DrainFlying();
+        (_filling, _flying) = (_flying, _filling);
+        _flyCount = _fillCount;
+        _fillCount = 0;
+        _workers.Start(_flying.AsSpan(0, _flyCount));
     }
 
-    private double TrackFrequency(ReadOnlySpan<double> w)
+    private void DrainFlying()
+    {
+        for (var i = 0; i < _flyCount; i++)
+        {
+            AnalyzeWindow(_flying[i]);
+        }
+
+        _flyCount = 0;
+    }
+
+    private double TrackFrequency(WindowSlot slot)
     {
         if (!_tracking)
         {
             return _trackedHz;
         }
 
-        var (sum, squares, _, _) = SampleMath.Moments(w);
+        var w = slot.Window;
+        var (sum, squares, _, _) = slot.Moments;
         var mean = sum / w.Length;
         var ac = Math.Sqrt(Math.Max(0, (squares / w.Length) - (mean * mean)));
         var measured = MainsFrequency.MeasureWindow(w, _fs, _trackedHz, _cycles / 2, mean, out var fundamental);
@@ -409,11 +408,15 @@ public sealed class CaptureAnalysis
         return _trackedHz;
     }
 
-    private void AnalyzeWindow(ReadOnlySpan<double> w, long start, double frequency, ReadOnlySpan<double> power)
+    private void AnalyzeWindow(WindowSlot slot)
     {
+        var w = slot.Window;
+        var power = slot.Bins;
+        var start = slot.Start;
+        var frequency = slot.FrequencyHz;
         var n = w.Length;
         var startS = start / _fs;
-        var (sum, squares, min, max) = SampleMath.Moments(w);
+        var (sum, squares, min, max) = slot.Moments;
         var mean = sum / n;
         var meanSquare = squares / n;
         var rms = Math.Sqrt(meanSquare);
@@ -422,7 +425,7 @@ public sealed class CaptureAnalysis
         var exact = _cycles * _fs / frequency;
         _maxSyncError = Math.Max(_maxSyncError, Math.Abs(n - exact) / exact * 100);
 
-        var shape = _shape.Measure(w, _cycles, mean, min, max);
+        var shape = slot.Shape;
         var resolution = _fs / n;
 
         var harmonicsPower = 0.0;

@@ -52,8 +52,6 @@ internal sealed class Radix2Fft
     public void Forward(Span<double> re, Span<double> im)
     {
         var n = Length;
-        re = re[..n];
-        im = im[..n];
         for (var i = 0; i < n; i++)
         {
             var j = _reverse[i];
@@ -64,9 +62,30 @@ internal sealed class Radix2Fft
             }
         }
 
+        ForwardFromBitReversed(re, im);
+    }
+
+    /// <summary>Bit-reversal permutation: entry i is the index whose bits reversed give i.</summary>
+    public ReadOnlySpan<int> BitReversed => _reverse;
+
+    /// <summary><see cref="Forward"/> of values already placed in bit-reversed order (x_j at
+    /// <see cref="BitReversed"/>[j]), so a caller that gathers its input anyway saves the permutation pass.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void ForwardFromBitReversed(Span<double> re, Span<double> im)
+    {
+        var n = Length;
+        re = re[..n];
+        im = im[..n];
         var width = Vector<double>.Count;
         var vectorised = Vector.IsHardwareAccelerated && n >= 2 * width;
-        for (var half = 1; half < n; half <<= 1)
+        var first = 1;
+        if (n >= 4)
+        {
+            FirstTwoStages(re, im);
+            first = 4;
+        }
+
+        for (var half = first; half < n; half <<= 1)
         {
             var size = half << 1;
             if (vectorised && half >= width && size < n)
@@ -125,6 +144,29 @@ internal sealed class Radix2Fft
         }
     }
 
+    /// <summary>The stages of half sizes 1 and 2 as one radix-4 pass (twiddles 1 and −i, so no multiplications).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void FirstTwoStages(Span<double> re, Span<double> im)
+    {
+        for (var i = 0; i + 3 < re.Length; i += 4)
+        {
+            double b0r = re[i] + re[i + 1], b0i = im[i] + im[i + 1];
+            double b1r = re[i] - re[i + 1], b1i = im[i] - im[i + 1];
+            double b2r = re[i + 2] + re[i + 3], b2i = im[i + 2] + im[i + 3];
+            double b3r = re[i + 2] - re[i + 3], b3i = im[i + 2] - im[i + 3];
+            re[i] = b0r + b2r;
+            im[i] = b0i + b2i;
+            re[i + 2] = b0r - b2r;
+            im[i + 2] = b0i - b2i;
+
+            // −i·b3 = (b3i, −b3r).
+            re[i + 1] = b1r + b3i;
+            im[i + 1] = b1i - b3r;
+            re[i + 3] = b1r - b3i;
+            im[i + 3] = b1i + b3r;
+        }
+    }
+
     /// <summary>Two radix-2 stages (half sizes h and 2h) in one pass over memory, on whole vectors.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void Radix4Pass(Span<double> re, Span<double> im, int half, int width)
@@ -179,22 +221,6 @@ internal sealed class Radix2Fft
         }
     }
 
-    /// <summary>Inverse transform without the 1/n scale, in place: conj(F(conj x)).</summary>
-    public void InverseUnscaled(Span<double> re, Span<double> im)
-    {
-        Negate(im[..Length]);
-        Forward(re, im);
-        Negate(im[..Length]);
-    }
-
-    private static void Negate(Span<double> values)
-    {
-        for (var i = 0; i < values.Length; i++)
-        {
-            values[i] = -values[i];
-        }
-    }
-
     private static uint ReverseBits(uint v)
     {
         v = ((v >> 1) & 0x55555555u) | ((v & 0x55555555u) << 1);
@@ -206,12 +232,204 @@ internal sealed class Radix2Fft
 }
 
 /// <summary>
-/// Complex DFT of any length: radix-2 when the length is a power of two, otherwise Bluestein's chirp-z algorithm
-/// (the DFT as a convolution with a chirp, done by power-of-two FFTs). Holds scratch buffers: not thread-safe.
+/// Complex FFT of a length q·2^k with q in {1, 3, 5}: one Cooley–Tukey step splits it into q power-of-two FFTs of the
+/// decimated sequences (<see cref="Radix2Fft"/>, vectorised), then twiddles and q-point DFTs across them, vectorised
+/// over the 2^k columns. Lets Bluestein's convolution use the smallest such length at or above 2n − 1 (10 240 instead
+/// of 16 384 for n ≈ 5 000). Holds scratch: not thread-safe.
+/// </summary>
+internal sealed class MixedRadixFft
+{
+    private readonly Radix2Fft _fft;
+    private readonly int _q;
+    private readonly double[] _twiddleRe = [];
+    private readonly double[] _twiddleIm = [];
+    private readonly double[] _rootRe = [];
+    private readonly double[] _rootIm = [];
+    private readonly double[] _workRe = [];
+    private readonly double[] _workIm = [];
+
+    /// <summary>Builds the plan for <paramref name="length"/> points, q·2^k with q in {1, 3, 5}.</summary>
+    public MixedRadixFft(int length)
+    {
+        if (!Supports(length))
+        {
+            throw new ArgumentOutOfRangeException(nameof(length), length, "length must be 2^k, 3·2^k or 5·2^k");
+        }
+
+        Length = length;
+        _q = length % 3 == 0 ? 3 : length % 5 == 0 ? 5 : 1;
+        var p = length / _q;
+        _fft = new Radix2Fft(p);
+        if (_q == 1)
+        {
+            return;
+        }
+
+        // W_M^{n1·k2} for the column twiddles and W_q^{j} for the q-point DFTs; angles reduced mod M to stay exact.
+        _twiddleRe = new double[length];
+        _twiddleIm = new double[length];
+        for (var n1 = 0; n1 < _q; n1++)
+        {
+            for (var k2 = 0; k2 < p; k2++)
+            {
+                var angle = -2.0 * Math.PI * ((long)n1 * k2 % length) / length;
+                _twiddleRe[(n1 * p) + k2] = Math.Cos(angle);
+                _twiddleIm[(n1 * p) + k2] = Math.Sin(angle);
+            }
+        }
+
+        // The q-point DFT matrix, entry [k1·q + n1] = W_q^{n1·k1}.
+        _rootRe = new double[_q * _q];
+        _rootIm = new double[_q * _q];
+        for (var k1 = 0; k1 < _q; k1++)
+        {
+            for (var n1 = 0; n1 < _q; n1++)
+            {
+                var j = n1 * k1 % _q;
+                _rootRe[(k1 * _q) + n1] = Math.Cos(-2.0 * Math.PI * j / _q);
+                _rootIm[(k1 * _q) + n1] = Math.Sin(-2.0 * Math.PI * j / _q);
+            }
+        }
+
+        _workRe = new double[length];
+        _workIm = new double[length];
+    }
+
+    /// <summary>Number of points.</summary>
+    public int Length { get; }
+
+    /// <summary>Whether <paramref name="length"/> is 2^k, 3·2^k or 5·2^k.</summary>
+    public static bool Supports(int length) =>
+        length >= 1 && (BitOperations.IsPow2(length) || (length % 3 == 0 && BitOperations.IsPow2(length / 3)) ||
+            (length % 5 == 0 && BitOperations.IsPow2(length / 5)));
+
+    /// <summary>Smallest supported length at or above <paramref name="least"/>.</summary>
+    public static int AtLeast(int least)
+    {
+        var best = (int)BitOperations.RoundUpToPowerOf2((uint)least);
+        foreach (var q in (ReadOnlySpan<int>)[3, 5])
+        {
+            var candidate = q * (int)BitOperations.RoundUpToPowerOf2((uint)((least + q - 1) / q));
+            best = Math.Min(best, candidate);
+        }
+
+        return best;
+    }
+
+    /// <summary>Forward transform X_k = Σ x_j e^{-2πi jk/n}, in place, unscaled.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void Forward(Span<double> re, Span<double> im)
+    {
+        if (_q == 1)
+        {
+            _fft.Forward(re, im);
+            return;
+        }
+
+        var q = _q;
+        var p = Length / q;
+        var wr = _workRe;
+        var wi = _workIm;
+
+        // x[q·n2 + n1] → column n1 in bit-reversed order, then a 2^k FFT per column.
+        var reverse = _fft.BitReversed;
+        for (var n1 = 0; n1 < q; n1++)
+        {
+            var cr = wr.AsSpan(n1 * p, p);
+            var ci = wi.AsSpan(n1 * p, p);
+            for (var n2 = 0; n2 < p; n2++)
+            {
+                var to = reverse[n2];
+                cr[to] = re[(q * n2) + n1];
+                ci[to] = im[(q * n2) + n1];
+            }
+
+            _fft.ForwardFromBitReversed(cr, ci);
+        }
+
+        // X[k2 + p·k1] = Σ_n1 W_q^{n1·k1} · W_M^{n1·k2} · C_n1[k2].
+        var width = Vector<double>.Count;
+        var k2 = 0;
+        if (Vector.IsHardwareAccelerated && p >= width)
+        {
+            var vwr = MemoryMarshal.Cast<double, Vector<double>>(wr);
+            var vwi = MemoryMarshal.Cast<double, Vector<double>>(wi);
+            var vtr = MemoryMarshal.Cast<double, Vector<double>>(_twiddleRe);
+            var vti = MemoryMarshal.Cast<double, Vector<double>>(_twiddleIm);
+            var vre = MemoryMarshal.Cast<double, Vector<double>>(re);
+            var vim = MemoryMarshal.Cast<double, Vector<double>>(im);
+            var columns = p / width;
+            Span<Vector<double>> tr = stackalloc Vector<double>[5];
+            Span<Vector<double>> ti = stackalloc Vector<double>[5];
+            for (var c = 0; c < columns; c++)
+            {
+                tr[0] = vwr[c];
+                ti[0] = vwi[c];
+                for (var n1 = 1; n1 < q; n1++)
+                {
+                    var at = (n1 * columns) + c;
+                    tr[n1] = (vwr[at] * vtr[at]) - (vwi[at] * vti[at]);
+                    ti[n1] = (vwr[at] * vti[at]) + (vwi[at] * vtr[at]);
+                }
+
+                for (var k1 = 0; k1 < q; k1++)
+                {
+                    var sr = tr[0];
+                    var si = ti[0];
+                    for (var n1 = 1; n1 < q; n1++)
+                    {
+                        var j = (k1 * q) + n1;
+                        sr += (tr[n1] * _rootRe[j]) - (ti[n1] * _rootIm[j]);
+                        si += (tr[n1] * _rootIm[j]) + (ti[n1] * _rootRe[j]);
+                    }
+
+                    vre[(k1 * columns) + c] = sr;
+                    vim[(k1 * columns) + c] = si;
+                }
+            }
+
+            k2 = columns * width;
+        }
+
+        Span<double> sr1 = stackalloc double[5];
+        Span<double> si1 = stackalloc double[5];
+        for (; k2 < p; k2++)
+        {
+            sr1[0] = wr[k2];
+            si1[0] = wi[k2];
+            for (var n1 = 1; n1 < q; n1++)
+            {
+                var at = (n1 * p) + k2;
+                sr1[n1] = (wr[at] * _twiddleRe[at]) - (wi[at] * _twiddleIm[at]);
+                si1[n1] = (wr[at] * _twiddleIm[at]) + (wi[at] * _twiddleRe[at]);
+            }
+
+            for (var k1 = 0; k1 < q; k1++)
+            {
+                var sr = sr1[0];
+                var si = si1[0];
+                for (var n1 = 1; n1 < q; n1++)
+                {
+                    var j = (k1 * q) + n1;
+                    sr += (sr1[n1] * _rootRe[j]) - (si1[n1] * _rootIm[j]);
+                    si += (sr1[n1] * _rootIm[j]) + (si1[n1] * _rootRe[j]);
+                }
+
+                re[(k1 * p) + k2] = sr;
+                im[(k1 * p) + k2] = si;
+            }
+        }
+    }
+}
+
+/// <summary>
+/// Complex DFT of any length: <see cref="MixedRadixFft"/> when the length is 2^k, 3·2^k or 5·2^k, otherwise
+/// Bluestein's chirp-z algorithm (the DFT as a convolution with a chirp, done by the smallest such FFT of at least
+/// 2n − 1 points). Holds scratch buffers: not thread-safe.
 /// </summary>
 internal sealed class ComplexDft
 {
-    private readonly Radix2Fft _fft;
+    private readonly MixedRadixFft _fft;
     private readonly double[]? _chirpRe;
     private readonly double[]? _chirpIm;
     private readonly double[]? _kernelRe;
@@ -224,14 +442,14 @@ internal sealed class ComplexDft
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(length, 1);
         Length = length;
-        if (BitOperations.IsPow2(length))
+        if (MixedRadixFft.Supports(length))
         {
-            _fft = new Radix2Fft(length);
+            _fft = new MixedRadixFft(length);
             return;
         }
 
-        var m = (int)BitOperations.RoundUpToPowerOf2((uint)((2 * length) - 1));
-        _fft = new Radix2Fft(m);
+        var m = MixedRadixFft.AtLeast((2 * length) - 1);
+        _fft = new MixedRadixFft(m);
         _chirpRe = new double[length];
         _chirpIm = new double[length];
         for (var j = 0; j < length; j++)
@@ -287,21 +505,45 @@ internal sealed class ComplexDft
         _fft.Forward(wr, wi);
         var kr = _kernelRe!;
         var ki = _kernelIm!;
-        for (var k = 0; k < wr.Length; k++)
-        {
-            var r = (wr[k] * kr[k]) - (wi[k] * ki[k]);
-            wi[k] = (wr[k] * ki[k]) + (wi[k] * kr[k]);
-            wr[k] = r;
-        }
-
-        _fft.InverseUnscaled(wr, wi);
+        // Inverse transform as conj(F(conj w)): the conjugations folded into the product and the last loop.
+        MultiplyConjugateInPlace(wr, wi, kr, ki);
+        _fft.Forward(wr, wi);
         var scale = 1.0 / wr.Length;
         for (var k = 0; k < n; k++)
         {
             var r = wr[k] * scale;
-            var m = wi[k] * scale;
+            var m = -wi[k] * scale;
             re[k] = (r * cr[k]) - (m * ci[k]);
             im[k] = (r * ci[k]) + (m * cr[k]);
+        }
+    }
+
+    /// <summary>(ar + i·ai) = conj((ar + i·ai)·(br + i·bi)), element-wise over whole vectors, then the tail.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void MultiplyConjugateInPlace(Span<double> ar, Span<double> ai, ReadOnlySpan<double> br, ReadOnlySpan<double> bi)
+    {
+        var k = 0;
+        if (Vector.IsHardwareAccelerated)
+        {
+            var vr = MemoryMarshal.Cast<double, Vector<double>>(ar);
+            var vai = MemoryMarshal.Cast<double, Vector<double>>(ai);
+            var vbr = MemoryMarshal.Cast<double, Vector<double>>(br);
+            var vbi = MemoryMarshal.Cast<double, Vector<double>>(bi);
+            for (var v = 0; v < vr.Length; v++)
+            {
+                var r = (vr[v] * vbr[v]) - (vai[v] * vbi[v]);
+                vai[v] = -((vr[v] * vbi[v]) + (vai[v] * vbr[v]));
+                vr[v] = r;
+            }
+
+            k = vr.Length * Vector<double>.Count;
+        }
+
+        for (; k < ar.Length; k++)
+        {
+            var r = (ar[k] * br[k]) - (ai[k] * bi[k]);
+            ai[k] = -((ar[k] * bi[k]) + (ai[k] * br[k]));
+            ar[k] = r;
         }
     }
 }
@@ -387,7 +629,7 @@ public sealed class RealSpectrum
         var norm = 1.0 / ((double)n * n);
         for (var k = 0; k < BinCount; k++)
         {
-            var m = (n - k) % n;
+            var m = k == 0 ? 0 : n - k;
             var ar = 0.5 * (re[k] + re[m]);
             var ai = 0.5 * (im[k] - im[m]);
             var br = 0.5 * (im[k] + im[m]);
@@ -438,8 +680,9 @@ public sealed class RealSpectrum
         var ti = _twiddleIm!;
         for (var k = 0; k <= h; k++)
         {
-            var a = k % h;
-            var b = (h - k) % h;
+            // Z index k mod h and (h − k) mod h, without a division per bin.
+            var a = k == h ? 0 : k;
+            var b = k == 0 ? 0 : h - k;
             // E = (Z_a + conj Z_b)/2, O = (Z_a - conj Z_b)/(2i), X = E + W^k O.
             var er = 0.5 * (_re[a] + _re[b]);
             var ei = 0.5 * (_im[a] - _im[b]);

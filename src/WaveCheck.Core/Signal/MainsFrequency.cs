@@ -153,11 +153,13 @@ public static class MainsFrequency
         }
 
         var omega = 2 * Math.PI * referenceHz / sampleRateHz;
-        var (r1, i1, w1) = Correlate(samplesA[..stretch], omega, 0, meanA);
-        var (r2, i2, w2) = Correlate(samplesA.Slice(offset, stretch), omega, offset, meanA);
+        var (r1, i1) = CorrelateHann(samplesA[..stretch], omega, 0, meanA);
+        var (r2, i2) = CorrelateHann(samplesA.Slice(offset, stretch), omega, offset, meanA);
         var m1 = Math.Sqrt((r1 * r1) + (i1 * i1));
         var m2 = Math.Sqrt((r2 * r2) + (i2 * i2));
-        fundamentalRmsA = ((m1 / w1) + (m2 / w2)) / 2 * Math.Sqrt(2);
+
+        // The Hann weights of a stretch of L samples sum to (L − 1)/2 (closed form).
+        fundamentalRmsA = (m1 + m2) / 2 * Math.Sqrt(2) / ((stretch - 1) / 2.0);
         if (!(m1 > 0) || !(m2 > 0))
         {
             return null;
@@ -171,48 +173,86 @@ public static class MainsFrequency
     }
 
     /// <summary>
-    /// Σ (x_n − mean)·w_n·e^{−iω(start+n)} with a Hann weight w_n. The weight matters: with a plain (rectangular)
-    /// stretch, a strong sub-mains component (a drive's 12 Hz motor current) leaks into the correlation at a few
-    /// per cent and drags the phase, so the tracked frequency wanders by ±0.05 Hz and the windows lose their
-    /// synchronisation; Hann sidelobes fall as 1/f³ and make that leakage negligible. A symmetric weight keeps the
-    /// phase referred to the stretch's centre, so the phase difference between the two stretches is unchanged.
+    /// Σ (x_n − mean)·w_n·e^{−iω(start+n)} with the Hann weight w_n = ½ − ½cos(θn), θ = 2π/(L − 1). The weight
+    /// matters: with a plain (rectangular) stretch, a strong sub-mains component (a drive's 12 Hz motor current) leaks
+    /// into the correlation at a few per cent and drags the phase, so the tracked frequency wanders by ±0.05 Hz and
+    /// the windows lose their synchronisation; Hann sidelobes fall as 1/f³ and make that leakage negligible. A
+    /// symmetric weight keeps the phase referred to the stretch's centre, so the phase difference between the two
+    /// stretches is unchanged. Computed as three plain correlations, since
+    /// cos θn = ½(e^{iθn} + e^{−iθn}): W = ½C(ω) − ¼e^{−iθ·start}C(ω − θ) − ¼e^{iθ·start}C(ω + θ).
     /// </summary>
-    /// <returns>The weighted correlation and the sum of the weights.</returns>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static (double Re, double Im, double WeightSum) Correlate(ReadOnlySpan<double> x, double omega, int start, double mean)
+    private static (double Re, double Im) CorrelateHann(ReadOnlySpan<double> x, double omega, int start, double mean)
     {
-        double sumRe = 0, sumIm = 0, weightSum = 0;
-        var stepRe = Math.Cos(omega);
-        var stepIm = -Math.Sin(omega);
-        var hannStep = 2 * Math.PI / Math.Max(1, x.Length - 1);
+        var theta = 2 * Math.PI / Math.Max(1, x.Length - 1);
+        var (cr, ci) = Correlate(x, omega, start, mean);
+        var (lr, li) = Correlate(x, omega - theta, start, mean);
+        var (ur, ui) = Correlate(x, omega + theta, start, mean);
+        var cosS = Math.Cos(theta * start);
+        var sinS = Math.Sin(theta * start);
+
+        // e^{−iθs}·(lr + i·li) and e^{+iθs}·(ur + i·ui).
+        var lowRe = (lr * cosS) + (li * sinS);
+        var lowIm = (li * cosS) - (lr * sinS);
+        var upRe = (ur * cosS) - (ui * sinS);
+        var upIm = (ui * cosS) + (ur * sinS);
+        return ((0.5 * cr) - (0.25 * (lowRe + upRe)), (0.5 * ci) - (0.25 * (lowIm + upIm)));
+    }
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static (double Re, double Im) Correlate(ReadOnlySpan<double> x, double omega, int start, double mean)
+    {
+        // Σ (x_n − mean) e^{−iω(start+n)} with four interleaved rotating phasors (n ≡ 0..3 mod 4, stepped by e^{−4iω}:
+        // independent chains the processor overlaps), re-anchored every 1024 samples against drift.
+        double sumRe = 0, sumIm = 0;
+        var stepRe = Math.Cos(4 * omega);
+        var stepIm = -Math.Sin(4 * omega);
+        Span<double> pr = stackalloc double[4];
+        Span<double> pi = stackalloc double[4];
         for (var block = 0; block < x.Length; block += 1024)
         {
-            // Both phasors are re-anchored every 1024 samples against rounding drift.
-            var angle = -omega * (start + block);
-            var pr = Math.Cos(angle);
-            var pi = Math.Sin(angle);
-            var hr = Math.Cos(hannStep * block);
-            var hi = Math.Sin(hannStep * block);
-            var hStepRe = Math.Cos(hannStep);
-            var hStepIm = Math.Sin(hannStep);
-            var end = Math.Min(x.Length, block + 1024);
-            for (var n = block; n < end; n++)
+            for (var k = 0; k < 4; k++)
             {
-                var w = 0.5 - (0.5 * hr);
-                var v = (x[n] - mean) * w;
-                weightSum += w;
-                sumRe += v * pr;
-                sumIm += v * pi;
-                var t = (pr * stepRe) - (pi * stepIm);
-                pi = (pr * stepIm) + (pi * stepRe);
-                pr = t;
-                var h = (hr * hStepRe) - (hi * hStepIm);
-                hi = (hr * hStepIm) + (hi * hStepRe);
-                hr = h;
+                var angle = -omega * (start + block + k);
+                pr[k] = Math.Cos(angle);
+                pi[k] = Math.Sin(angle);
+            }
+
+            double p0r = pr[0], p0i = pi[0], p1r = pr[1], p1i = pi[1], p2r = pr[2], p2i = pi[2], p3r = pr[3], p3i = pi[3];
+            double s0r = 0, s0i = 0, s1r = 0, s1i = 0, s2r = 0, s2i = 0, s3r = 0, s3i = 0;
+            var end = Math.Min(x.Length, block + 1024);
+            var n = block;
+            for (; n + 4 <= end; n += 4)
+            {
+                var v0 = x[n] - mean;
+                var v1 = x[n + 1] - mean;
+                var v2 = x[n + 2] - mean;
+                var v3 = x[n + 3] - mean;
+                s0r += v0 * p0r;
+                s0i += v0 * p0i;
+                s1r += v1 * p1r;
+                s1i += v1 * p1i;
+                s2r += v2 * p2r;
+                s2i += v2 * p2i;
+                s3r += v3 * p3r;
+                s3i += v3 * p3i;
+                (p0r, p0i) = ((p0r * stepRe) - (p0i * stepIm), (p0r * stepIm) + (p0i * stepRe));
+                (p1r, p1i) = ((p1r * stepRe) - (p1i * stepIm), (p1r * stepIm) + (p1i * stepRe));
+                (p2r, p2i) = ((p2r * stepRe) - (p2i * stepIm), (p2r * stepIm) + (p2i * stepRe));
+                (p3r, p3i) = ((p3r * stepRe) - (p3i * stepIm), (p3r * stepIm) + (p3i * stepRe));
+            }
+
+            sumRe += s0r + s1r + s2r + s3r;
+            sumIm += s0i + s1i + s2i + s3i;
+            for (; n < end; n++)
+            {
+                var angle = -omega * (start + n);
+                var v = x[n] - mean;
+                sumRe += v * Math.Cos(angle);
+                sumIm += v * Math.Sin(angle);
             }
         }
 
-        return (sumRe, sumIm, weightSum);
+        return (sumRe, sumIm);
     }
 
     private static double MedianAround(double[] power, int peak, double resolution, double? givenHz)

@@ -50,6 +50,7 @@ public sealed class WaveformShape
     private const int Bins = 4096;
     private readonly int[] _coarse = new int[Bins];
     private readonly int[] _fine = new int[Bins];
+    private ushort[] _binOf = [];
 
     /// <summary>Measures a window.</summary>
     /// <param name="samplesA">The window, amperes.</param>
@@ -69,9 +70,18 @@ public sealed class WaveformShape
 
         var scale = Bins / range;
         Array.Clear(_coarse);
-        foreach (var x in samplesA)
+        if (_binOf.Length < n)
         {
-            _coarse[Math.Min((int)((x - minA) * scale), Bins - 1)]++;
+            _binOf = new ushort[n];
+        }
+
+        // Each sample's coarse bin is kept, so the refinement below need not compute it again.
+        var binOf = _binOf.AsSpan(0, n);
+        for (var i = 0; i < n; i++)
+        {
+            var bin = Math.Min((int)((samplesA[i] - minA) * scale), Bins - 1);
+            binOf[i] = (ushort)bin;
+            _coarse[bin]++;
         }
 
         var width = range / Bins;
@@ -109,12 +119,19 @@ public sealed class WaveformShape
             var from = (int)((long)c * n / cycles);
             var to = (int)((long)(c + 1) * n / cycles);
             var before = inBand;
-            for (var i = from; i < to; i++)
+            var span = samplesA[from..to];
+            if (positive)
             {
-                var x = samplesA[i];
-                if (positive ? x <= limit : x >= limit)
+                foreach (var x in span)
                 {
-                    inBand++;
+                    inBand += x <= limit ? 1 : 0;
+                }
+            }
+            else
+            {
+                foreach (var x in span)
+                {
+                    inBand += x >= limit ? 1 : 0;
                 }
             }
 
@@ -240,9 +257,11 @@ public sealed class WaveformShape
         Array.Clear(_fine);
         var lowest = double.PositiveInfinity;
         var highest = double.NegativeInfinity;
-        foreach (var x in samplesA)
+        var binOf = _binOf.AsSpan(0, samplesA.Length);
+        for (var i = 0; i < samplesA.Length; i++)
         {
-            if (Math.Min((int)((x - min) * scale), Bins - 1) == bin)
+            var x = samplesA[i];
+            if (binOf[i] == bin)
             {
                 _fine[Math.Clamp((int)((x - low) * fineScale), 0, Bins - 1)]++;
                 lowest = Math.Min(lowest, x);

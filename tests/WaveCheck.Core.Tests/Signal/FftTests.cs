@@ -5,36 +5,22 @@ namespace WaveCheck.Core.Tests.Signal;
 
 public class FftTests
 {
-    // Reference: the plain O(n²) DFT X_k = Σ x_j e^{-2πi jk/n}, summed directly.
-    private static Complex[] NaiveDft(double[] x)
+    // Reference: the plain O(n²) DFT X_k = Σ x_j e^{-2πi jk/n}, summed directly, for one bin.
+    private static Complex NaiveDft(double[] x, int k)
     {
         var n = x.Length;
-        var result = new Complex[n];
-        for (var k = 0; k < n; k++)
+        var sum = Complex.Zero;
+        for (var j = 0; j < n; j++)
         {
-            var sum = Complex.Zero;
-            for (var j = 0; j < n; j++)
-            {
-                var angle = -2 * Math.PI * ((long)j * k % n) / n;
-                sum += x[j] * new Complex(Math.Cos(angle), Math.Sin(angle));
-            }
-
-            result[k] = sum;
+            var angle = -2 * Math.PI * ((long)j * k % n) / n;
+            sum += x[j] * new Complex(Math.Cos(angle), Math.Sin(angle));
         }
 
-        return result;
+        return sum;
     }
 
-    [Theory]
-    [InlineData(2)]
-    [InlineData(3)]
-    [InlineData(16)]
-    [InlineData(17)]
-    [InlineData(100)]
-    [InlineData(999)]
-    [InlineData(1000)]
-    [InlineData(1001)]
-    public void PowerMatchesPlainDft(int length)
+    // Every binStep-th bin of the power spectrum of seeded random data against the plain DFT.
+    private static void AssertPowerMatchesPlainDft(int length, int binStep)
     {
         var random = new Random(length);
         var x = new double[length];
@@ -46,20 +32,93 @@ public class FftTests
         var spectrum = new RealSpectrum(length);
         var power = new double[spectrum.BinCount];
         spectrum.Power(x, power);
-        var reference = NaiveDft(x);
-        for (var k = 0; k < spectrum.BinCount; k++)
+        for (var k = 0; k < spectrum.BinCount; k += binStep)
         {
+            var reference = NaiveDft(x, k);
             var weight = k == 0 || (length % 2 == 0 && k == length / 2) ? 1.0 : 2.0;
-            var expected = weight * reference[k].Magnitude * reference[k].Magnitude / ((double)length * length);
+            var expected = weight * reference.Magnitude * reference.Magnitude / ((double)length * length);
             // 1e-12 of the window's mean square: double rounding of O(n log n) butterflies.
             Assert.Equal(expected, power[k], 1e-12);
         }
     }
 
     [Theory]
+    [InlineData(2)]
+    [InlineData(3)]
+    [InlineData(16)]
+    [InlineData(17)]
+    [InlineData(100)]
+    [InlineData(999)]
+    [InlineData(1000)]
+    [InlineData(1001)]
+    public void PowerMatchesPlainDft(int length) => AssertPowerMatchesPlainDft(length, 1);
+
+    [Theory]
+    [InlineData(12)]
+    [InlineData(20)]
+    [InlineData(40)]
+    [InlineData(96)]
+    [InlineData(160)]
+    [InlineData(3072)]
+    [InlineData(10240)]
+    public void MixedRadixMatchesMathNet(int length)
+    {
+        // Reference: MathNet.Numerics Fourier.Forward with FourierOptions.Matlab (unscaled, e^{-i} convention), which
+        // uses its own Bluestein path for these lengths. 1e-9 absolute: sums of O(length) values of order 1 in double.
+        var random = new Random(length);
+        var re = new double[length];
+        var im = new double[length];
+        var data = new Complex[length];
+        for (var i = 0; i < length; i++)
+        {
+            re[i] = random.NextDouble() - 0.5;
+            im[i] = random.NextDouble() - 0.5;
+            data[i] = new Complex(re[i], im[i]);
+        }
+
+        Assert.True(MixedRadixFft.Supports(length));
+        new MixedRadixFft(length).Forward(re, im);
+        MathNet.Numerics.IntegralTransforms.Fourier.Forward(data, MathNet.Numerics.IntegralTransforms.FourierOptions.Matlab);
+        for (var i = 0; i < length; i++)
+        {
+            Assert.Equal(data[i].Real, re[i], 1e-9);
+            Assert.Equal(data[i].Imaginary, im[i], 1e-9);
+        }
+    }
+
+    [Theory]
+    [InlineData(9999, 10240)]
+    [InlineData(10005, 10240)]
+    [InlineData(10241, 12288)]
+    [InlineData(20013, 20480)]
+    [InlineData(4097, 5120)]
+    [InlineData(8, 8)]
+    public void BluesteinLengthIsTheSmallestSupported(int least, int expected)
+    {
+        // Closed form: the smallest of 2^a, 3·2^b, 5·2^c at or above the least length (checked by hand).
+        Assert.Equal(expected, MixedRadixFft.AtLeast(least));
+    }
+
+    [Theory]
+    [InlineData(10000)]
+    [InlineData(10008)]
+    [InlineData(12000)]
+    [InlineData(8333)]
+    [InlineData(10007)]
+    [InlineData(10006)]
+    public void WindowLengthsMatchPlainDft(int length) =>
+        // The window lengths the analysis meets at 50 kS/s (10 000 ± a few, 10 006 at 49.97 Hz), 60 Hz (8 333) and a
+        // prime (10 007); every 7th bin keeps the O(n²) reference quick.
+        AssertPowerMatchesPlainDft(length, 7);
+
+    [Theory]
     [InlineData(10000)]
     [InlineData(10001)]
     [InlineData(8192)]
+    [InlineData(10006)]
+    [InlineData(10007)]
+    [InlineData(12000)]
+    [InlineData(8333)]
     public void BinsSumToMeanSquare(int length)
     {
         // Parseval: Σ_k C_k² over the one-sided spectrum equals the window's mean square.
