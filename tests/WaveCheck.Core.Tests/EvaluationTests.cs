@@ -74,6 +74,31 @@ public class EvaluationTests
         Assert.Equal("B", given.Assessment.RequiredType);
     }
 
+    [Theory]
+    [InlineData(12.0, 0.0)]
+    [InlineData(17.0, 0.003)]
+    [InlineData(37.0, 0.0)]
+    public void A_motor_frequency_that_does_not_fit_the_window_is_not_smooth_dc(double motorHz, double dcA)
+    {
+        // Closed form: 2.4 cycles of a 12 Hz sine in a 200 ms window average to 12 % of its peak; that must not read
+        // as smooth DC. The converter's composite current needs type F (IEC 62423), and the true DC is recovered
+        // within 0.2 mA (a fifth of the 1 mA significance floor).
+        List<string> parts = [$"composite:rms=12mA,motor={motorHz}Hz"];
+        if (dcA != 0)
+        {
+            parts.Add($"dc:level={dcA * 1000}mA");
+        }
+
+        var result = Evaluate([.. parts]);
+        Assert.Equal("F", result.Assessment.RequiredType);
+        Assert.Equal(dcA, result.Analysis.Components.SmoothDcMaxA, 0.0002);
+
+        // Nor may it drag the mains tracking: the synthesized mains is exactly 50 Hz; the windows must stay within
+        // 0.05 Hz of it (0.1 % synchronisation, about the IEC 61000-4-7 window tolerance).
+        Assert.InRange(result.Analysis.Mains.MinHz, 49.95, 50.05);
+        Assert.InRange(result.Analysis.Mains.MaxHz, 49.95, 50.05);
+    }
+
     [Fact]
     public void An_ac_coupled_sensor_leaves_the_dc_verdicts_open()
     {

@@ -81,6 +81,7 @@ public sealed class CaptureAnalysis
     private double _belowSum;
     private double _harmonicsSum;
     private double _above1kSum;
+    private (double Re, double Im, double Centre)? _previousPhasor;
     private double _above9kSum;
     private double _smoothDcSum;
     private double _smoothDcMax;
@@ -396,15 +397,24 @@ public sealed class CaptureAnalysis
         var (sum, squares, _, _) = slot.Moments;
         var mean = sum / w.Length;
         var ac = Math.Sqrt(Math.Max(0, (squares / w.Length) - (mean * mean)));
-        var measured = MainsFrequency.MeasureWindow(w, _fs, _trackedHz, _cycles / 2, mean, out var fundamental);
         var nominal = _mains.NominalHz;
-        if (measured is { } hz && fundamental >= MainsFrequency.MinFundamentalA &&
-            fundamental >= MainsFrequency.MinFundamentalShare * ac &&
-            Math.Abs(hz - nominal) <= MainsFrequency.TrackingRange * nominal)
+        var (re, im, fundamental) = MainsFrequency.WindowPhasor(w, _fs, nominal, slot.Start, mean);
+        var centre = slot.Start + ((w.Length - 1) / 2.0);
+        var strong = fundamental >= MainsFrequency.MinFundamentalA && fundamental >= MainsFrequency.MinFundamentalShare * ac;
+        if (strong && _previousPhasor is { } previous)
         {
-            _trackedHz = hz;
+            // arg(p_k · conj p_{k−1}) = 2π (f − f_nominal) Δt, unambiguous for |f − f_nominal| < 1/(2Δt) = 2.5 Hz.
+            var dr = (re * previous.Re) + (im * previous.Im);
+            var di = (im * previous.Re) - (re * previous.Im);
+            var dt = (centre - previous.Centre) / _fs;
+            var hz = nominal + (Math.Atan2(di, dr) / (2 * Math.PI * dt));
+            if (Math.Abs(hz - nominal) <= MainsFrequency.TrackingRange * nominal)
+            {
+                _trackedHz = hz;
+            }
         }
 
+        _previousPhasor = strong ? (re, im, centre) : null;
         return _trackedHz;
     }
 
@@ -461,10 +471,12 @@ public sealed class CaptureAnalysis
         }
 
         var belowPower = HarmonicGroups.BelowFundamental(power, _cycles);
-        // Edges are rounded to the nearest bin: with a tracked window one sample short (resolution 5.0005 Hz), a floor
-        // would put a 1 kHz tone's own bin (1000.1 Hz) "above 1 kHz".
-        var above1k = HarmonicGroups.Sum(power, (int)Math.Round(1000 / resolution) + 1, power.Length - 1);
-        var above9k = HarmonicGroups.Sum(power, (int)Math.Round(9000 / resolution) + 1, power.Length - 1);
+        // "Above 1 kHz" starts after the harmonic group centred on 1 kHz (half a group, N/2 bins, beyond the bin nearest
+        // 1 kHz): a 1 kHz component, the top of type B's range and of type F's composite test current, leaks into
+        // its neighbours whenever the window is a few hundredths of a hertz off synchronisation, and IEC 61000-4-7
+        // counts those bins to its group. Likewise for 9 kHz.
+        var above1k = HarmonicGroups.Sum(power, (int)Math.Round(1000 / resolution) + (_cycles / 2) + 1, power.Length - 1);
+        var above9k = HarmonicGroups.Sum(power, (int)Math.Round(9000 / resolution) + (_cycles / 2) + 1, power.Length - 1);
         for (var b = 0; b < _bands.Length; b++)
         {
             var (low, high) = _bands[b];

@@ -21,14 +21,26 @@ public static class SubMainsDc
 
     /// <summary>DC of a window, amperes.</summary>
     /// <param name="samplesA">The window's samples, amperes.</param>
-    /// <param name="binRmsA">The window's spectrum, RMS per bin (bin 0 = DC), amperes.</param>
+    /// <param name="binPowerA2">The window's spectrum, mean square per bin (bin 0 = DC), square amperes.</param>
     /// <param name="cyclesPerWindow">Mains cycles in the window (bins below this are sub-mains).</param>
     /// <param name="meanA">The window's plain mean, amperes.</param>
     /// <param name="acRmsA">The window's AC RMS, amperes.</param>
-    public static double Estimate(ReadOnlySpan<double> samplesA, ReadOnlySpan<double> binRmsA, int cyclesPerWindow,
+    public static double Estimate(ReadOnlySpan<double> samplesA, ReadOnlySpan<double> binPowerA2, int cyclesPerWindow,
         double meanA, double acRmsA)
     {
-        var top = Math.Min(cyclesPerWindow - 1, binRmsA.Length - 2);
+        var top = Math.Min(cyclesPerWindow - 1, binPowerA2.Length - 2);
+        if (top < 1)
+        {
+            return meanA;
+        }
+
+        // RMS of the bins that matter: 0 to the fundamental's bin (few, so no buffer is worth it).
+        Span<double> binRmsA = stackalloc double[top + 2];
+        for (var k = 0; k < binRmsA.Length; k++)
+        {
+            binRmsA[k] = Math.Sqrt(Math.Max(0, binPowerA2[k]));
+        }
+
         var peak = 0;
         for (var k = 1; k <= top; k++)
         {

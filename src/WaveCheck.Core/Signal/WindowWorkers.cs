@@ -145,7 +145,16 @@ internal sealed class WindowWorkers
 
     private void Measure(WindowSlot slot, WaveformShape shape)
     {
-        var (sum, _, min, max) = slot.Moments;
-        slot.Shape = shape.Measure(slot.Window, _cycles, sum / slot.Length, min, max);
+        var (sum, squares, min, max) = slot.Moments;
+        var mean = sum / slot.Length;
+        var figures = shape.Measure(slot.Window, _cycles, mean, min, max);
+        if (!figures.PulsatingDc)
+        {
+            // The DC a bipolar window rides on, unbiased by a sub-mains motor frequency (see SubMainsDc).
+            var acRms = Math.Sqrt(Math.Max(0, (squares / slot.Length) - (mean * mean)));
+            figures = figures with { SmoothDcA = SubMainsDc.Estimate(slot.Window, slot.Bins, _cycles, mean, acRms) };
+        }
+
+        slot.Shape = figures;
     }
 }

@@ -16,14 +16,14 @@ public class SubMainsDcTests
             x[n] = signal(n / RateHz);
         }
 
-        // Reference spectrum from MathNet.Numerics (a general-purpose library), scaled to RMS per bin.
+        // Reference spectrum from MathNet.Numerics (a general-purpose library), scaled to mean square per bin.
         var complex = x.Select(v => new System.Numerics.Complex(v, 0)).ToArray();
         Fourier.Forward(complex, FourierOptions.NoScaling);
         var bins = new double[(Window / 2) + 1];
-        bins[0] = Math.Abs(complex[0].Real) / Window;
+        bins[0] = Math.Pow(complex[0].Real / Window, 2);
         for (var k = 1; k < bins.Length; k++)
         {
-            bins[k] = complex[k].Magnitude * Math.Sqrt(2) / Window;
+            bins[k] = 2 * Math.Pow(complex[k].Magnitude / Window, 2);
         }
 
         var mean = x.Average();
