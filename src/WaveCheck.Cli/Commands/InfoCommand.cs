@@ -57,6 +57,12 @@ internal static class InfoCommand
         Row("samples", info.SampleCount.ToString("N0", CultureInfo.InvariantCulture) + (info.SampleCountExact ? "" : " (estimate)"));
         Row("duration", string.Create(CultureInfo.InvariantCulture, $"{info.DurationS:0.######} s"));
         Row("Nyquist", Hz(info.NyquistHz));
+        Row("start", info.StartTime?.ToString("yyyy-MM-dd HH:mm:ss.ffffff zzz", CultureInfo.InvariantCulture) ?? "not stated in the file");
+        if (info.TriggerTime is { } trigger)
+        {
+            var offset = info.StartTime is { } recorded ? string.Create(CultureInfo.InvariantCulture, $" ({(trigger - recorded).TotalSeconds:0.######} s after the start)") : "";
+            Row("trigger", trigger.ToString("yyyy-MM-dd HH:mm:ss.ffffff zzz", CultureInfo.InvariantCulture) + offset);
+        }
         Row("scale", string.Create(CultureInfo.InvariantCulture, $"{info.Calibration.ScaleA:G6} A per stored unit: {info.Calibration.Source}"));
         Row("full scale", info.FullScaleA is { } fs ? CurrentText.WithUnit(fs) : "not known");
         Row("sensor coupling", info.SensorCoupling.ToString().ToLowerInvariant());

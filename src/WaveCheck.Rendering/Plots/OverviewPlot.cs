@@ -71,6 +71,7 @@ public static class OverviewPlot
 
         DeviceLines.Add(model, assessment, mirrored: true);
         AddEvents(model, events);
+        TriggerMarker.Add(model, analysis.Capture);
         AxisFit.Fit(model, y, 0.08);
         return model;
     }

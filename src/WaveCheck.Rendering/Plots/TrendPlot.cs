@@ -55,6 +55,7 @@ public static class TrendPlot
                 PlotStyle.BluishGreen, LineStyle.LongDash, mirrored: false);
         }
 
+        TriggerMarker.Add(model, analysis.Capture);
         AxisFit.Fit(model, y, 0.08);
         return model;
     }
