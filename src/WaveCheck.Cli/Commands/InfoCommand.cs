@@ -14,7 +14,10 @@ internal static class InfoCommand
         var file = new Argument<string>("file") { Description = "Capture file: WAV, CSV/TXT/TSV." };
         var json = new Option<string?>("--json") { Description = "Also write the facts as JSON to this file, or '-' for stdout (then no table)." };
         var import = new ImportOptionSet();
-        var command = new Command("info", "Show a capture's format, channels, rate, calibration, range and warnings.");
+        var command = new Command("info",
+            "Show a capture's format, channels, rate, calibration, range and warnings. Examples:\n" +
+            "  wavecheck info clamp.wav --sensitivity \"10 mV/mA\" --range \"1 V\" --sensor dc\n" +
+            "  wavecheck info logger.csv --sum L1,L2,L3,N --json -");
         command.Arguments.Add(file);
         command.Options.Add(json);
         import.AddTo(command);

@@ -31,7 +31,10 @@ internal static class SynthCommand
         var format = new Option<string>("--format") { Description = "WAV encoding: pcm16, pcm24, pcm32, float32 or float64.", DefaultValueFactory = _ => "float32" };
         var sensor = new Option<string>("--sensor") { Description = "Sensor coupling stored in the WAV: dc, ac or unknown.", DefaultValueFactory = _ => "dc" };
 
-        var command = new Command("synth", "Write a test waveform (standard test currents, drive and charger leakage) to WAV or CSV.")
+        var command = new Command("synth",
+            "Write a test waveform (standard test currents, drive and charger leakage) to WAV or CSV. Examples:\n" +
+            "  wavecheck synth halfwave:peak=30mA,angle=90 dc:level=8mA -o typeF-test.wav\n" +
+            "  wavecheck synth composite:rms=20mA,motor=10Hz,switch=1kHz --mains 60 --rate 50kHz -o drive.csv")
         {
             parts, output, rate, duration, mains, fullScale, format, sensor,
         };
