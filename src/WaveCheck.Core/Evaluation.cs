@@ -10,6 +10,10 @@ namespace WaveCheck.Core;
 /// <param name="Assessment">What it demands.</param>
 public sealed record Evaluation(AnalysisResult Analysis, AssessmentResult Assessment)
 {
+    /// <summary>A capture whose samples all lie within this span is flat (engineering choice: 1 µA, below any
+    /// residual current that matters and above the quantisation of a 16-bit recorder on a 30 mA range).</summary>
+    public const double FlatSpanA = 1e-6;
+
     /// <summary>
     /// Reads one capture in one streaming pass (analysis and IEC 60990 touch-current networks together), then assesses it.
     /// </summary>
@@ -29,6 +33,19 @@ public sealed record Evaluation(AnalysisResult Analysis, AssessmentResult Assess
         var meter = new TouchCurrentMeter(source.Info.SampleRateHz);
         var analysis = Analyzer.Analyze(source, analysisOptions with { Sinks = [.. analysisOptions.Sinks, meter] }, progress);
         analysis = analysis with { TouchCurrent = meter.Result };
+        if (analysis.Summary.PeakPositiveA - analysis.Summary.PeakNegativeA <= FlatSpanA)
+        {
+            // A verdict on a dead channel would read as "type AC sufficient": say loudly that nothing was recorded.
+            analysis = analysis with
+            {
+                Warnings =
+                [
+                    .. analysis.Warnings,
+                    new CaptureWarning("flat", "the residual current is flat (every sample within 1 µA of one value): check that the clamp is closed round all live conductors, the logger channel and the calibration before trusting any verdict"),
+                ],
+            };
+        }
+
         var assessment = DeviceTypeAssessor.Assess(analysis, assessmentOptions);
         return new Evaluation(analysis with { Assessment = assessment }, assessment);
     }

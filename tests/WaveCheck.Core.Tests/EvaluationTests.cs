@@ -119,6 +119,16 @@ public class EvaluationTests
     }
 
     [Fact]
+    public void A_flat_capture_says_so_in_its_cautions()
+    {
+        // A dead channel must not pass silently as "type AC sufficient" (common practice, no source: check the chain).
+        using var source = new SynthCaptureSource([new SmoothDcComponent(0)], 50_000, 1.0);
+        var result = Evaluation.Run(source, new AnalysisOptions(), new AssessmentOptions());
+        Assert.Contains(result.Analysis.Warnings, w => w.Code == "flat");
+        Assert.Contains(result.Assessment.Cautions, c => c.Contains("flat", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void Touch_current_rides_on_the_same_pass()
     {
         // IEC 60990 unweighted network under current drive reads the injected current: a 1 mA rms 50 Hz sine reads
