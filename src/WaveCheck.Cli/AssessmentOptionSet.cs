@@ -31,6 +31,16 @@ internal sealed class AssessmentOptionSet
         Description = "The circuit feeds an EV charging point (IEC 60364-7-722 and the 6 mA DC of IEC 62955).",
     };
 
+    public Option<string?> FrequencyFactors { get; } = new("--frequency-factors")
+    {
+        Description = "Type F/B tripping limits at 150 Hz, 400 Hz and 1 kHz as multiples of IΔn (default 2.4,6,14: IEC 62423 §5.3, from memory).",
+    };
+
+    public Option<string?> BPlusLimit { get; } = new("--bplus-limit")
+    {
+        Description = "B+ upper tripping limit up to 20 kHz (default 420mA: DIN VDE 0664-400, from memory).",
+    };
+
     private readonly (Option<string?> Option, bool Fraction, Func<AssessmentOptions, double, AssessmentOptions> Apply)[] _thresholds;
 
     public AssessmentOptionSet()
@@ -74,6 +84,9 @@ internal sealed class AssessmentOptionSet
         {
             command.Options.Add(option);
         }
+
+        command.Options.Add(FrequencyFactors);
+        command.Options.Add(BPlusLimit);
     }
 
     /// <summary>Parses the typed values once; checks ranges.</summary>
@@ -108,6 +121,23 @@ internal sealed class AssessmentOptionSet
                     : throw new OptionValueException(option.Name, text, "a number such as 0.3")
                 : Quantity.ParseCurrentA(option.Name, text, bareUnit: "mA");
             options = apply(options, value);
+        }
+
+        if (parse.GetValue(FrequencyFactors) is { } factorsText)
+        {
+            var parts = factorsText.Split(',', StringSplitOptions.TrimEntries);
+            var values = new double[parts.Length];
+            if (parts.Length != 3 || !parts.Select((p, i) => double.TryParse(p, NumberStyles.Float, CultureInfo.InvariantCulture, out values[i])).All(ok => ok))
+            {
+                throw new OptionValueException("--frequency-factors", factorsText, "three numbers separated by commas, such as 2.4,6,14");
+            }
+
+            options = options with { FrequencyFactor150Hz = values[0], FrequencyFactor400Hz = values[1], FrequencyFactor1kHz = values[2] };
+        }
+
+        if (parse.GetValue(BPlusLimit) is { } limitText)
+        {
+            options = options with { BPlusUpperLimitA = Quantity.ParseCurrentA("--bplus-limit", limitText, bareUnit: "mA") };
         }
 
         options.Validate();

@@ -42,12 +42,13 @@ internal sealed class AppliedThresholds
         LikelyFraction = Value("likelyRiskFraction", o.LikelyRiskFraction, Limits.LikelyRiskFraction, "1",
             "engineering choice: nuisance risk 'likely' from the 0.5 IΔn non-operating limit (IEC 61008-1)");
         Add("nonOperatingFraction", Limits.NonOperatingFraction, "1", "IEC 61008-1 / IEC 61009-1 Table 1, 0.5 IΔn (std)");
-        Add("frequencyFactor150Hz", Limits.FrequencyFactor150Hz, "1", "IEC 62423 §5.3 upper limit 2.4 IΔn at 150 Hz (from memory)");
-        Add("frequencyFactor400Hz", Limits.FrequencyFactor400Hz, "1", "IEC 62423 §5.3 upper limit 6 IΔn at 400 Hz (from memory)");
-        Add("frequencyFactor1kHz", Limits.FrequencyFactor1kHz, "1", "IEC 62423 §5.3 upper limit 14 IΔn at 1 kHz (from memory)");
+        Factors = new TripFactors(
+            Value("frequencyFactor150Hz", o.FrequencyFactor150Hz, Limits.FrequencyFactor150Hz, "1", "IEC 62423 §5.3 upper limit 2.4 IΔn at 150 Hz (from memory)"),
+            Value("frequencyFactor400Hz", o.FrequencyFactor400Hz, Limits.FrequencyFactor400Hz, "1", "IEC 62423 §5.3 upper limit 6 IΔn at 400 Hz (from memory)"),
+            Value("frequencyFactor1kHz", o.FrequencyFactor1kHz, Limits.FrequencyFactor1kHz, "1", "IEC 62423 §5.3 upper limit 14 IΔn at 1 kHz (from memory)"),
+            Value("bPlusUpperLimitA", o.BPlusUpperLimitA, Limits.BPlusUpperLimitA, "A", "DIN VDE 0664-400 B+ upper limit 420 mA to 20 kHz (from memory)"));
         Add("typeBSmoothDcFactor", Limits.TypeBSmoothDcFactor, "1", "IEC 62423 type B smooth DC upper limit 2 IΔn (std)");
         Add("pulsatingDcFactor", Limits.PulsatingDcFactor, "1", "IEC 61008-1 pulsating DC upper limit 1.4 IΔn (std)");
-        Add("bPlusUpperLimitA", Limits.BPlusUpperLimitA, "A", "DIN VDE 0664-400 B+ upper limit 420 mA to 20 kHz (from memory)");
         Add("sixPulseRippleShareOfDc", Limits.MultiPhaseRippleShareOfDc, "1",
             "engineering choice: 6 × mains ripple of at least 2 % of the smooth DC reads as a three-phase bridge (closed form 4.0 %)");
         Add("harmonicRippleRatio", Limits.MultiPhaseRippleRatio, "1",
@@ -69,6 +70,9 @@ internal sealed class AppliedThresholds
     public double LeakageBudgetFraction { get; }
     public double PossibleFraction { get; }
     public double LikelyFraction { get; }
+
+    /// <summary>Frequency factors and the B+ limit as applied (defaults or overrides).</summary>
+    public TripFactors Factors { get; }
 
     public IReadOnlyList<ThresholdUse> Uses => _uses;
 

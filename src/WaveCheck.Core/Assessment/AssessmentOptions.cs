@@ -65,6 +65,22 @@ public sealed record AssessmentOptions
     /// <summary>Nuisance risk "likely" boundary as a fraction of IΔn (CLI <c>--risk-likely</c>); default 0.5.</summary>
     public double? LikelyRiskFraction { get; init; }
 
+    /// <summary>IEC 62423 upper tripping limit at 150 Hz as a multiple of IΔn (CLI <c>--frequency-factors</c>, first value);
+    /// default 2.4, from memory.</summary>
+    public double? FrequencyFactor150Hz { get; init; }
+
+    /// <summary>IEC 62423 upper tripping limit at 400 Hz as a multiple of IΔn (second value of <c>--frequency-factors</c>);
+    /// default 6, from memory.</summary>
+    public double? FrequencyFactor400Hz { get; init; }
+
+    /// <summary>IEC 62423 upper tripping limit at 1 kHz as a multiple of IΔn (third value of <c>--frequency-factors</c>);
+    /// default 14, from memory.</summary>
+    public double? FrequencyFactor1kHz { get; init; }
+
+    /// <summary>B+ upper tripping limit up to 20 kHz, amperes (CLI <c>--bplus-limit</c>); default 420 mA
+    /// (DIN VDE 0664-400, from memory).</summary>
+    public double? BPlusUpperLimitA { get; init; }
+
     /// <summary>Checks every value; the message names the CLI option, the value and the range expected.</summary>
     /// <exception cref="OptionValueException">A value is out of range.</exception>
     public void Validate()
@@ -81,6 +97,15 @@ public sealed record AssessmentOptions
         CheckFraction("--leakage-budget", LeakageBudgetFraction);
         CheckFraction("--risk-possible", PossibleRiskFraction);
         CheckFraction("--risk-likely", LikelyRiskFraction);
+        CheckCurrent("--bplus-limit", BPlusUpperLimitA, allowZero: false);
+        var f150 = FrequencyFactor150Hz ?? Limits.FrequencyFactor150Hz;
+        var f400 = FrequencyFactor400Hz ?? Limits.FrequencyFactor400Hz;
+        var f1k = FrequencyFactor1kHz ?? Limits.FrequencyFactor1kHz;
+        if (!(f150 >= 1 && f400 >= f150 && f1k >= f400 && f1k <= 1000))
+        {
+            throw new OptionValueException("--frequency-factors", $"{Text(f150)},{Text(f400)},{Text(f1k)}",
+                "three multiples of IΔn at 150 Hz, 400 Hz and 1 kHz, each at least the one before and at least 1, such as 2.4,6,14");
+        }
         if ((TypeASmoothDcToleranceA ?? Limits.TypeASmoothDcToleranceA) > (TypeFSmoothDcToleranceA ?? Limits.TypeFSmoothDcToleranceA))
         {
             throw new OptionValueException("--type-a-dc", Text(TypeASmoothDcToleranceA ?? Limits.TypeASmoothDcToleranceA) + " A",

@@ -28,14 +28,14 @@ internal static class Margins
         double weightedSq = 0;
         foreach (var (f, a) in m.HarmonicsTo1k)
         {
-            var w = a / TripWeighting.AcFactor(type, f, m.MainsHz, rated);
+            var w = a / TripWeighting.AcFactor(type, f, m.MainsHz, rated, th.Factors);
             weightedSq += w * w;
         }
 
         var harmonicsWeighted = Math.Sqrt(weightedSq);
         parts.Add(new FrequencyContribution("harmonics to 1 kHz", m.MainsHz * 1.5, Limits.TypeBUpperFrequencyHz,
             m.HarmonicsTo1kA, harmonicsWeighted > 0 ? m.HarmonicsTo1kA / harmonicsWeighted : 1.0, harmonicsWeighted));
-        var hfFactor = TripWeighting.HighFrequencyFactor(type, rated);
+        var hfFactor = TripWeighting.HighFrequencyFactor(type, rated, th.Factors);
         Add("1-20 kHz", Limits.TypeBUpperFrequencyHz, Limits.BPlusUpperFrequencyHz, m.From1kTo20kA, hfFactor);
         Add("above 20 kHz", Limits.BPlusUpperFrequencyHz, Math.Max(Limits.BPlusUpperFrequencyHz, m.SampleRateHz / 2), m.Above20kA, hfFactor);
 

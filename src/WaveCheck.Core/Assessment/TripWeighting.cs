@@ -31,8 +31,10 @@ public static class TripWeighting
     /// <param name="frequencyHz">Frequency, hertz.</param>
     /// <param name="mainsHz">Mains frequency, hertz.</param>
     /// <param name="ratedA">IΔn, amperes (B+ above 1 kHz depends on it).</param>
-    public static double AcFactor(DeviceType type, double frequencyHz, double mainsHz, double ratedA)
+    /// <param name="factors">The IEC 62423 factors and B+ limit to use; null for the defaults in <see cref="Limits"/>.</param>
+    public static double AcFactor(DeviceType type, double frequencyHz, double mainsHz, double ratedA, TripFactors? factors = null)
     {
+        var k = factors ?? TripFactors.Default;
         if (type is DeviceType.AC or DeviceType.A || frequencyHz <= mainsHz)
         {
             return 1.0;
@@ -40,12 +42,12 @@ public static class TripWeighting
 
         if (frequencyHz > Limits.TypeBUpperFrequencyHz)
         {
-            return HighFrequencyFactor(type, ratedA);
+            return HighFrequencyFactor(type, ratedA, k);
         }
 
         // Points of the IEC 62423 upper limits, interpolated linearly in log-frequency.
         ReadOnlySpan<double> fs = [mainsHz, 150, 400, Limits.TypeBUpperFrequencyHz];
-        ReadOnlySpan<double> ks = [1.0, Limits.FrequencyFactor150Hz, Limits.FrequencyFactor400Hz, Limits.FrequencyFactor1kHz];
+        ReadOnlySpan<double> ks = [1.0, k.At150Hz, k.At400Hz, k.At1kHz];
         for (var i = 1; i < fs.Length; i++)
         {
             if (frequencyHz <= fs[i] && fs[i] > fs[i - 1])
@@ -56,18 +58,23 @@ public static class TripWeighting
             }
         }
 
-        return Limits.FrequencyFactor1kHz;
+        return k.At1kHz;
     }
 
     /// <summary>Factor for content above 1 kHz (up to and beyond 20 kHz).</summary>
     /// <param name="type">Device type.</param>
     /// <param name="ratedA">IΔn, amperes.</param>
-    public static double HighFrequencyFactor(DeviceType type, double ratedA) => type switch
+    /// <param name="factors">The factors to use; null for the defaults.</param>
+    public static double HighFrequencyFactor(DeviceType type, double ratedA, TripFactors? factors = null)
     {
-        DeviceType.AC or DeviceType.A => 1.0,
-        DeviceType.BPlus => Math.Min(Limits.FrequencyFactor1kHz, Limits.BPlusUpperLimitA / ratedA),
-        _ => Limits.FrequencyFactor1kHz,
-    };
+        var k = factors ?? TripFactors.Default;
+        return type switch
+        {
+            DeviceType.AC or DeviceType.A => 1.0,
+            DeviceType.BPlus => Math.Min(k.At1kHz, k.BPlusUpperLimitA / ratedA),
+            _ => k.At1kHz,
+        };
+    }
 
     /// <summary>Factor for smooth DC.</summary>
     /// <param name="type">Device type.</param>
@@ -78,4 +85,17 @@ public static class TripWeighting
     /// <param name="type">Device type.</param>
     public static double PulsatingDcFactor(DeviceType type) =>
         type == DeviceType.AC ? 1.0 : Limits.PulsatingDcFactor;
+}
+
+/// <summary>The frequency factors of IEC 62423 §5.3 (upper tripping limits as multiples of IΔn, from memory) and the B+
+/// upper limit (DIN VDE 0664-400, from memory), as applied: defaults from <see cref="Limits"/> or the user's.</summary>
+/// <param name="At150Hz">Multiple of IΔn at 150 Hz.</param>
+/// <param name="At400Hz">Multiple of IΔn at 400 Hz.</param>
+/// <param name="At1kHz">Multiple of IΔn at 1 kHz.</param>
+/// <param name="BPlusUpperLimitA">B+ upper tripping limit to 20 kHz, amperes.</param>
+public sealed record TripFactors(double At150Hz, double At400Hz, double At1kHz, double BPlusUpperLimitA)
+{
+    /// <summary>The defaults of <see cref="Limits"/>.</summary>
+    public static TripFactors Default { get; } = new(Limits.FrequencyFactor150Hz, Limits.FrequencyFactor400Hz,
+        Limits.FrequencyFactor1kHz, Limits.BPlusUpperLimitA);
 }

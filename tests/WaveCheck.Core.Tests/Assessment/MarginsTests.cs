@@ -91,4 +91,30 @@ public class MarginsTests
         Assert.Equal("B", r.Blinding.DeviceType);
         Assert.True(r.Blinding.Blinded); // 14 mA > max(0.4 x 30, 10) = 12 mA (IEC 62423)
     }
+
+    [Fact]
+    public void FromMemoryFrequencyFactorsCanBeOverriddenAndChangeTheMargin()
+    {
+        // REFERENCE.md: the IEC 62423 factors (2.4 at 150 Hz) are from memory, so a user may put their own. Hand
+        // calculation: 12 mA at 150 Hz on type B counts as 12/2.4 = 5.0 mA by default, 12/1.2 = 10.0 mA with 1.2.
+        var b = new AnalysisBuilder().Sine(0.0005).Harmonic(3, 0.012);
+        var byDefault = DeviceTypeAssessor.Assess(b.Build(), new AssessmentOptions { InstalledType = DeviceType.B });
+        var overridden = DeviceTypeAssessor.Assess(b.Build(), new AssessmentOptions
+        {
+            InstalledType = DeviceType.B,
+            FrequencyFactor150Hz = 1.2,
+        });
+        var harmonicsDefault = byDefault.NuisanceTrip.Contributions.Single(c => c.Label == "harmonics to 1 kHz");
+        var harmonicsOverridden = overridden.NuisanceTrip.Contributions.Single(c => c.Label == "harmonics to 1 kHz");
+        Assert.Equal(0.005, harmonicsDefault.WeightedRmsA, 1e-6);
+        Assert.Equal(0.010, harmonicsOverridden.WeightedRmsA, 1e-6);
+        Assert.Contains(overridden.Thresholds, t => t.Name == "frequencyFactor150Hz" && t.Value == 1.2 && t.Source.Contains("overridden", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void FrequencyFactorsOutOfOrderAreRefused()
+    {
+        var ex = Assert.Throws<OptionValueException>(() => new AssessmentOptions { FrequencyFactor150Hz = 8 }.Validate());
+        Assert.Contains("--frequency-factors", ex.Message, StringComparison.Ordinal);
+    }
 }
