@@ -504,12 +504,9 @@ public static class ReportWriter
     private static void Cautions(HtmlWriter html, AssessmentResult? assessment)
     {
         html.Raw("<section id=\"cautions\">\n<h2>Cautions</h2>\n");
-        var all = new List<string>(StandingCautions);
-        if (assessment is not null)
-        {
-            all.AddRange(assessment.Cautions.Where(c => !all.Contains(c, StringComparer.Ordinal)));
-        }
-
+        // An assessment carries the standing cautions in its own words (verify on site, local codes, maker's data,
+        // licensed people) plus the capture's limitations; printing both lists said each thing twice.
+        var all = assessment is { Cautions.Count: > 0 } ? assessment.Cautions : StandingCautions;
         List(html, all, null);
         html.Raw("</section>\n");
     }

@@ -79,6 +79,21 @@ public sealed partial class ReportWriterTests : IDisposable
     }
 
     [Fact]
+    public void Each_caution_is_said_once()
+    {
+        // With an assessment its cautions replace the report's standing ones: printing both said "verify on site" twice.
+        var assessment = ResultBuilder.Assessment();
+        var html = ReportWriter.Render(ResultBuilder.Typical(), assessment, Context);
+        var section = html[html.IndexOf("id=\"cautions\"", StringComparison.Ordinal)..];
+        section = section[..section.IndexOf("</section>", StringComparison.Ordinal)];
+        var items = section.Split("<li>").Length - 1;
+        Assert.Equal(assessment.Cautions.Count, items);
+
+        var analysisOnly = ReportWriter.Render(ResultBuilder.Typical(), null, Context);
+        Assert.Contains(System.Net.WebUtility.HtmlEncode(ReportWriter.StandingCautions[0]), analysisOnly, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Blinding_is_stated_in_words_when_blinded()
     {
         var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment(blinded: true), Context);
