@@ -82,6 +82,8 @@ public sealed class CaptureAnalysis
     private double _harmonicsSum;
     private double _above1kSum;
     private (double Re, double Im, double Centre)? _previousPhasor;
+    private double[] _hann = [];
+    private double[] _phasorScratch = [];
     private double _above9kSum;
     private double _smoothDcSum;
     private double _smoothDcMax;
@@ -398,7 +400,18 @@ public sealed class CaptureAnalysis
         var mean = sum / w.Length;
         var ac = Math.Sqrt(Math.Max(0, (squares / w.Length) - (mean * mean)));
         var nominal = _mains.NominalHz;
-        var (re, im, fundamental) = MainsFrequency.WindowPhasor(w, _fs, nominal, slot.Start, mean);
+        if (_hann.Length != w.Length)
+        {
+            // Window lengths change only when the tracked frequency moves by about 0.005 Hz: rebuild rarely.
+            _hann = new double[w.Length];
+            MainsFrequency.HannWeights(_hann);
+            if (_phasorScratch.Length < w.Length)
+            {
+                _phasorScratch = new double[w.Length];
+            }
+        }
+
+        var (re, im, fundamental) = MainsFrequency.WindowPhasor(w, _fs, nominal, slot.Start, mean, _hann, _phasorScratch);
         var centre = slot.Start + ((w.Length - 1) / 2.0);
         var strong = fundamental >= MainsFrequency.MinFundamentalA && fundamental >= MainsFrequency.MinFundamentalShare * ac;
         if (strong && _previousPhasor is { } previous)
