@@ -295,9 +295,7 @@ public static class DeviceTypeAssessor
             c.Add(blinding.Explanation);
         }
 
-        c.Add("Verify on site with a suitable instrument (an RCD tester for the trip test, a DC-capable leakage clamp for the residual current) before relying on this verdict.");
-        c.Add("Follow local codes and the device maker's data; where they differ from this tool, they decide.");
-        c.Add("Have the work on the installation done by licensed or otherwise qualified people.");
+        c.AddRange(StandingCautions.All);
         c.Add("Type AC is not permitted in some countries, and some codes allow it only for fixed equipment with no DC component.");
         c.Add($"The verdict covers only the operating states in this capture ({analysis.Capture.DurationS:0.#} s); start-up, other speeds or charging phases may demand more: capture each.");
         if (!dcKnown)

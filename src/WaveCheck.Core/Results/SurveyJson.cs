@@ -28,12 +28,7 @@ public sealed record SurveyDocument
 public static class SurveyCautions
 {
     /// <summary>The cautions, each one sentence.</summary>
-    public static IReadOnlyList<string> All { get; } =
-    [
-        "These findings come from recorded waveforms: verify them on site with the installed devices under real load before acting on them.",
-        "Local wiring codes and the device maker's data decide what may be installed; where they differ from these findings, they win.",
-        "Changes to the installation must be designed and carried out by people licensed for such work.",
-    ];
+    public static IReadOnlyList<string> All => Assessment.StandingCautions.All;
 }
 
 /// <summary>Writes <see cref="SurveyDocument"/>.</summary>

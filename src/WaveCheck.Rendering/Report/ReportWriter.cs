@@ -28,13 +28,7 @@ public static class ReportWriter
     ];
 
     /// <summary>Cautions stated with every report, whatever the assessment adds.</summary>
-    public static readonly IReadOnlyList<string> StandingCautions =
-    [
-        "Verify on site: a recording shows one period of operation; measure again under every operating mode the equipment has.",
-        "Local wiring codes and the authority having jurisdiction take precedence over this report.",
-        "Check the device maker's data for the exact device: tripping behaviour within a type varies between products.",
-        "Selecting, installing and testing protective devices is work for qualified, licensed people.",
-    ];
+    public static IReadOnlyList<string> StandingCautions => Core.Assessment.StandingCautions.All;
 
     /// <summary>Share of the largest value below which harmonic and band rows are left out of the tables
     /// (engineering choice: 0.1 % keeps every row a reader could act on).</summary>
