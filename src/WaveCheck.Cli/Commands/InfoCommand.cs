@@ -63,7 +63,7 @@ internal static class InfoCommand
         Row("start", info.StartTime?.ToString("yyyy-MM-dd HH:mm:ss.ffffff zzz", CultureInfo.InvariantCulture) ?? "not stated in the file");
         if (info.TriggerTime is { } trigger)
         {
-            var offset = info.StartTime is { } recorded ? string.Create(CultureInfo.InvariantCulture, $" ({(trigger - recorded).TotalSeconds:0.######} s after the start)") : "";
+            var offset = info.TriggerOffsetS is { } s ? string.Create(CultureInfo.InvariantCulture, $" ({s:0.######} s after the start)") : "";
             Row("trigger", trigger.ToString("yyyy-MM-dd HH:mm:ss.ffffff zzz", CultureInfo.InvariantCulture) + offset);
         }
         Row("scale", string.Create(CultureInfo.InvariantCulture, $"{info.Calibration.ScaleA:G6} A per stored unit: {info.Calibration.Source}"));

@@ -45,6 +45,9 @@ public sealed record CaptureInfo
     /// <summary>Trigger time, where the format states one (COMTRADE).</summary>
     public DateTimeOffset? TriggerTime { get; init; }
 
+    /// <summary>Trigger time as seconds from the start of the recording; null unless both times are stated.</summary>
+    public double? TriggerOffsetS => TriggerTime is { } trigger && StartTime is { } start ? (trigger - start).TotalSeconds : null;
+
     /// <summary>Calibration of the residual-current channel.</summary>
     public required Calibration Calibration { get; init; }
 

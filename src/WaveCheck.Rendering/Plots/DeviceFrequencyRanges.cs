@@ -20,10 +20,10 @@ public static class DeviceFrequencyRanges
     public const double MainsBandShare = 0.10;
 
     /// <summary>Upper edge of types F and B, hertz (IEC 62423).</summary>
-    public const double TypeFbUpperHz = 1_000;
+    public const double TypeFbUpperHz = Core.Assessment.Limits.TypeBUpperFrequencyHz;
 
     /// <summary>Upper edge of type B+, hertz (DIN VDE 0664-400).</summary>
-    public const double TypeBPlusUpperHz = 20_000;
+    public const double TypeBPlusUpperHz = Core.Assessment.Limits.BPlusUpperFrequencyHz;
 
     /// <summary>The stretches in ascending frequency; the mains band lies on top of the first.</summary>
     /// <param name="mainsHz">Mains frequency, hertz.</param>

@@ -7,14 +7,10 @@ namespace WaveCheck.Rendering.Plots;
 /// <summary>Marks a recorder's trigger (COMTRADE) on time-axis plots: the moment the relay or recorder fired.</summary>
 internal static class TriggerMarker
 {
-    /// <summary>Seconds from the capture's start to its trigger; null when the file states no trigger or no start.</summary>
-    public static double? OffsetS(CaptureInfo capture) =>
-        capture.TriggerTime is { } trigger && capture.StartTime is { } start ? (trigger - start).TotalSeconds : null;
-
     /// <summary>Adds a vertical "trigger" line where the capture states one within its duration.</summary>
     public static void Add(PlotModel model, CaptureInfo capture)
     {
-        if (OffsetS(capture) is not { } offset || offset < 0 || offset > capture.DurationS)
+        if (capture.TriggerOffsetS is not { } offset || offset < 0 || offset > capture.DurationS)
         {
             return;
         }
