@@ -93,12 +93,11 @@ internal static class SurveyCommand
             OutputDirectory = outputDirectory,
             Site = site,
             Parquet = parquet,
-            WriteReport = (evaluation, stem) =>
+            WriteReport = (job, evaluation, stem) =>
             {
                 var relative = $"reports/{stem}.html";
-                var circuit = jobs.FirstOrDefault(j => j.File == evaluation.Analysis.Capture.FilePath)?.Settings.Circuit;
                 ReportWriter.Write(Path.Combine(reports, stem + ".html"), evaluation.Analysis, evaluation.Assessment,
-                    new ReportContext(site, circuit, null, DateTimeOffset.Now, evaluation.Analysis.ToolVersion));
+                    new ReportContext(site, job.Settings.Circuit, null, DateTimeOffset.Now, evaluation.Analysis.ToolVersion));
                 return relative;
             },
         };

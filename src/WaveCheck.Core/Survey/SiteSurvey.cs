@@ -24,9 +24,9 @@ public sealed record SiteSurveyOptions
 
     /// <summary>
     /// Writes one capture's report and returns its path relative to <see cref="OutputDirectory"/>; null to write none.
-    /// Called from worker threads, once per capture, with a file stem unique within the survey.
+    /// Called from worker threads, once per capture, with its job, its evaluation and a file stem unique within the survey.
     /// </summary>
-    public Func<Evaluation, string, string?>? WriteReport { get; init; }
+    public Func<SurveyJob, Evaluation, string, string?>? WriteReport { get; init; }
 }
 
 /// <summary>
@@ -60,7 +60,7 @@ public static class SiteSurvey
                 ? options.Analysis
                 : options.Analysis with { WindowCompleted = w => windows.Add(job.File, w) };
             var evaluation = Evaluation.Run(job.File, job.Settings.Import, analysisOptions, ToAssessmentOptions(job.Settings));
-            var report = options.WriteReport?.Invoke(evaluation, stems[job]);
+            var report = options.WriteReport?.Invoke(job, evaluation, stems[job]);
             return new SurveyOutcome(SurveyRow.From(job.File, job.Settings, evaluation.Analysis, evaluation.Assessment, report));
         }, progress, options.MaxParallel);
 
