@@ -15,17 +15,6 @@ namespace WaveCheck.Cli.Commands;
 /// <summary><c>wavecheck analyze FILE</c>: measures a capture and prints a summary; JSON and a per-window CSV on request.</summary>
 internal static class AnalyzeCommand
 {
-    private static readonly (string Name, Func<WindowResult, double?> Value)[] CsvColumns =
-    [
-        ("startS", w => w.StartS), ("durationS", w => w.DurationS), ("frequencyHz", w => w.FrequencyHz),
-        ("rmsA", w => w.RmsA), ("dcA", w => w.DcA), ("acRmsA", w => w.AcRmsA), ("peakPositiveA", w => w.PeakPositiveA),
-        ("peakNegativeA", w => w.PeakNegativeA), ("crestFactor", w => w.CrestFactor), ("smoothDcA", w => w.SmoothDcA),
-        ("pulsatingDc", w => w.PulsatingDc ? 1 : 0), ("currentDelayAngleDeg", w => w.CurrentDelayAngleDeg),
-        ("mainsRmsA", w => w.MainsRmsA), ("belowMainsRmsA", w => w.BelowMainsRmsA), ("harmonicsRmsA", w => w.HarmonicsRmsA),
-        ("above1kHzRmsA", w => w.Above1kHzRmsA), ("above9kHzRmsA", w => w.Above9kHzRmsA), ("thdPercent", w => w.ThdPercent),
-        ("clipped", w => w.Clipped ? 1 : 0),
-    ];
-
     public static Command Create()
     {
         var file = new Argument<string>("file") { Description = "Capture to analyse (WAV, CSV, or COMTRADE .cfg/.cff)." };
@@ -130,29 +119,10 @@ internal static class AnalyzeCommand
         AtomicFile.Write(path, stream =>
         {
             using var writer = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16, leaveOpen: true);
-            writer.WriteLine(string.Join(',', CsvColumns.Select(c => c.Name)));
-            var row = new StringBuilder(256);
+            writer.WriteLine(WindowTable.CsvHeader);
             result = Evaluation.Run(source, options with
             {
-                WindowCompleted = w =>
-                {
-                    // Flags are 1/0, a figure not measured in the window (delay angle, THD) an empty cell.
-                    row.Clear();
-                    for (var i = 0; i < CsvColumns.Length; i++)
-                    {
-                        if (i > 0)
-                        {
-                            row.Append(',');
-                        }
-
-                        if (CsvColumns[i].Value(w) is { } v && double.IsFinite(v))
-                        {
-                            row.Append(v.ToString("G10", CultureInfo.InvariantCulture));
-                        }
-                    }
-
-                    writer.WriteLine(row);
-                },
+                WindowCompleted = w => writer.WriteLine(WindowTable.CsvLine(w)),
             }, assessmentOptions, progress);
         });
         return result!;

@@ -73,21 +73,7 @@ public sealed class ParquetWindowTable : IDisposable
     private static readonly IReadOnlyList<TableColumn<WindowRow>> Columns =
     [
         new TextColumn<WindowRow>("file", r => r.File, nullable: false),
-        new NumberColumn<WindowRow>("startS", r => r.Window.StartS),
-        new NumberColumn<WindowRow>("durationS", r => r.Window.DurationS),
-        new NumberColumn<WindowRow>("frequencyHz", r => r.Window.FrequencyHz),
-        new NumberColumn<WindowRow>("rmsA", r => r.Window.RmsA),
-        new NumberColumn<WindowRow>("dcA", r => r.Window.DcA),
-        new NumberColumn<WindowRow>("acRmsA", r => r.Window.AcRmsA),
-        new NumberColumn<WindowRow>("peakPositiveA", r => r.Window.PeakPositiveA),
-        new NumberColumn<WindowRow>("peakNegativeA", r => r.Window.PeakNegativeA),
-        new NumberColumn<WindowRow>("smoothDcA", r => r.Window.SmoothDcA),
-        new FlagColumn<WindowRow>("pulsatingDc", r => r.Window.PulsatingDc),
-        new NumberColumn<WindowRow>("mainsRmsA", r => r.Window.MainsRmsA),
-        new NumberColumn<WindowRow>("belowMainsRmsA", r => r.Window.BelowMainsRmsA),
-        new NumberColumn<WindowRow>("harmonicsRmsA", r => r.Window.HarmonicsRmsA),
-        new NumberColumn<WindowRow>("above1kHzRmsA", r => r.Window.Above1kHzRmsA),
-        new NumberColumn<WindowRow>("above9kHzRmsA", r => r.Window.Above9kHzRmsA),
+        .. WindowTable.Columns<WindowRow>(r => r.Window),
     ];
 
     private readonly object _gate = new();

@@ -87,8 +87,10 @@ public sealed class ParquetTablesTests : IDisposable
         Assert.Equal(Enumerable.Range(0, 7).Select(i => (double?)(0.001 * (i + 1))), rms);
         Assert.Equal(Enumerable.Range(0, 7).Select(i => (bool?)(i % 2 == 0)), pulsating);
         Assert.Equal(
+            // The same columns as the per-window CSV (one list, WindowTable), after the file they belong to.
             ["file", "startS", "durationS", "frequencyHz", "rmsA", "dcA", "acRmsA", "peakPositiveA", "peakNegativeA",
-             "smoothDcA", "pulsatingDc", "mainsRmsA", "belowMainsRmsA", "harmonicsRmsA", "above1kHzRmsA", "above9kHzRmsA"],
+             "crestFactor", "smoothDcA", "pulsatingDc", "currentDelayAngleDeg", "mainsRmsA", "belowMainsRmsA",
+             "harmonicsRmsA", "above1kHzRmsA", "above9kHzRmsA", "thdPercent", "clipped"],
             reader.Schema.GetDataFields().Select(f => f.Name));
     }
 
