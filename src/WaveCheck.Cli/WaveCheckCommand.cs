@@ -83,9 +83,9 @@ public static class WaveCheckCommand
                 : command.Subcommands.Select(c => c.Name);
             var nearest = NearestName.Find(unmatched, candidates);
             var hint = nearest is null ? "" : $"; did you mean '{nearest}'?";
-            return $"wavecheck: {path}: unknown option or argument '{unmatched}'{hint} (see '{path} --help')";
+            return $"{path}: unknown option or argument '{unmatched}'{hint} (see '{path} --help')";
         }
 
-        return $"wavecheck: {path}: {parse.Errors[0].Message} (see '{path} --help')";
+        return $"{path}: {parse.Errors[0].Message} (see '{path} --help')";
     }
 }
