@@ -36,6 +36,8 @@ internal static class Stages
         Time("moments", () => SampleMath.Moments(w.AsSpan(0, n)));
         Time("frequency (phase halves)", () => MainsFrequency.MeasureWindow(w.AsSpan(0, n), rate, 49.95, 5, 0.01, out _));
         Time("waveform shape", () => shape.Measure(w.AsSpan(0, n), 10, 0.01, 0.004, 0.034));
+        var touch = new TouchCurrentMeter(rate);
+        Time("touch current (3 networks)", () => touch.Push(w.AsSpan(0, n)));
     }
 
     private static void Time(string name, Action action)

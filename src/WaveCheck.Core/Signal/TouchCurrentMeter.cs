@@ -16,7 +16,10 @@ namespace WaveCheck.Core.Signal;
 /// </remarks>
 public sealed class TouchCurrentMeter : ISampleSink
 {
-    private readonly TouchCurrentFilter _unweighted, _perception, _letGo;
+    private readonly TouchCurrentFilter _perception, _letGo;
+
+    // The unweighted network (IEC 60990 Fig. 3) is a plain gain, RB/500 Ω: its reading is the input scaled.
+    private readonly double _unweightedGain;
     /// <summary>Start-up time excluded from the figures, seconds.</summary>
     public const double SettlingS = 0.005;
 
@@ -30,7 +33,14 @@ public sealed class TouchCurrentMeter : ISampleSink
     /// <exception cref="ArgumentOutOfRangeException">The rate is not a positive finite number.</exception>
     public TouchCurrentMeter(double sampleRateHz)
     {
-        _unweighted = TouchCurrentNetworks.Discretise(TouchCurrentNetworks.Unweighted(), sampleRateHz);
+        var unweighted = TouchCurrentNetworks.Discretise(TouchCurrentNetworks.Unweighted(), sampleRateHz);
+        var (gain, b1, b2, a1, a2) = unweighted.Coefficients;
+        if (b1 != 0 || b2 != 0 || a1 != 0 || a2 != 0)
+        {
+            throw new InvalidOperationException("the unweighted network is expected to be a plain gain");
+        }
+
+        _unweightedGain = gain;
         _perception = TouchCurrentNetworks.Discretise(TouchCurrentNetworks.Perception(), sampleRateHz);
         _letGo = TouchCurrentNetworks.Discretise(TouchCurrentNetworks.LetGo(), sampleRateHz);
         _settlingSamples = (long)Math.Ceiling((SettlingS * sampleRateHz) - 1e-9); // 1e-9: 0.005 x 1e5 is not exactly 500
@@ -39,25 +49,52 @@ public sealed class TouchCurrentMeter : ISampleSink
     /// <inheritdoc />
     public void Push(ReadOnlySpan<double> samplesA)
     {
+        // The settling samples feed the filters only.
+        var settling = (int)Math.Clamp(_settlingSamples - _seen, 0, samplesA.Length);
+        foreach (var x in samplesA[..settling])
+        {
+            _perception.Process(x);
+            _letGo.Process(x);
+        }
+
+        _seen += samplesA.Length;
+        samplesA = samplesA[settling..];
+        if (samplesA.IsEmpty)
+        {
+            return;
+        }
+
+        var g = _unweightedGain;
+        var (sum, squares, min, max) = SampleMath.Moments(samplesA);
+        _sumU += g * sum;
+        _sumSqU += g * g * squares;
+        _peakU = Math.Max(_peakU, Math.Abs(g) * Math.Max(Math.Abs(min), Math.Abs(max)));
+
+        // The same sections as TouchCurrentFilter.Process, with coefficients, states and sums in locals so that the
+        // two independent recurrences overlap in the pipeline instead of going through memory every sample.
+        var (pb0, pb1, pb2, pa1, pa2) = _perception.Coefficients;
+        var (lb0, lb1, lb2, la1, la2) = _letGo.Coefficients;
+        var (p1, p2) = _perception.State;
+        var (l1, l2) = _letGo.State;
+        double sumSqP = _sumSqP, sumSqL = _sumSqL, peakP = _peakP, peakL = _peakL;
         foreach (var x in samplesA)
         {
-            var u = _unweighted.Process(x);
-            var p = _perception.Process(x);
-            var l = _letGo.Process(x);
-            if (_seen++ < _settlingSamples)
-            {
-                continue;
-            }
-
-            _count++;
-            _sumU += u;
-            _sumSqU += u * u;
-            _sumSqP += p * p;
-            _sumSqL += l * l;
-            _peakU = Math.Max(_peakU, Math.Abs(u));
-            _peakP = Math.Max(_peakP, Math.Abs(p));
-            _peakL = Math.Max(_peakL, Math.Abs(l)); // Math.Max propagates NaN
+            var p = (pb0 * x) + p1;
+            p1 = ((pb1 * x) + p2) - (pa1 * p);
+            p2 = (pb2 * x) - (pa2 * p);
+            var l = (lb0 * x) + l1;
+            l1 = ((lb1 * x) + l2) - (la1 * l);
+            l2 = (lb2 * x) - (la2 * l);
+            sumSqP += p * p;
+            sumSqL += l * l;
+            peakP = Math.Max(peakP, Math.Abs(p));
+            peakL = Math.Max(peakL, Math.Abs(l)); // Math.Max propagates NaN
         }
+
+        _perception.State = (p1, p2);
+        _letGo.State = (l1, l2);
+        (_sumSqP, _sumSqL, _peakP, _peakL) = (sumSqP, sumSqL, peakP, peakL);
+        _count += samplesA.Length;
     }
 
     /// <summary>Figures so far, amperes (reading = network output voltage / 500 Ω).</summary>
