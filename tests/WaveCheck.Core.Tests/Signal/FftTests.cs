@@ -54,6 +54,12 @@ public class FftTests
     public void PowerMatchesPlainDft(int length) => AssertPowerMatchesPlainDft(length, 1);
 
     [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    [InlineData(3)]
+    [InlineData(5)]
+    [InlineData(6)]
+    [InlineData(10)]
     [InlineData(12)]
     [InlineData(20)]
     [InlineData(40)]
@@ -83,6 +89,44 @@ public class FftTests
         {
             Assert.Equal(data[i].Real, re[i], 1e-9);
             Assert.Equal(data[i].Imaginary, im[i], 1e-9);
+        }
+    }
+
+    [Theory]
+    [InlineData(8)]
+    [InlineData(16)]
+    [InlineData(64)]
+    [InlineData(1024)]
+    [InlineData(12)]
+    [InlineData(24)]
+    [InlineData(96)]
+    [InlineData(3072)]
+    [InlineData(20)]
+    [InlineData(40)]
+    [InlineData(10240)]
+    [InlineData(20480)]
+    public void PermutedPairAppliesTheDftTwice(int length)
+    {
+        // Closed form: the DFT applied twice gives n·x[(−j) mod n]. ForwardToPermuted then ForwardFromPermuted is
+        // exactly that composition, whatever order the spectrum is kept in between (the convolution path's pair).
+        var random = new Random(length + 1);
+        var re = new double[length];
+        var im = new double[length];
+        for (var i = 0; i < length; i++)
+        {
+            re[i] = random.NextDouble() - 0.5;
+            im[i] = random.NextDouble() - 0.5;
+        }
+
+        var (xr, xi) = ((double[])re.Clone(), (double[])im.Clone());
+        var fft = new MixedRadixFft(length);
+        fft.ForwardToPermuted(re, im);
+        fft.ForwardFromPermuted(re, im);
+        for (var j = 0; j < length; j++)
+        {
+            var from = (length - j) % length;
+            Assert.Equal(length * xr[from], re[j], 1e-9);
+            Assert.Equal(length * xi[from], im[j], 1e-9);
         }
     }
 
