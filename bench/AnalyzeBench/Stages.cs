@@ -34,7 +34,8 @@ internal static class Stages
         Time("spectrum, even length", () => even.Power(w.AsSpan(0, even.Length), power));
         Time("spectrum, odd length", () => odd.Power(w.AsSpan(0, odd.Length), power));
         Time("moments", () => SampleMath.Moments(w.AsSpan(0, n)));
-        Time("frequency (phase halves)", () => MainsFrequency.MeasureWindow(w.AsSpan(0, n), rate, 49.95, 5, 0.01, out _));
+        var kernel = new PhasorKernel(n, rate, 50);
+        Time("tracking phasor (kernel)", () => kernel.Phasor(w.AsSpan(0, n), 123_456, 0.01));
         Time("waveform shape", () => shape.Measure(w.AsSpan(0, n), 10, 0.01, 0.004, 0.034));
         var touch = new TouchCurrentMeter(rate);
         Time("touch current (3 networks)", () => touch.Push(w.AsSpan(0, n)));

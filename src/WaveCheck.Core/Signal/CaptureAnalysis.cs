@@ -82,8 +82,8 @@ public sealed class CaptureAnalysis
     private double _harmonicsSum;
     private double _above1kSum;
     private (double Re, double Im, double Centre)? _previousPhasor;
-    private double[] _hann = [];
-    private double[] _phasorScratch = [];
+    private readonly PhasorKernel?[] _phasorKernels = new PhasorKernel?[4];
+    private int _phasorNext;
     private double _above9kSum;
     private double _smoothDcSum;
     private double _smoothDcMax;
@@ -400,18 +400,17 @@ public sealed class CaptureAnalysis
         var mean = sum / w.Length;
         var ac = Math.Sqrt(Math.Max(0, (squares / w.Length) - (mean * mean)));
         var nominal = _mains.NominalHz;
-        if (_hann.Length != w.Length)
+        // Window lengths move by a sample or two as the frequency drifts: the last few kernels are kept.
+        var length = w.Length;
+        var kernel = Array.Find(_phasorKernels, k => k?.Length == length);
+        if (kernel is null)
         {
-            // Window lengths change only when the tracked frequency moves by about 0.005 Hz: rebuild rarely.
-            _hann = new double[w.Length];
-            MainsFrequency.HannWeights(_hann);
-            if (_phasorScratch.Length < w.Length)
-            {
-                _phasorScratch = new double[w.Length];
-            }
+            kernel = new PhasorKernel(w.Length, _fs, nominal);
+            _phasorKernels[_phasorNext] = kernel;
+            _phasorNext = (_phasorNext + 1) % _phasorKernels.Length;
         }
 
-        var (re, im, fundamental) = MainsFrequency.WindowPhasor(w, _fs, nominal, slot.Start, mean, _hann, _phasorScratch);
+        var (re, im, fundamental) = kernel.Phasor(w, slot.Start, mean);
         var centre = slot.Start + ((w.Length - 1) / 2.0);
         var strong = fundamental >= MainsFrequency.MinFundamentalA && fundamental >= MainsFrequency.MinFundamentalShare * ac;
         if (strong && _previousPhasor is { } previous)
@@ -708,7 +707,7 @@ public sealed class CaptureAnalysis
         var source = !_mains.Found ? "fallback" : _options.MainsHz is null ? "detected" : "given";
         var method = _mains.Found
             ? string.Create(CultureInfo.InvariantCulture,
-                $"{(_options.MainsHz is null ? "50/60 Hz chosen by the strongest" : "given nominal; found by the")} Hann-interpolated spectral peak of the first {_detectCount / _fs:0.##} s; tracked per window by the phase advance of the fundamental between the window's first and last {_cycles / 2} cycles")
+                $"{(_options.MainsHz is null ? "50/60 Hz chosen by the strongest" : "given nominal; found by the")} Hann-interpolated spectral peak of the first {_detectCount / _fs:0.##} s; tracked by the phase advance of the Hann-weighted fundamental between consecutive whole windows")
             : string.Create(CultureInfo.InvariantCulture,
                 $"too little mains content: nominal {nominal:0.##} Hz used, not tracked");
         return new MainsResult(meanHz, nominal, source, min, max, method);

@@ -13,9 +13,10 @@ public readonly record struct MainsDetection(double NominalHz, double FrequencyH
 /// <summary>
 /// Finding and tracking the mains frequency. Detection: Hann-windowed spectrum of the first seconds (block-averaged to
 /// about 1 to 2 kHz), the strongest bin near 50 or 60 Hz (or near the given frequency), interpolated, then refined by
-/// the phase method below on the full-rate samples. Tracking: per window, the phase of the fundamental measured on the
-/// first and the last whole-cycle stretch of the window; the phase advance between them over their time offset gives
-/// the frequency error. Stateless and thread-safe.
+/// the phase method below (first and last whole-cycle stretch) on the full-rate samples. Tracking: the Hann-weighted
+/// phasor of each whole window (<see cref="WindowPhasor"/>, <see cref="PhasorKernel"/>) referred to the sample clock;
+/// the phase advance between consecutive windows over their time offset gives the frequency error. Stateless and
+/// thread-safe.
 /// </summary>
 /// <remarks>
 /// Correlating over a whole number of cycles of the reference frequency rejects DC and the harmonics, so a
@@ -192,48 +193,6 @@ public static class MainsFrequency
         var (re, im) = CorrelateHann(samplesA, omega, startSample, meanA);
         var rms = samplesA.Length > 1 ? Math.Sqrt((re * re) + (im * im)) * Math.Sqrt(2) / ((samplesA.Length - 1) / 2.0) : 0;
         return (re, im, rms);
-    }
-
-    /// <summary>
-    /// As <see cref="WindowPhasor(ReadOnlySpan{double}, double, double, long, double)"/>, with the Hann weights given
-    /// (from <see cref="HannWeights"/>, same length as the window) and a scratch buffer of at least that length: one
-    /// weighting pass and one correlation instead of three correlations. Same result to rounding.
-    /// </summary>
-    /// <param name="samplesA">The window, amperes.</param>
-    /// <param name="sampleRateHz">Sample rate, hertz.</param>
-    /// <param name="referenceHz">Reference frequency (the nominal), hertz.</param>
-    /// <param name="startSample">Index of the window's first sample in the capture.</param>
-    /// <param name="meanA">The window's mean, removed first, amperes.</param>
-    /// <param name="hann">Hann weights ½ − ½cos(2πn/(L − 1)) for the window's length L.</param>
-    /// <param name="scratch">Caller-owned buffer of at least L values.</param>
-    public static (double Re, double Im, double RmsA) WindowPhasor(ReadOnlySpan<double> samplesA, double sampleRateHz,
-        double referenceHz, long startSample, double meanA, ReadOnlySpan<double> hann, Span<double> scratch)
-    {
-        if (hann.Length != samplesA.Length || scratch.Length < samplesA.Length)
-        {
-            throw new ArgumentException($"Hann weights ({hann.Length}) and scratch ({scratch.Length}) must match the window ({samplesA.Length})");
-        }
-
-        var weighted = scratch[..samplesA.Length];
-        for (var n = 0; n < weighted.Length; n++)
-        {
-            weighted[n] = (samplesA[n] - meanA) * hann[n];
-        }
-
-        var omega = 2 * Math.PI * referenceHz / sampleRateHz;
-        var (re, im) = Correlate(weighted, omega, startSample, 0);
-        var rms = samplesA.Length > 1 ? Math.Sqrt((re * re) + (im * im)) * Math.Sqrt(2) / ((samplesA.Length - 1) / 2.0) : 0;
-        return (re, im, rms);
-    }
-
-    /// <summary>Fills <paramref name="weights"/> with the Hann window ½ − ½cos(2πn/(L − 1)), L its length.</summary>
-    public static void HannWeights(Span<double> weights)
-    {
-        var step = 2 * Math.PI / Math.Max(1, weights.Length - 1);
-        for (var n = 0; n < weights.Length; n++)
-        {
-            weights[n] = 0.5 - (0.5 * Math.Cos(step * n));
-        }
     }
 
     /// <summary>
