@@ -36,8 +36,9 @@ public sealed record AnalysisOptions
     public Action<WindowResult>? WindowCompleted { get; init; }
 
     /// <summary>
-    /// Threads that measure window spectra and shapes while the caller reads on; 1 measures them on the calling
-    /// thread. The figures are the same for every value. Default: the processor count.
+    /// Threads sharing the work on windows (spectra, shapes, the sinks): the calling thread, which joins in while it
+    /// waits for a batch, and <c>WorkerCount − 1</c> threads that work while it reads on; 1 does everything on the
+    /// calling thread. The figures are the same for every value. Default: the processor count.
     /// </summary>
     public int WorkerCount { get; init; } = Environment.ProcessorCount;
 

@@ -148,11 +148,6 @@ public sealed class CaptureAnalysis
             return;
         }
 
-        foreach (var sink in _options.Sinks)
-        {
-            sink.Push(samplesA);
-        }
-
         var (sum, squares, min, max) = SampleMath.Moments(samplesA);
         _count += samplesA.Length;
         _sum += sum;
@@ -191,7 +186,14 @@ public sealed class CaptureAnalysis
         var partial = _filling[_fillCount];
         Dispatch();
         _workers!.Wait();
-        DrainFlying();
+        Fold(_flying, _flyCount);
+        _flyCount = 0;
+        foreach (var sink in _options.Sinks)
+        {
+            // The samples after the last whole window (the sinks had every window's in the batches).
+            sink.Push(partial.Samples.AsSpan(0, _windowFill));
+        }
+
         CloseAlarm();
         CloseClipStretch();
         var warnings = new List<CaptureWarning>();
@@ -370,22 +372,21 @@ public sealed class CaptureAnalysis
 
     private void Dispatch()
     {
+        // The new batch goes out before the finished one is folded in, so the workers never wait for the folding.
         _workers!.Wait();
-        DrainFlying();
-        (_filling, _flying) = (_flying, _filling);
-        _flyCount = _fillCount;
-        _fillCount = 0;
-        _workers.Start(_flying.AsSpan(0, _flyCount));
+        var (done, doneCount) = (_flying, _flyCount);
+        (_flying, _flyCount) = (_filling, _fillCount);
+        _workers.Start(_flying.AsSpan(0, _flyCount), _options.Sinks);
+        Fold(done, doneCount);
+        (_filling, _fillCount) = (done, 0);
     }
 
-    private void DrainFlying()
+    private void Fold(WindowSlot[] slots, int count)
     {
-        for (var i = 0; i < _flyCount; i++)
+        for (var i = 0; i < count; i++)
         {
-            AnalyzeWindow(_flying[i]);
+            AnalyzeWindow(slots[i]);
         }
-
-        _flyCount = 0;
     }
 
     private double TrackFrequency(WindowSlot slot)

@@ -35,21 +35,27 @@ internal sealed class WindowSlot(int capacity)
 }
 
 /// <summary>
-/// Measures the spectra and shapes of a batch of windows on worker threads while the caller reads on; each worker has
-/// its own plans and scratch. The work on a window depends only on the batch (two odd windows of equal length in it
-/// share one complex transform), never on which thread does it, so the figures are the same for every worker
-/// count. One batch in flight at a time; not thread-safe towards its caller.
+/// Measures the spectra and shapes of a batch of windows, and feeds its samples to the sample sinks, on worker threads
+/// while the caller reads on; the caller joins in when it waits, so a batch is shared out to every participant by a
+/// job counter (no thread sits idle while another has work). Each participant has its own plans and scratch. The
+/// work on a window depends only on the batch (two odd windows of equal length in it share one complex transform),
+/// never on which thread does it, so the figures are the same for every worker count. The sinks get the batch's
+/// windows in order, in one job, so they see the capture's samples in order and never two threads at once. One batch
+/// in flight at a time; not thread-safe towards its caller.
 /// </summary>
 internal sealed class WindowWorkers
 {
     private readonly (SpectrumPlans Plans, WaveformShape Shape)[] _tools;
     private readonly int _cycles;
-    private readonly List<(WindowSlot First, WindowSlot? Second)> _jobs = [];
+    private readonly List<(WindowSlot? First, WindowSlot? Second)> _jobs = [];
     private readonly Task[] _tasks;
+    private readonly List<WindowSlot> _batch = [];
+    private IReadOnlyList<ISampleSink> _sinks = [];
+    private int _next;
     private bool _running;
 
-    /// <summary>Creates <paramref name="workers"/> workers (1: the work runs on the calling thread in
-    /// <see cref="Start"/>).</summary>
+    /// <summary>Creates the tools of <paramref name="workers"/> participants: the caller and workers − 1 threads
+    /// (1: all the work runs on the calling thread in <see cref="Start"/>).</summary>
     public WindowWorkers(int workers, int cycles)
     {
         _cycles = cycles;
@@ -59,16 +65,30 @@ internal sealed class WindowWorkers
             _tools[i] = (new SpectrumPlans(), new WaveformShape());
         }
 
-        _tasks = new Task[workers];
+        _tasks = new Task[workers - 1];
     }
 
-    /// <summary>Starts measuring <paramref name="batch"/> (its slots must not change until <see cref="Wait"/>).</summary>
-    public void Start(ReadOnlySpan<WindowSlot> batch)
+    /// <summary>Starts measuring <paramref name="batch"/> and feeding it to <paramref name="sinks"/> (its slots must
+    /// not change until <see cref="Wait"/>).</summary>
+    public void Start(ReadOnlySpan<WindowSlot> batch, IReadOnlyList<ISampleSink> sinks)
     {
         Wait();
+        _batch.Clear();
+        foreach (var slot in batch)
+        {
+            _batch.Add(slot);
+        }
+
+        _sinks = sinks;
+        _jobs.Clear();
+        if (sinks.Count > 0 && !batch.IsEmpty)
+        {
+            // The sinks' job first: it is the longest and must not be left to the end.
+            _jobs.Add((null, null));
+        }
+
         // An odd window shares its complex transform with the next unpaired odd window of the same length in the
         // batch (an even one has its half-length transform alone).
-        _jobs.Clear();
         Span<bool> paired = stackalloc bool[batch.Length];
         for (var i = 0; i < batch.Length; i++)
         {
@@ -92,22 +112,24 @@ internal sealed class WindowWorkers
             _jobs.Add((slot, partner));
         }
 
-        if (_tools.Length == 1)
+        _next = 0;
+        if (_tasks.Length == 0)
         {
-            Run(0);
+            Drain(0);
             return;
         }
 
-        for (var w = 0; w < _tools.Length; w++)
+        for (var w = 0; w < _tasks.Length; w++)
         {
-            _tasks[w] = Task.Factory.StartNew(worker => Run((int)worker!), w, CancellationToken.None,
+            _tasks[w] = Task.Factory.StartNew(worker => Drain((int)worker!), w + 1, CancellationToken.None,
                 TaskCreationOptions.None, TaskScheduler.Default);
         }
 
         _running = true;
     }
 
-    /// <summary>Waits for the batch in flight, if any; a worker's exception is rethrown here.</summary>
+    /// <summary>Takes a share of the batch in flight, if any, then waits for the rest; a worker's exception is
+    /// rethrown here.</summary>
     public void Wait()
     {
         if (!_running)
@@ -116,18 +138,32 @@ internal sealed class WindowWorkers
         }
 
         _running = false;
-        foreach (var task in _tasks)
+        try
         {
-            task.GetAwaiter().GetResult();
+            Drain(0);
+        }
+        finally
+        {
+            foreach (var task in _tasks)
+            {
+                task.GetAwaiter().GetResult();
+            }
         }
     }
 
-    private void Run(int worker)
+    private void Drain(int participant)
     {
-        var (plans, shape) = _tools[worker];
-        for (var j = worker; j < _jobs.Count; j += _tools.Length)
+        var (plans, shape) = _tools[participant];
+        int j;
+        while ((j = Interlocked.Increment(ref _next) - 1) < _jobs.Count)
         {
             var (first, second) = _jobs[j];
+            if (first is null)
+            {
+                FeedSinks();
+                continue;
+            }
+
             var plan = plans.For(first.Length);
             if (second is null)
             {
@@ -140,6 +176,17 @@ internal sealed class WindowWorkers
             }
 
             Measure(first, shape);
+        }
+    }
+
+    private void FeedSinks()
+    {
+        foreach (var slot in _batch)
+        {
+            foreach (var sink in _sinks)
+            {
+                sink.Push(slot.Window);
+            }
         }
     }
 
