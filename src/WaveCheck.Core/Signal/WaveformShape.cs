@@ -1,3 +1,5 @@
+using System.Runtime.InteropServices;
+using System.Numerics;
 using System.Runtime.CompilerServices;
 namespace WaveCheck.Core.Signal;
 
@@ -49,6 +51,7 @@ public sealed class WaveformShape
 
     private const int Bins = 4096;
     private readonly int[] _coarse = new int[Bins];
+    private readonly int[] _parts = new int[4 * Bins];
     private readonly int[] _fine = new int[Bins];
     private ushort[] _binOf = [];
 
@@ -69,19 +72,48 @@ public sealed class WaveformShape
         }
 
         var scale = Bins / range;
-        Array.Clear(_coarse);
         if (_binOf.Length < n)
         {
             _binOf = new ushort[n];
         }
 
-        // Each sample's coarse bin is kept, so the refinement below need not compute it again.
+        // Each sample's coarse bin is kept, so the refinement below need not compute it again. Four interleaved
+        // partial histograms: on a flat floor consecutive samples fall in one bin, and a single histogram would make
+        // each increment wait for the one before.
         var binOf = _binOf.AsSpan(0, n);
-        for (var i = 0; i < n; i++)
+        var parts = _parts.AsSpan();
+        parts.Clear();
+        var i = 0;
+        for (; i + 4 <= n; i += 4)
+        {
+            var b0 = Math.Min((int)((samplesA[i] - minA) * scale), Bins - 1);
+            var b1 = Math.Min((int)((samplesA[i + 1] - minA) * scale), Bins - 1);
+            var b2 = Math.Min((int)((samplesA[i + 2] - minA) * scale), Bins - 1);
+            var b3 = Math.Min((int)((samplesA[i + 3] - minA) * scale), Bins - 1);
+            (binOf[i], binOf[i + 1], binOf[i + 2], binOf[i + 3]) = ((ushort)b0, (ushort)b1, (ushort)b2, (ushort)b3);
+            parts[b0]++;
+            parts[Bins + b1]++;
+            parts[(2 * Bins) + b2]++;
+            parts[(3 * Bins) + b3]++;
+        }
+
+        for (; i < n; i++)
         {
             var bin = Math.Min((int)((samplesA[i] - minA) * scale), Bins - 1);
             binOf[i] = (ushort)bin;
-            _coarse[bin]++;
+            parts[bin]++;
+        }
+
+        var coarse = _coarse.AsSpan();
+        coarse.Clear();
+        for (var k = 0; k < 4; k++)
+        {
+            var part = MemoryMarshal.Cast<int, Vector<int>>(parts.Slice(k * Bins, Bins));
+            var sum = MemoryMarshal.Cast<int, Vector<int>>(coarse);
+            for (var v = 0; v < sum.Length; v++)
+            {
+                sum[v] += part[v];
+            }
         }
 
         var width = range / Bins;
@@ -119,21 +151,7 @@ public sealed class WaveformShape
             var from = (int)((long)c * n / cycles);
             var to = (int)((long)(c + 1) * n / cycles);
             var before = inBand;
-            var span = samplesA[from..to];
-            if (positive)
-            {
-                foreach (var x in span)
-                {
-                    inBand += x <= limit ? 1 : 0;
-                }
-            }
-            else
-            {
-                foreach (var x in span)
-                {
-                    inBand += x >= limit ? 1 : 0;
-                }
-            }
+            inBand += CountOnFloorSide(samplesA[from..to], limit, positive);
 
             if (inBand == before)
             {
@@ -178,21 +196,13 @@ public sealed class WaveformShape
         var on = sign * (samplesA[^1] - floor) > rise;
         foreach (var x in samplesA)
         {
+            // Without branches: whether a sample conducts or starts a pulse is data, not a pattern to predict.
             var level = sign * (x - floor);
-            if (level > threshold)
-            {
-                conducting++;
-            }
-
-            if (!on && level > rise)
-            {
-                on = true;
-                starts++;
-            }
-            else if (on && level <= threshold)
-            {
-                on = false;
-            }
+            var above = level > threshold;
+            conducting += above ? 1 : 0;
+            var next = on ? above : level > rise;
+            starts += !on && next ? 1 : 0;
+            on = next;
         }
 
         var edge = Math.Asin(ConductionShare);
@@ -206,6 +216,37 @@ public sealed class WaveformShape
         return alpha * 180 / Math.PI;
     }
 
+    /// <summary>Samples at or below <paramref name="limit"/> (<paramref name="below"/>) or at or above it, counted on
+    /// whole vectors.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static int CountOnFloorSide(ReadOnlySpan<double> samplesA, double limit, bool below)
+    {
+        var count = 0L;
+        var i = 0;
+        if (Vector.IsHardwareAccelerated && samplesA.Length >= Vector<double>.Count)
+        {
+            var values = MemoryMarshal.Cast<double, Vector<double>>(samplesA);
+            var bound = new Vector<double>(limit);
+            var hits = Vector<long>.Zero;
+            foreach (var v in values)
+            {
+                // A true lane is all ones, −1 as an integer.
+                hits -= below ? Vector.LessThanOrEqual(v, bound) : Vector.GreaterThanOrEqual(v, bound);
+            }
+
+            count = Vector.Sum(hits);
+            i = values.Length * Vector<double>.Count;
+        }
+
+        for (; i < samplesA.Length; i++)
+        {
+            count += (below ? samplesA[i] <= limit : samplesA[i] >= limit) ? 1 : 0;
+        }
+
+        return (int)count;
+    }
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private double CoarseQuantile(double rank, double min, double width)
     {
         var cumulative = 0;
@@ -223,6 +264,7 @@ public sealed class WaveformShape
         return min + (Bins * width);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int CountBelow(double limit, double min, double scale)
     {
         var last = Math.Min((int)((limit - min) * scale), Bins - 1);
