@@ -93,9 +93,16 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
         var residual = block.ResidualBuffer[..length];
         var first = block.ChannelBuffer(Indices[0])[..length];
         var k0 = toAmperes[0];
-        for (var n = 0; n < residual.Length; n++)
+        if (k0 == 1)
         {
-            residual[n] = first[n] * k0;
+            first.CopyTo(residual);
+        }
+        else
+        {
+            for (var n = 0; n < residual.Length; n++)
+            {
+                residual[n] = first[n] * k0;
+            }
         }
 
         for (var c = 1; c < Indices.Count; c++)

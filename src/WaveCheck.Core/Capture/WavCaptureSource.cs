@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+using System.Numerics;
 using System.Buffers;
 using System.Buffers.Binary;
 using System.Globalization;
@@ -207,6 +209,11 @@ public sealed class WavCaptureSource : ICaptureSource
     private void Decode(ReadOnlySpan<byte> bytes, CaptureBlock block, int frames)
     {
         var stride = _channelCount;
+        if (stride == 1 && Vector.IsHardwareAccelerated && DecodeMonoVectorised(bytes, block.ChannelBuffer(0)[..frames]))
+        {
+            return;
+        }
+
         for (var c = 0; c < stride; c++)
         {
             var target = block.ChannelBuffer(c)[..frames];
@@ -277,6 +284,64 @@ public sealed class WavCaptureSource : ICaptureSource
                     throw new InvalidOperationException("sample kind checked at open");
             }
         }
+    }
+
+    /// <summary>One channel of 32-bit float or 16-bit PCM on whole vectors (the common logger formats); false for
+    /// other formats, which the general loop decodes.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private bool DecodeMonoVectorised(ReadOnlySpan<byte> bytes, Span<double> target)
+    {
+        var frames = target.Length;
+        var vectors = MemoryMarshal.Cast<double, Vector<double>>(target);
+        if (_kind == SampleKind.Float && _bytesPerSample == 4 && BitConverter.IsLittleEndian)
+        {
+            var source = MemoryMarshal.Cast<byte, float>(bytes)[..frames];
+            var scale = new Vector<double>(_scaleA);
+            var whole = frames / Vector<float>.Count;
+            var input = MemoryMarshal.Cast<float, Vector<float>>(source)[..whole];
+            for (var v = 0; v < input.Length; v++)
+            {
+                Vector.Widen(input[v], out var low, out var high);
+                vectors[2 * v] = low * scale;
+                vectors[(2 * v) + 1] = high * scale;
+            }
+
+            for (var n = whole * Vector<float>.Count; n < frames; n++)
+            {
+                target[n] = source[n] * _scaleA;
+            }
+
+            return true;
+        }
+
+        if (_kind == SampleKind.Pcm && _bytesPerSample == 2 && BitConverter.IsLittleEndian)
+        {
+            var source = MemoryMarshal.Cast<byte, short>(bytes)[..frames];
+            var factor = _scaleA / 32768.0;
+            var scale = new Vector<double>(factor);
+            var whole = frames / Vector<short>.Count;
+            var input = MemoryMarshal.Cast<short, Vector<short>>(source)[..whole];
+            for (var v = 0; v < input.Length; v++)
+            {
+                // short → int → long → double, four vectors of doubles per vector of shorts.
+                Vector.Widen(input[v], out var lowInts, out var highInts);
+                Vector.Widen(lowInts, out var a, out var b);
+                Vector.Widen(highInts, out var c, out var d);
+                vectors[4 * v] = Vector.ConvertToDouble(a) * scale;
+                vectors[(4 * v) + 1] = Vector.ConvertToDouble(b) * scale;
+                vectors[(4 * v) + 2] = Vector.ConvertToDouble(c) * scale;
+                vectors[(4 * v) + 3] = Vector.ConvertToDouble(d) * scale;
+            }
+
+            for (var n = whole * Vector<short>.Count; n < frames; n++)
+            {
+                target[n] = source[n] * factor;
+            }
+
+            return true;
+        }
+
+        return false;
     }
 
     private static short LittleEndian(short value) =>
