@@ -31,14 +31,50 @@ public class WindowWorkersTests
     private static (string Json, List<double> Starts) Run(double[] samples, int workers, int block)
     {
         var starts = new List<double>();
-        var options = new AnalysisOptions { WorkerCount = workers, WindowCompleted = w => starts.Add(w.StartS) };
+        var meter = new TouchCurrentMeter(Fs);
+        var options = new AnalysisOptions
+        {
+            WorkerCount = workers,
+            WindowCompleted = w => starts.Add(w.StartS),
+            Sinks = [meter],
+        };
         var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs, SensorCoupling.Dc).Info, options);
         for (var at = 0; at < samples.Length; at += block)
         {
             analysis.Push(samples.AsSpan(at, Math.Min(block, samples.Length - at)));
         }
 
-        return (ResultJson.Serialize(analysis.Complete()), starts);
+        var result = analysis.Complete() with { TouchCurrent = meter.Result };
+        return (ResultJson.Serialize(result), starts);
+    }
+
+    [Fact]
+    public void SinksSeeEverySampleInOrder()
+    {
+        // Reference: the same meter fed the whole capture directly. Its filters are recursive, so any sample lost,
+        // repeated or out of order (windows fed by worker threads, the tail after the last window) changes the
+        // weighted figures; 1e-12 relative allows only the reordered additions of the unweighted block sums.
+        var samples = Capture();
+        var direct = new TouchCurrentMeter(Fs);
+        direct.Push(samples);
+        var expected = direct.Result;
+        var meter = new TouchCurrentMeter(Fs);
+        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs, SensorCoupling.Dc).Info,
+            new AnalysisOptions { WorkerCount = 2, Sinks = [meter] });
+        for (var at = 0; at < samples.Length; at += 7_919)
+        {
+            analysis.Push(samples.AsSpan(at, Math.Min(7_919, samples.Length - at)));
+        }
+
+        var result = analysis.Complete();
+        Assert.Contains(result.Warnings, w => w.Code == "partial-window");
+        var actual = meter.Result;
+        Assert.Equal(expected.PerceptionRmsA, actual.PerceptionRmsA, 1e-12 * expected.PerceptionRmsA);
+        Assert.Equal(expected.PerceptionPeakA, actual.PerceptionPeakA, 1e-12 * expected.PerceptionPeakA);
+        Assert.Equal(expected.LetGoRmsA, actual.LetGoRmsA, 1e-12 * expected.LetGoRmsA);
+        Assert.Equal(expected.LetGoPeakA, actual.LetGoPeakA, 1e-12 * expected.LetGoPeakA);
+        Assert.Equal(expected.UnweightedRmsA, actual.UnweightedRmsA, 1e-12 * expected.UnweightedRmsA);
+        Assert.Equal(expected.DcA, actual.DcA, 1e-12 * Math.Abs(expected.DcA));
     }
 
     [Theory]
