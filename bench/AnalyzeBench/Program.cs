@@ -25,6 +25,8 @@ if (args.Length > 1 && args[0] == "wav")
     Evaluate();
     var walls = new List<double>();
     var cpus = new List<double>();
+    var allocatedBefore = GC.GetTotalAllocatedBytes(true);
+    var collectionsBefore = GC.CollectionCount(0);
     for (var round = 0; round < rounds; round++)
     {
         var cpuBefore = Process.GetCurrentProcess().TotalProcessorTime;
@@ -34,10 +36,12 @@ if (args.Length > 1 && args[0] == "wav")
         cpus.Add((Process.GetCurrentProcess().TotalProcessorTime - cpuBefore).TotalSeconds);
     }
 
+    var allocatedMb = (GC.GetTotalAllocatedBytes(true) - allocatedBefore) / 1048576.0 / rounds;
+    var collections = (GC.CollectionCount(0) - collectionsBefore) / (double)rounds;
     walls.Sort();
     cpus.Sort();
     Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-        $"in-process, after warm-up, {samples} samples: best {walls[0]:0.000} s ({samples / walls[0] / 1e6:0.0} Msamples/s), median {walls[rounds / 2]:0.000} s ({samples / walls[rounds / 2] / 1e6:0.0} Msamples/s), CPU best {cpus[0]:0.000} s"));
+        $"in-process, after warm-up, {samples} samples: best {walls[0]:0.000} s ({samples / walls[0] / 1e6:0.0} Msamples/s), median {walls[rounds / 2]:0.000} s ({samples / walls[rounds / 2] / 1e6:0.0} Msamples/s), CPU best {cpus[0]:0.000} s; {allocatedMb:0.0} MB allocated and {collections:0.#} gen-0 collections a run"));
     return;
 }
 
