@@ -18,7 +18,6 @@ internal sealed record MeasuredFigures
     public required SensorCoupling Coupling { get; init; }
     public required double WindowRmsA { get; init; }
     public required double SmoothDcA { get; init; }
-    public required double SmoothDcSignedA { get; init; }
     public required double DcMeanA { get; init; }
     public required bool PulsatingFlag { get; init; }
     public required double PulsatingShare { get; init; }
@@ -94,7 +93,6 @@ internal sealed record MeasuredFigures
             Coupling = analysis.Capture.SensorCoupling,
             WindowRmsA = Worst("rmsA", analysis.Summary.RmsA),
             SmoothDcA = Math.Abs(c.SmoothDcMaxA),
-            SmoothDcSignedA = c.SmoothDcMaxA,
             DcMeanA = Worst("dcA", analysis.Summary.DcA),
             PulsatingFlag = c.PulsatingDc,
             PulsatingShare = c.PulsatingDcShare,

@@ -29,7 +29,7 @@ public static class SynthesisSpec
         ArgumentNullException.ThrowIfNull(text);
         var colon = text.IndexOf(':', StringComparison.Ordinal);
         var kind = (colon < 0 ? text : text[..colon]).Trim().ToLowerInvariant();
-        var values = ParseValues(text, colon < 0 ? string.Empty : text[(colon + 1)..], kind);
+        var values = ParseValues(colon < 0 ? string.Empty : text[(colon + 1)..], kind);
 
         IReadOnlyList<WaveformComponent> result = kind switch
         {
@@ -78,7 +78,7 @@ public static class SynthesisSpec
         ];
     }
 
-    private static Dictionary<string, string> ParseValues(string text, string list, string kind)
+    private static Dictionary<string, string> ParseValues(string list, string kind)
     {
         var values = new Dictionary<string, string>(StringComparer.OrdinalIgnoreCase);
         foreach (var part in list.Split(',', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
@@ -94,7 +94,6 @@ public static class SynthesisSpec
             values[part[..eq].Trim().ToLowerInvariant()] = part[(eq + 1)..].Trim();
         }
 
-        _ = text;
         return values;
     }
 
