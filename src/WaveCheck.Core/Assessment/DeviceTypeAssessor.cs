@@ -49,6 +49,7 @@ public static class DeviceTypeAssessor
         var (required, minimum) = Decide(verdicts);
         var assessed = options.InstalledType ?? required ?? minimum;
         var blinding = Margins.Blinding(assessed, m, th, dcKnown);
+        var evCharging = Margins.EvCharging(m, th, dcKnown, options.EvChargingPoint);
         var result = new AssessmentResult
         {
             RequiredType = required?.ToTradeName(),
@@ -61,10 +62,10 @@ public static class DeviceTypeAssessor
             Types = verdicts,
             NuisanceTrip = Margins.NuisanceTrip(assessed, m, th, pulsating),
             Blinding = blinding,
-            EvCharging = Margins.EvCharging(m, th, dcKnown, options.EvChargingPoint),
+            EvCharging = evCharging,
             Gfci = options.Regime == Regime.Na ? Gfci.Assess(m.WindowRmsA) : null,
             TouchCurrent = analysis.TouchCurrent is { } tc ? TouchCurrentLimits.Compare(tc) : null,
-            Cautions = Cautions(analysis, m, th, dcKnown, hfCovered, blinding),
+            Cautions = Cautions(analysis, m, th, dcKnown, hfCovered, blinding, options.EvChargingPoint ? evCharging : null),
             Thresholds = th.Uses,
         };
         return result;
@@ -116,6 +117,12 @@ public static class DeviceTypeAssessor
         if (m.SmoothDcA > th.TypeFDcA)
         {
             f.Add(new(DeviceType.F, $"smooth DC {dc} exceeds the {Ma(th.TypeFDcA)} that type F tolerates (IEC 62423)", true));
+        }
+
+        // IEC 60364-7-722: a charging point has its own RCD of at least type A, whatever the capture shows.
+        if (evChargingPoint)
+        {
+            f.Add(new(DeviceType.AC, "charging point: IEC 60364-7-722 asks for its own RCD of at least type A", true));
         }
 
         // IEC 60364-7-722: a charging point's device is type B, or type A with an RDC-DD, once smooth DC of 6 mA or
@@ -287,12 +294,18 @@ public static class DeviceTypeAssessor
     }
 
     private static List<string> Cautions(AnalysisResult analysis, MeasuredFigures m, AppliedThresholds th, bool dcKnown,
-        bool hfCovered, BlindingResult blinding)
+        bool hfCovered, BlindingResult blinding, EvChargingResult? declaredChargingPoint)
     {
         var c = new List<string>();
         if (blinding.Blinded == true)
         {
             c.Add(blinding.Explanation);
+        }
+
+        if (declaredChargingPoint is { } ev)
+        {
+            // The headline names one type; a charging point's choice (type A only with an RDC-DD) must stand beside it.
+            c.Add(ev.Recommendation);
         }
 
         c.AddRange(StandingCautions.All);
@@ -304,9 +317,9 @@ public static class DeviceTypeAssessor
                 ? "The sensor is AC-coupled (current transformer or Rogowski coil): smooth DC is invisible to it and pulsating DC is distorted, so the verdicts on types AC, A and F are open. Measure again with a DC-coupled clamp (fluxgate or Hall-effect)."
                 : "The sensor coupling is not stated and the capture shows no DC: if the sensor is AC-coupled, DC is invisible. State the coupling, or measure again with a DC-coupled clamp (fluxgate or Hall-effect).");
         }
-        else if (m.Coupling == SensorCoupling.Ac)
+        else if (m.Coupling == SensorCoupling.Unknown)
         {
-            c.Add($"DC ({Ma(m.SmoothDcA)}) was read through a sensor declared AC-coupled: treat it as a lower bound and confirm with a DC-coupled clamp.");
+            c.Add($"The sensor coupling is not stated; it is taken as DC-coupled because the capture shows DC (smooth DC {Ma(m.SmoothDcA)}). State the coupling to confirm.");
         }
 
         if (!hfCovered)

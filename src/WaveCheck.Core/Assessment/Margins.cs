@@ -81,10 +81,15 @@ internal static class Margins
             _ => "IEC 62423",
         };
         var limitText = tolerance is null ? $"any significant smooth DC (≥ {Ma(effective)})" : $"the {Ma(effective)} a type {name} device works with";
+        // Types AC, A and F are blinded: DC pre-magnetises the core. Type B detects smooth DC itself; beyond its
+        // range IEC 62423 simply does not specify its tripping on a fault current added to the DC.
+        var mechanism = type >= DeviceType.B
+            ? $"IEC 62423 specifies type {name}'s tripping on an AC or pulsating fault current added to smooth DC only up to that level; beyond it tripping on such a fault is not specified (the DC alone trips a compliant device somewhere between {Limits.NonOperatingFraction:0.#} and {Limits.TypeBSmoothDcFactor:0.#} IΔn)."
+            : "Smooth DC pre-magnetises the device's core and can leave it unable to detect a fault current (IEC 62955 Note 2; practice).";
         string explanation = blinded switch
         {
             true => $"WARNING: the type {name} device MAY NOT TRIP ON A REAL FAULT: smooth DC {Ma(m.SmoothDcA)} exceeds {limitText} ({source}). "
-                + "Smooth DC pre-magnetises the device's core and can leave it unable to detect a fault current (IEC 62955 Note 2; practice).",
+                + mechanism,
             false => $"Smooth DC {Ma(m.SmoothDcA)} within {limitText} ({source}): no blinding expected.",
             null => $"Smooth DC cannot be determined with this sensor (seen: {Ma(m.SmoothDcA)}); whether it exceeds {limitText} is open. Measure with a DC-coupled clamp.",
         };

@@ -349,6 +349,43 @@ public class DeviceTypeAssessorTests
     }
 
     [Fact]
+    public void EvChargingPointNeverGetsTypeAc()
+    {
+        // IEC 60364-7-722 (REFERENCE.md, std): a charging point has its own RCD of at least type A, even when the
+        // capture is a clean sine; and type A is enough only with an RDC-DD, which the cautions must say beside the
+        // headline.
+        var sine = Assess(new AnalysisBuilder().Sine(0.005), new AssessmentOptions { EvChargingPoint = true });
+        Assert.Equal("A", sine.RequiredType);
+        Assert.Contains("IEC 60364-7-722", sine.Headline);
+        Assert.Equal(false, sine.Types[0].Suitable);
+        Assert.Contains(sine.Cautions, c => c.Contains("type A + RDC-DD (IEC 62955) or type B"));
+        Assert.Equal("AC", Assess(new AnalysisBuilder().Sine(0.005)).RequiredType);
+    }
+
+    [Fact]
+    public void TypeBBeyondItsDcRangeIsNotDescribedAsPreMagnetised()
+    {
+        // REFERENCE.md: pre-magnetisation blinds types A and F (IEC 62955 Note 2); type B detects smooth DC and is
+        // specified with superimposed DC up to max(0.4 IΔn, 10 mA) (IEC 62423, std). 14 mA > 12 mA at 30 mA.
+        var r = Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.014), new AssessmentOptions { InstalledType = DeviceType.B });
+        Assert.True(r.Blinding.Blinded);
+        Assert.Contains("not specified", r.Blinding.Explanation);
+        Assert.DoesNotContain("pre-magnetises", r.Blinding.Explanation);
+        var a = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.008), new AssessmentOptions { InstalledType = DeviceType.A });
+        Assert.Contains("pre-magnetises", a.Blinding.Explanation);
+    }
+
+    [Fact]
+    public void UnstatedCouplingTakenAsDcSaysSo()
+    {
+        // Common practice, no source: a DC reading makes the sensor DC-capable, but the user should confirm it.
+        var r = Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.014).Coupling(SensorCoupling.Unknown));
+        Assert.Contains(r.Cautions, c => c.StartsWith("The sensor coupling is not stated; it is taken as DC-coupled"));
+        Assert.DoesNotContain(Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.014)).Cautions,
+            c => c.Contains("coupling is not stated"));
+    }
+
+    [Fact]
     public void NorthAmericanRegimeAddsGfciFigures()
     {
         var r = Assess(new AnalysisBuilder().Sine(0.010), new AssessmentOptions { Regime = Regime.Na });
