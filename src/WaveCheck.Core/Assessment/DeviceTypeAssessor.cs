@@ -54,7 +54,7 @@ public static class DeviceTypeAssessor
         {
             RequiredType = required?.ToTradeName(),
             MinimumType = minimum.ToTradeName(),
-            Headline = Headline(required, minimum, findings, m),
+            Headline = Headline(required, minimum, findings, m, hfCovered),
             RatedResidualCurrentA = th.RatedA,
             InstalledType = options.InstalledType?.ToTradeName(),
             InstalledAdequate = options.InstalledType is { } it ? verdicts[(int)it].Suitable : null,
@@ -196,7 +196,7 @@ public static class DeviceTypeAssessor
         if (hfSeen)
         {
             var after = edge > 0 ? $" ({Ma(excess)} beyond the {Ma(edge)} a {m.DelayAngleDeg:0}° firing edge accounts for)" : "";
-            f.Add(new(DeviceType.B, $"content 1-20 kHz {Ma(hf)}{after} (≥ {Ma(th.HighFrequencyA)}, engineering choice): type B's tripping is defined only up to 1 kHz (IEC 62423); B+ is defined up to 20 kHz (DIN VDE 0664-400)", true));
+            f.Add(new(DeviceType.B, $"content {m.From1kRangeText} {Ma(hf)}{after} (≥ {Ma(th.HighFrequencyA)}, engineering choice): type B's tripping is defined only up to 1 kHz (IEC 62423); B+ is defined up to 20 kHz (DIN VDE 0664-400)", true));
         }
 
         return f;
@@ -237,10 +237,10 @@ public static class DeviceTypeAssessor
                 reasons.Add($"covers composite current of single-phase frequency converters (IEC 62423); smooth DC {dc} within the {Ma(th.TypeFDcA)} type F works with (IEC 62423)");
                 break;
             case DeviceType.B:
-                reasons.Add($"covers smooth DC of either polarity, multi-phase rectified current and AC up to 1 kHz (IEC 62423); content 1-20 kHz {Ma(m.From1kTo20kA)} below {Ma(th.HighFrequencyA)}");
+                reasons.Add($"covers smooth DC of either polarity, multi-phase rectified current and AC up to 1 kHz (IEC 62423); content {m.From1kRangeText} {Ma(m.From1kTo20kA)} below {Ma(th.HighFrequencyA)}");
                 break;
             default:
-                reasons.Add($"type B with tripping defined up to 20 kHz (DIN VDE 0664-400): covers the content 1-20 kHz ({Ma(m.From1kTo20kA)})");
+                reasons.Add($"type B with tripping defined up to 20 kHz (DIN VDE 0664-400): covers the content {m.From1kRangeText} ({Ma(m.From1kTo20kA)})");
                 break;
         }
 
@@ -274,18 +274,23 @@ public static class DeviceTypeAssessor
         return (null, minimum ?? DeviceType.BPlus);
     }
 
-    private static string Headline(DeviceType? required, DeviceType minimum, List<Finding> findings, MeasuredFigures m)
+    private static string Headline(DeviceType? required, DeviceType minimum, List<Finding> findings, MeasuredFigures m,
+        bool hfCovered)
     {
+        // Below 40 kS/s content up to 20 kHz is partly unseen: a decided type below B+ carries that in its headline.
+        var bPlusOpen = !hfCovered
+            ? $"; whether B+ is needed is open (this capture shows content only up to {m.From1kTopHz / 1000:0.#} kHz)"
+            : string.Empty;
         if (required == DeviceType.AC)
         {
-            return $"Type AC sufficient: sinusoidal residual current at mains frequency only (worst window {Ma(m.WindowRmsA)}), no significant DC; check that type AC is permitted locally";
+            return $"Type AC sufficient: sinusoidal residual current at mains frequency only (worst window {Ma(m.WindowRmsA)}), no significant DC; check that type AC is permitted locally{bPlusOpen}";
         }
 
         if (required is { } r)
         {
             var deciding = findings.FirstOrDefault(x => x.Definite && x.Exceeds == r - 1)
                 ?? findings.First(x => x.Definite && x.Exceeds < r);
-            return $"Type {r.ToTradeName()} required: {deciding.Text}";
+            return $"Type {r.ToTradeName()} required: {deciding.Text}{(r < DeviceType.BPlus ? bPlusOpen : string.Empty)}";
         }
 
         var reason = findings.FirstOrDefault(x => !x.Definite)?.Text

@@ -36,7 +36,7 @@ internal static class Margins
         parts.Add(new FrequencyContribution("harmonics to 1 kHz", m.MainsHz * 1.5, Limits.TypeBUpperFrequencyHz,
             m.HarmonicsTo1kA, harmonicsWeighted > 0 ? m.HarmonicsTo1kA / harmonicsWeighted : 1.0, harmonicsWeighted));
         var hfFactor = TripWeighting.HighFrequencyFactor(type, rated, th.Factors);
-        Add("1-20 kHz", Limits.TypeBUpperFrequencyHz, Limits.BPlusUpperFrequencyHz, m.From1kTo20kA, hfFactor);
+        Add(m.From1kRangeText, Limits.TypeBUpperFrequencyHz, m.From1kTopHz, m.From1kTo20kA, hfFactor);
         Add("above 20 kHz", Limits.BPlusUpperFrequencyHz, Math.Max(Limits.BPlusUpperFrequencyHz, m.SampleRateHz / 2), m.Above20kA, hfFactor);
 
         double standingSq = 0, rawSq = 0;

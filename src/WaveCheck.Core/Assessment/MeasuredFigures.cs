@@ -33,6 +33,12 @@ internal sealed record MeasuredFigures
     /// <summary>Content 1 kHz to 20 kHz: above 1 kHz less above 20 kHz, in quadrature.</summary>
     public double From1kTo20kA => Math.Sqrt(Math.Max(0, (Above1kA * Above1kA) - (Above20kA * Above20kA)));
 
+    /// <summary>Top of the 1-20 kHz range as this capture sees it: 20 kHz, or the Nyquist frequency below it.</summary>
+    public double From1kTopHz => Math.Min(SampleRateHz / 2, Limits.BPlusUpperFrequencyHz);
+
+    /// <summary>The 1-20 kHz range in words, cut at the Nyquist frequency ("1-10 kHz" at 20 kS/s).</summary>
+    public string From1kRangeText => $"1-{From1kTopHz / 1000:0.#} kHz";
+
     /// <summary>Mean of the pulsating part on top of the smooth floor (worst window mean less the floor), amperes.</summary>
     public double PulsatingMeanA => Math.Max(0, DcMeanA - SmoothDcA);
 

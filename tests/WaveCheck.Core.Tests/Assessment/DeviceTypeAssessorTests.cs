@@ -222,6 +222,8 @@ public class DeviceTypeAssessorTests
         var r = Assess(new AnalysisBuilder().Sine(0.010).SampleRate(20_000));
         Assert.Equal("AC", r.RequiredType);
         Assert.Null(Suitable(r, "B+"));
+        Assert.EndsWith("whether B+ is needed is open (this capture shows content only up to 10 kHz)", r.Headline);
+        Assert.Contains(r.NuisanceTrip.Contributions, p => p.Label == "1-10 kHz" && p.HighHz == 10_000);
         Assert.Contains(r.Cautions, c => c.Contains("50 kS/s"));
 
         var dc = Assess(new AnalysisBuilder().SmoothDc(0.014).Sine(0.005).SampleRate(20_000));
