@@ -246,7 +246,7 @@ public static class DeviceTypeAssessor
 
         if (t >= DeviceType.B && m.SmoothDcA > th.TypeBDcA)
         {
-            reasons.Add($"smooth DC {dc} exceeds the {Ma(th.TypeBDcA)} (max of 0.4 IΔn and 10 mA) with which type B's tripping on superimposed currents is specified (IEC 62423): see blinding");
+            reasons.Add($"smooth DC {dc} exceeds the {Ma(th.TypeBDcA)} (max of {Limits.TypeBSmoothDcToleranceFraction:0.#} IΔn and {Ma(Limits.TypeBSmoothDcToleranceMinA)}) with which type B's tripping on superimposed currents is specified (IEC 62423): see blinding");
         }
 
         return new TypeVerdict(t.ToTradeName(), true, reasons);

@@ -104,7 +104,7 @@ internal static class Margins
         var rec = above switch
         {
             true => $"smooth DC {Ma(m.SmoothDcA)} reaches the {Ma(th.RdcDdA)} at which an RDC-DD disconnects (IEC 62955): fit type B (type A + RDC-DD would disconnect).",
-            false => $"smooth DC {Ma(m.SmoothDcA)} stays below {Ma(th.RdcDdA)} (IEC 62955) in this capture, but a capture cannot rule out DC ≥ 6 mA in a fault: fit type A + RDC-DD (IEC 62955) or type B, unless the charger's maker declares its own 6 mA DC protection.",
+            false => $"smooth DC {Ma(m.SmoothDcA)} stays below {Ma(th.RdcDdA)} (IEC 62955) in this capture, but a capture cannot rule out DC ≥ {Ma(th.RdcDdA)} in a fault: fit type A + RDC-DD (IEC 62955) or type B, unless the charger's maker declares its own {Ma(th.RdcDdA)} DC protection.",
             null => $"DC cannot be determined with this sensor: treat DC ≥ {Ma(th.RdcDdA)} as not ruled out: fit type A + RDC-DD (IEC 62955) or type B.",
         };
         return new EvChargingResult(th.RdcDdA, m.SmoothDcA, above, lead + rec);
