@@ -30,8 +30,8 @@ public sealed class CaptureAnalysis
     /// <summary>A sample at or beyond this share of the full scale counts as clipped (engineering choice).</summary>
     public const double ClipShare = 0.999;
 
-    // Windows measured per batch on the workers (engineering choice: 8 windows, 1.6 s at 50 Hz, about 1 MB of slots,
-    // enough to keep two workers busy while the caller reads the next batch).
+    // Windows measured per batch (engineering choice: 8 windows, 1.6 s at 50 Hz, about 1 MB of slots; with the
+    // sinks' job at most 9 jobs, so no more than 9 threads are ever used).
     private const int BatchWindows = 8;
 
     private readonly CaptureInfo _info;
@@ -148,12 +148,8 @@ public sealed class CaptureAnalysis
             return;
         }
 
-        var (sum, squares, min, max) = SampleMath.Moments(samplesA);
+        // The whole-capture sums come from the windows' moments and the tail's (every sample ends in one of them).
         _count += samplesA.Length;
-        _sum += sum;
-        _sumSquares += squares;
-        _min = Math.Min(_min, min);
-        _max = Math.Max(_max, max);
         _envelope.Push(samplesA);
 
         if (_detected)
@@ -188,10 +184,12 @@ public sealed class CaptureAnalysis
         _workers!.Wait();
         Fold(_flying, _flyCount);
         _flyCount = 0;
+        var tail = partial.Samples.AsSpan(0, _windowFill);
+        AddToSummary(SampleMath.Moments(tail));
         foreach (var sink in _options.Sinks)
         {
             // The samples after the last whole window (the sinks had every window's in the batches).
-            sink.Push(partial.Samples.AsSpan(0, _windowFill));
+            sink.Push(tail);
         }
 
         CloseAlarm();
@@ -293,7 +291,7 @@ public sealed class CaptureAnalysis
             _flying[i] = new WindowSlot(maxLength);
         }
 
-        _workers = new WindowWorkers(_options.WorkerCount, _cycles);
+        _workers = new WindowWorkers(Math.Min(_options.WorkerCount, BatchWindows + 1), _cycles);
         _worst = new double[maxLength];
         _windowLength = NextLength();
         _trend = new TrendTable(nominal);
@@ -362,12 +360,21 @@ public sealed class CaptureAnalysis
         slot.Length = _windowLength;
         slot.Start = _windowStart;
         slot.Moments = SampleMath.Moments(slot.Window);
+        AddToSummary(slot.Moments);
         slot.FrequencyHz = TrackFrequency(slot);
         _fillCount++;
         if (_fillCount == _filling.Length)
         {
             Dispatch();
         }
+    }
+
+    private void AddToSummary((double Sum, double Squares, double Min, double Max) moments)
+    {
+        _sum += moments.Sum;
+        _sumSquares += moments.Squares;
+        _min = Math.Min(_min, moments.Min);
+        _max = Math.Max(_max, moments.Max);
     }
 
     private void Dispatch()
@@ -402,8 +409,15 @@ public sealed class CaptureAnalysis
         var ac = Math.Sqrt(Math.Max(0, (squares / w.Length) - (mean * mean)));
         var nominal = _mains.NominalHz;
         // Window lengths move by a sample or two as the frequency drifts: the last few kernels are kept.
-        var length = w.Length;
-        var kernel = Array.Find(_phasorKernels, k => k?.Length == length);
+        PhasorKernel? kernel = null;
+        foreach (var k in _phasorKernels)
+        {
+            if (k?.Length == w.Length)
+            {
+                kernel = k;
+            }
+        }
+
         if (kernel is null)
         {
             kernel = new PhasorKernel(w.Length, _fs, nominal);

@@ -206,9 +206,6 @@ public sealed class TouchCurrentFilter
         return y;
     }
 
-    /// <summary>Returns the state to rest.</summary>
-    public void Reset() => (_z1, _z2) = (0, 0);
-
     /// <summary>The two state values of the transposed direct form II, so that a caller's loop can hold them in
     /// registers and hand them back (<see cref="Process"/> on a heap object stores them every sample).</summary>
     internal (double Z1, double Z2) State

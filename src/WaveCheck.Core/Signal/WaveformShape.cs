@@ -11,7 +11,7 @@ public readonly record struct ShapeFigures(double SmoothDcA, bool PulsatingDc, d
 
 /// <summary>
 /// Smooth DC, pulsating DC and current-delay angle of a window, from the distribution of its samples
-/// (histograms, no sorting). Holds scratch histograms: not thread-safe; one instance per analysis.
+/// (histograms, no sorting). Holds scratch histograms: not thread-safe; one instance per thread.
 /// </summary>
 /// <remarks>
 /// <para>Definitions (engineering choices, stated so they can be checked):</para>

@@ -84,7 +84,8 @@ public class WindowWorkersTests
     {
         // Reference: the analysis measured on the calling thread alone (WorkerCount = 1); the parallel path must give
         // the same result bit for bit (compared as the full JSON, every figure written with round-trip precision).
-        // The block size stays fixed: the whole-capture sums are added per pushed block.
+        // The block size stays fixed: the touch meter's unweighted sums are added per window, but the windows'
+        // moments are vectorised sums whose order could change with how the samples arrive.
         var samples = Capture();
         var (sequential, sequentialStarts) = Run(samples, 1, block);
         Assert.Contains("\"transient\"", sequential);
