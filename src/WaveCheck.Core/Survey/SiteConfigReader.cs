@@ -387,6 +387,16 @@ public static class SiteConfigReader
 
         private double? CurrentOf(Node value, string key)
         {
+            // A bare number for IΔn is amperes here, but the command line's --rated 30 means 30 mA: a bare 1 or more
+            // (30 would be a 30 A device with a 9 A leakage budget) is refused and the unit asked for.
+            var bare = value.Kind == JsonTokenType.Number ? value.Number
+                : value.Kind == JsonTokenType.String && double.TryParse(value.Text, System.Globalization.NumberStyles.Float,
+                    System.Globalization.CultureInfo.InvariantCulture, out var n) ? n : (double?)null;
+            if (key == "rated" && bare >= 1)
+            {
+                throw Error(value, $"\"rated\": {value.Text} without a unit would be {value.Text} A; write the unit, e.g. \"30mA\" or \"1A\"");
+            }
+
             var amperes = QuantityOf(value, key, "a current such as \"30mA\", \"0.3A\" or a number in amperes", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseCurrentA(k, t));
             return amperes is null or > 0 ? amperes : throw Error(value, $"\"{key}\" must be a positive current (got {value.Text})");
         }

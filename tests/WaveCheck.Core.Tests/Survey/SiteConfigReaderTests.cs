@@ -100,6 +100,10 @@ public class SiteConfigReaderTests
         "\"30 mAA\"", "\"rated\": cannot use \"30 mAA\": expected a current such as \"30mA\"")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"rated\": -0.03 } ] }",
         "-0.03", "\"rated\" must be positive (got -0.03)")]
+    [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"rated\": 30 } ] }",
+        "30", "\"rated\": 30 without a unit would be 30 A; write the unit, e.g. \"30mA\"")]
+    [InlineData("{ \"captures\": [ { \"file\": \"a.wav\" } ],\n \"upstream\": [ { \"name\": \"Q1\", \"device\": \"A\", \"rated\": \"100\", \"circuits\": [] } ] }",
+        "\"100\"", "\"rated\": 100 without a unit would be 100 A")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"rated\": true } ] }",
         "true", "\"rated\": cannot use the value true: expected a current")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"device\": \"G\" } ] }",
