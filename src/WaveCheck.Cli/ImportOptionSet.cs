@@ -72,7 +72,7 @@ internal sealed class ImportOptionSet
         var sumText = parse.GetValue(Sum);
         var sensorText = parse.GetValue(Sensor) ?? "unknown";
 
-        double? scale = scaleText is null ? null : Quantity.ParseCurrentA("--scale", scaleText);
+        double? scale = scaleText is null ? null : Quantity.ParsePositiveCurrentA("--scale", scaleText);
         double? sensitivity = sensitivityText is null ? null : Quantity.ParseSensitivityVPerA("--sensitivity", sensitivityText);
         double? range = rangeText is null ? null : Quantity.ParseVoltageV("--range", rangeText);
         double? rate = rateText is null ? null : Quantity.ParseFrequencyHz("--rate", rateText);
@@ -80,11 +80,6 @@ internal sealed class ImportOptionSet
         if (scale is not null && (sensitivity is not null || range is not null))
         {
             throw new OptionValueException("--scale", scaleText!, "either --scale or --sensitivity with --range, not both");
-        }
-
-        if (scale is <= 0)
-        {
-            throw new OptionValueException("--scale", scaleText!, "a positive current");
         }
 
         if (sensitivity is <= 0)

@@ -88,6 +88,8 @@ public sealed class SurveyCommandTests : IDisposable
     [InlineData(new[] { "anlyze" }, "did you mean 'analyze'")]
     [InlineData(new[] { "info" }, "wavecheck info")]
     [InlineData(new[] { "survey", "--parkett" }, "did you mean '--parquet'")]
+    [InlineData(new[] { "survey", "x.wav", "--scale", "-100mA" }, "--scale: cannot use '-100mA': expected a positive current")]
+    [InlineData(new[] { "survey", "x.wav", "--rated", "0" }, "--rated: cannot use '0': expected a positive current")]
     public void Usage_errors_give_one_line_and_exit_2(string[] args, string expected)
     {
         var (exit, _, error) = CliHarness.Run(args);

@@ -42,12 +42,12 @@ internal static class SurveyCommand
         {
             var overrides = new CaptureSettingsPatch
             {
-                RatedResidualCurrentA = parse.GetValue(rated) is { } r ? Quantity.ParseCurrentA("--rated", r, bareUnit: "mA") : null,
+                RatedResidualCurrentA = parse.GetValue(rated) is { } r ? Quantity.ParsePositiveCurrentA("--rated", r, bareUnit: "mA") : null,
                 InstalledType = parse.GetValue(device) is { } d
                     ? DeviceTypeNames.TryParse(d, out var t) ? t : throw new OptionValueException("--device", d, "AC, A, F, B or B+")
                     : null,
                 Sensor = parse.GetValue(sensor) is { } s ? SensorCouplingNames.Parse("--sensor", s) : null,
-                ScaleA = parse.GetValue(scale) is { } sc ? Quantity.ParseCurrentA("--scale", sc) : null,
+                ScaleA = parse.GetValue(scale) is { } sc ? Quantity.ParsePositiveCurrentA("--scale", sc) : null,
                 Regime = parse.GetValue(regime) is { } rg
                     ? RegimeNames.TryParse(rg, out _) ? rg.Trim().ToLowerInvariant() : throw new OptionValueException("--regime", rg, "iec or na")
                     : null,

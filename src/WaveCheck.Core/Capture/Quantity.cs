@@ -33,6 +33,18 @@ public static partial class Quantity
     public static double ParseCurrentA(string option, string text, string bareUnit = "A") =>
         Parse(option, text, "A", bareUnit, "a current such as 30mA, 0.3A or 300uA");
 
+    /// <summary>As <see cref="ParseCurrentA"/>, and the current must be above zero (a full scale, an IΔn).</summary>
+    /// <param name="option">Option name for the message.</param>
+    /// <param name="text">E.g. <c>30mA</c>.</param>
+    /// <param name="bareUnit">Unit of a number without one: <c>A</c> or <c>mA</c>.</param>
+    /// <returns>Amperes.</returns>
+    /// <exception cref="OptionValueException">Not a current, or not above zero.</exception>
+    public static double ParsePositiveCurrentA(string option, string text, string bareUnit = "A")
+    {
+        var amperes = ParseCurrentA(option, text, bareUnit);
+        return amperes > 0 ? amperes : throw new OptionValueException(option, text, "a positive current");
+    }
+
     /// <summary>Parses a voltage (<c>1 V</c>, <c>500mV</c>); a bare number is volts.</summary>
     /// <returns>Volts.</returns>
     public static double ParseVoltageV(string option, string text) =>
