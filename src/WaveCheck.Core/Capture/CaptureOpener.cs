@@ -48,7 +48,7 @@ public static class CaptureOpener
         }
 
         throw new CaptureFormatException(path,
-            $"unknown capture format (extension '{(extension.Length == 0 ? "none" : extension)}', content not RIFF/WAVE): expected .wav, .csv, .txt or .tsv");
+            $"unknown capture format (extension '{(extension.Length == 0 ? "none" : extension)}', content not RIFF/WAVE): expected .wav, .csv, .txt, .tsv, or a COMTRADE .cfg or .cff (for a COMTRADE .dat, open the .cfg beside it)");
     }
 
     private static bool LooksLikeRiffWave(string path)

@@ -39,6 +39,7 @@ public sealed class CsvCaptureSource : ICaptureSource
     private readonly ChannelSelection _selection;
     private readonly double[] _toAmperes;
     private readonly double _medianStepS;
+    private readonly bool _rateGiven;
     private readonly List<CaptureWarning> _warnings = [];
     private readonly List<CaptureWarning> _timeWarnings = [];
     private long _row;
@@ -160,6 +161,7 @@ public sealed class CsvCaptureSource : ICaptureSource
         {
             measuredHz = 1.0 / _medianStepS;
             rateHz = options.RateHz ?? measuredHz.Value;
+            _rateGiven = options.RateHz is not null;
         }
         else if (options.RateHz is { } given)
         {
@@ -387,8 +389,13 @@ public sealed class CsvCaptureSource : ICaptureSource
 
             if (Math.Abs(Info.SampleRateHz - measured.Value) > 0.01 * measured.Value)
             {
-                _timeWarnings.Add(new CaptureWarning("rate-mismatch", string.Create(CultureInfo.InvariantCulture,
-                    $"--rate {Info.SampleRateHz:G6} Hz differs from the time column's {measured.Value:G6} Hz; --rate is used.")));
+                // Without --rate the rate came from the median step of the first lines (rounded time stamps can
+                // bias it); say so rather than blame an option the user did not give.
+                var used = Info.SampleRateHz;
+                var message = _rateGiven
+                    ? string.Create(CultureInfo.InvariantCulture, $"--rate {used:G6} Hz differs from the time column's {measured.Value:G6} Hz; --rate is used.")
+                    : string.Create(CultureInfo.InvariantCulture, $"the median time step of the first lines gives {used:G6} Hz, the mean step of the whole file {measured.Value:G6} Hz; {used:G6} Hz is used (give --rate to set it).");
+                _timeWarnings.Add(new CaptureWarning("rate-mismatch", message));
             }
         }
 

@@ -101,7 +101,7 @@ public static class UpstreamCheck
             dc += Math.Abs(row.SmoothDcA ?? 0);
             if (row.SmoothDcKnown != true)
             {
-                dcUnknown.Add(row.File);
+                dcUnknown.Add(Path.GetFileName(row.File));
             }
 
             var needed = ParseType(row.RequiredType) ?? ParseType(row.MinimumType);

@@ -126,6 +126,28 @@ public sealed class CsvCaptureSourceTests : IDisposable
     }
 
     [Fact]
+    public void RateFromTheFirstLinesThatDiffersFromTheWholeFileIsWarnedWithoutBlamingRate()
+    {
+        // 1 ms steps for 400 lines, then 1.1 ms: the median of the first lines gives 1000 Hz, the whole file's mean
+        // step about 1.06 ms (closed form: (400 x 1 + 600 x 1.1) / 1000), more than 1 % apart. No --rate was given,
+        // so the warning must not name it as the rate used.
+        var text = new StringBuilder("time [s],I [mA]\n");
+        var t = 0.0;
+        for (var n = 0; n < 1000; n++)
+        {
+            text.Append(CultureInfo.InvariantCulture, $"{R(t)},{R(Math.Cos(n * 0.2))}\n");
+            t += n < 400 ? 1e-3 : 1.1e-3;
+        }
+
+        var path = _folder.Write("drift.csv", text.ToString());
+        using var source = CaptureOpener.Open(path, new ImportOptions());
+        Signals.ReadAll(source);
+        var mismatch = Assert.Single(source.Warnings, w => w.Code == "rate-mismatch");
+        Assert.StartsWith("the median time step of the first lines gives 1000 Hz", mismatch.Message);
+        Assert.Contains("give --rate to set it", mismatch.Message);
+    }
+
+    [Fact]
     public void JitterAndStepsBackwardsAreWarnedNotFixed()
     {
         var text = new StringBuilder("time [s],I [mA]\n");
