@@ -46,14 +46,14 @@ internal static class VerdictPrinter
             new Text($"{CurrentText.WithUnit(n.StandingA)} of {CurrentText.WithUnit(n.NonOperatingLimitA)}"),
             new Text(string.Create(CultureInfo.InvariantCulture,
                 $"risk {n.Risk}: margin {CurrentText.WithUnit(n.MarginA)} ({n.MarginPercent:0} %). {n.Explanation}")));
-        margins.AddRow(new Text("leakage budget 0.3 IΔn"), new Text(CurrentText.WithUnit(n.LeakageBudgetA)),
+        margins.AddRow(new Text($"leakage budget {a.LeakageBudgetText()}"), new Text(CurrentText.WithUnit(n.LeakageBudgetA)),
             new Text(n.WithinLeakageBudget ? "within" : "exceeded"));
         margins.AddRow(new Text("DC blinding"),
             new Text(a.Blinding.ToleranceA is { } tol
                 ? $"{CurrentText.WithUnit(a.Blinding.SmoothDcA)} of {CurrentText.WithUnit(tol)}"
                 : CurrentText.WithUnit(a.Blinding.SmoothDcA)),
             new Text(a.Blinding.Explanation));
-        margins.AddRow(new Text("EV charging (RDC-DD 6 mA)"), new Text(CurrentText.WithUnit(a.EvCharging.SmoothDcA)),
+        margins.AddRow(new Text($"EV charging (RDC-DD {CurrentText.WithUnit(a.EvCharging.RdcDdThresholdA)})"), new Text(CurrentText.WithUnit(a.EvCharging.SmoothDcA)),
             new Text(a.EvCharging.Recommendation));
         if (a.Gfci is { } g)
         {

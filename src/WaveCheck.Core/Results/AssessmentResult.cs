@@ -6,6 +6,15 @@ namespace WaveCheck.Core.Results;
 /// </summary>
 public sealed record AssessmentResult
 {
+    /// <summary>The non-operating limit applied, as a multiple of IΔn in words (<c>0.5 IΔn</c>), for labels.</summary>
+    public string NonOperatingLimitText() => FractionText(NuisanceTrip.NonOperatingLimitA);
+
+    /// <summary>The leakage budget applied (<c>--leakage-budget</c>), as a multiple of IΔn in words (<c>0.3 IΔn</c>).</summary>
+    public string LeakageBudgetText() => FractionText(NuisanceTrip.LeakageBudgetA);
+
+    private string FractionText(double amperes) => string.Create(System.Globalization.CultureInfo.InvariantCulture,
+        $"{(RatedResidualCurrentA > 0 ? amperes / RatedResidualCurrentA : 0):0.##} IΔn");
+
     /// <summary>Least capable type that covers the waveform: <c>AC</c>, <c>A</c>, <c>F</c>, <c>B</c>, <c>B+</c>;
     /// null when it cannot be determined from this capture.</summary>
     public required string? RequiredType { get; init; }

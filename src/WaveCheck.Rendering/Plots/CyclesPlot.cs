@@ -86,8 +86,7 @@ public static class CyclesPlot
 
         if (assessment is { RatedResidualCurrentA: > 0 })
         {
-            var limitA = 0.5 * assessment.RatedResidualCurrentA;
-            DeviceLines.Line(model, limitA, $"{DeviceLines.NonOperatingLabel} = {CurrentText.WithUnit(limitA)}", PlotStyle.Vermillion, LineStyle.Dash, mirrored: false);
+            DeviceLines.NonOperating(model, assessment, mirrored: false);
         }
 
         var span = AxisFit.Fit(model, y, 0.2);

@@ -4,16 +4,12 @@ using WaveCheck.Core.Results;
 
 namespace WaveCheck.Rendering.Plots;
 
-/// <summary>Horizontal reference lines of the assessed device drawn on current axes (0.5 IΔn and 0.3 IΔn).</summary>
+/// <summary>Horizontal reference lines of the assessed device drawn on current axes: the non-operating limit and
+/// the leakage budget as the assessment applied them (0.5 IΔn and 0.3 IΔn unless overridden).</summary>
 internal static class DeviceLines
 {
-    /// <summary>Text that labels the non-operating limit line.</summary>
-    public const string NonOperatingLabel = "0.5 IΔn";
-
-    /// <summary>Text that labels the leakage budget line.</summary>
-    public const string LeakageBudgetLabel = "0.3 IΔn";
-
-    /// <summary>Adds the 0.5 IΔn and 0.3 IΔn lines (mA axis) when an assessment is given; <paramref name="mirrored"/> also draws them below zero.</summary>
+    /// <summary>Adds the non-operating limit and leakage-budget lines (mA axis) when an assessment is given;
+    /// <paramref name="mirrored"/> also draws them below zero.</summary>
     public static void Add(PlotModel model, AssessmentResult? assessment, bool mirrored)
     {
         if (assessment is null || !(assessment.RatedResidualCurrentA > 0))
@@ -21,9 +17,16 @@ internal static class DeviceLines
             return;
         }
 
-        var ratedA = assessment.RatedResidualCurrentA;
-        Line(model, 0.5 * ratedA, $"{NonOperatingLabel} = {CurrentText.WithUnit(0.5 * ratedA)}", PlotStyle.Vermillion, LineStyle.Dash, mirrored);
-        Line(model, 0.3 * ratedA, $"{LeakageBudgetLabel} = {CurrentText.WithUnit(0.3 * ratedA)}", PlotStyle.ReddishPurple, LineStyle.Dot, mirrored);
+        NonOperating(model, assessment, mirrored);
+        var budgetA = assessment.NuisanceTrip.LeakageBudgetA;
+        Line(model, budgetA, $"{assessment.LeakageBudgetText()} = {CurrentText.WithUnit(budgetA)}", PlotStyle.ReddishPurple, LineStyle.Dot, mirrored);
+    }
+
+    /// <summary>The non-operating limit line alone.</summary>
+    public static void NonOperating(PlotModel model, AssessmentResult assessment, bool mirrored)
+    {
+        var limitA = assessment.NuisanceTrip.NonOperatingLimitA;
+        Line(model, limitA, $"{assessment.NonOperatingLimitText()} = {CurrentText.WithUnit(limitA)}", PlotStyle.Vermillion, LineStyle.Dash, mirrored);
     }
 
     /// <summary>One labelled horizontal line at <paramref name="valueA"/> amperes.</summary>

@@ -183,9 +183,9 @@ public static class ReportWriter
         html.Raw("<h3>Nuisance tripping</h3>\n<table><tbody>\n");
         Row(html, "Risk", RiskText(trip.Risk));
         Row(html, "Standing residual current (frequency-weighted, worst window)", CurrentText.WithUnit(trip.StandingA));
-        Row(html, "Non-operating limit 0.5 IΔn", CurrentText.WithUnit(trip.NonOperatingLimitA));
+        Row(html, $"Non-operating limit {a.NonOperatingLimitText()}", CurrentText.WithUnit(trip.NonOperatingLimitA));
         Row(html, "Margin to the limit", $"{CurrentText.WithUnit(trip.MarginA)} ({Percent(trip.MarginPercent)} of the limit){(trip.MarginA < 0 ? " — above the limit" : string.Empty)}");
-        Row(html, "Leakage budget 0.3 IΔn", $"{CurrentText.WithUnit(trip.LeakageBudgetA)}: {(trip.WithinLeakageBudget ? "✔ within" : "✘ exceeded")}");
+        Row(html, $"Leakage budget {a.LeakageBudgetText()}", $"{CurrentText.WithUnit(trip.LeakageBudgetA)}: {(trip.WithinLeakageBudget ? "✔ within" : "✘ exceeded")}");
         html.Raw("</tbody></table>\n<p>").Text(trip.Explanation).Raw("</p>\n");
         if (trip.Contributions.Count > 0)
         {
@@ -297,7 +297,7 @@ public static class ReportWriter
 
     private static (string Title, string Caption) PlotCaption(PlotKind kind, AssessmentResult? assessment)
     {
-        var lines = assessment is null ? string.Empty : " Dashed and dotted lines: 0.5 IΔn (non-operating limit) and 0.3 IΔn (leakage budget).";
+        var lines = assessment is null ? string.Empty : $" Dashed and dotted lines: {assessment.NonOperatingLimitText()} (non-operating limit) and {assessment.LeakageBudgetText()} (leakage budget).";
         return kind switch
         {
             PlotKind.Overview => ("Residual current over the whole capture",

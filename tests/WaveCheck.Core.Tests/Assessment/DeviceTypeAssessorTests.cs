@@ -388,6 +388,19 @@ public class DeviceTypeAssessorTests
     }
 
     [Fact]
+    public void LimitLabelsFollowTheThresholdsApplied()
+    {
+        // IEC 61008-1: non-operating 0.5 IΔn; IEC 60364-5-53 §531.3.2: budget 0.3 IΔn; --leakage-budget 0.2 moves the
+        // budget, and every label (plots, report, console) is built from these texts.
+        var plain = Assess(new AnalysisBuilder().Sine(0.005));
+        Assert.Equal("0.5 IΔn", plain.NonOperatingLimitText());
+        Assert.Equal("0.3 IΔn", plain.LeakageBudgetText());
+        var tighter = Assess(new AnalysisBuilder().Sine(0.005), new AssessmentOptions { LeakageBudgetFraction = 0.2 });
+        Assert.Equal("0.2 IΔn", tighter.LeakageBudgetText());
+        Assert.Equal(0.006, tighter.NuisanceTrip.LeakageBudgetA, 12);
+    }
+
+    [Fact]
     public void NorthAmericanRegimeAddsGfciFigures()
     {
         var r = Assess(new AnalysisBuilder().Sine(0.010), new AssessmentOptions { Regime = Regime.Na });
