@@ -69,15 +69,17 @@ internal static class SynthCommand
             else if (extension == ".wav")
             {
                 var encoding = ParseFormat(parse.GetValue(format)!);
+                if (durationS * rateHz > CaptureWriter.MaxWavFrames(encoding, 1))
+                {
+                    throw new OptionValueException("--duration", parse.GetValue(duration)!, string.Create(CultureInfo.InvariantCulture,
+                        $"at most {CaptureWriter.MaxWavFrames(encoding, 1):N0} samples in a {encoding} WAV (4 GiB of sample data): a shorter duration, or a .csv output"));
+                }
+
                 var fullScaleText = parse.GetValue(fullScale);
                 double fullScaleA;
                 if (fullScaleText is not null)
                 {
-                    fullScaleA = Quantity.ParseCurrentA("--full-scale", fullScaleText);
-                    if (fullScaleA <= 0)
-                    {
-                        throw new OptionValueException("--full-scale", fullScaleText, "a positive current");
-                    }
+                    fullScaleA = Quantity.ParsePositiveCurrentA("--full-scale", fullScaleText);
                 }
                 else
                 {

@@ -74,6 +74,12 @@ public static class CaptureWriter
                     }
 
                     var length = block[0].Length;
+                    if (frames + length > MaxWavFrames(format, channels))
+                    {
+                        throw new CaptureFormatException(path, string.Create(CultureInfo.InvariantCulture,
+                            $"more than {MaxWavFrames(format, channels):N0} frames do not fit a {format} WAV of {channels} channel(s) (4 GiB of sample data at most): write a CSV or a shorter capture"));
+                    }
+
                     var needed = length * channels * BytesPerSample(format);
                     if (bytes.Length < needed)
                     {
@@ -179,6 +185,13 @@ public static class CaptureWriter
             yield return block.ResidualA.ToArray();
         }
     }
+
+    /// <summary>Most frames a plain (not RF64) WAV of <paramref name="format"/> and <paramref name="channels"/> holds:
+    /// its sizes are 32-bit, so 4 GiB of sample data less room for the header chunks.</summary>
+    /// <param name="format">Sample encoding.</param>
+    /// <param name="channels">Channels per frame, at least 1.</param>
+    public static long MaxWavFrames(WavSampleFormat format, int channels) =>
+        (uint.MaxValue - 4096L) / ((long)Math.Max(1, channels) * BytesPerSample(format));
 
     private static int BytesPerSample(WavSampleFormat format) => format switch
     {
