@@ -69,11 +69,6 @@ internal static class InfoCommand
         Row("scale", string.Create(CultureInfo.InvariantCulture, $"{info.Calibration.ScaleA:G6} A per stored unit: {info.Calibration.Source}"));
         Row("full scale", info.FullScaleA is { } fs ? CurrentText.WithUnit(fs) : "not known");
         Row("sensor coupling", info.SensorCoupling.ToString().ToLowerInvariant());
-        if (info.StartTime is { } start)
-        {
-            Row("start", start.ToString("O", CultureInfo.InvariantCulture));
-        }
-
         var gaps = warnings.Count(w => w.Code == "time-gap");
         Row("time gaps", gaps == 0 ? "none found" : $"{gaps} warning{(gaps == 1 ? "" : "s")}, see below");
         console.Write(facts);
@@ -107,8 +102,7 @@ internal static class InfoCommand
         }
     }
 
-    /// <summary>A Spectre console on <see cref="Console.Out"/>, plain text (no ANSI codes) when NO_COLOR is set or the
-    /// output is not a terminal.</summary>
+    /// <summary>A channel statistic for the table: currents in mA, anything else as a plain number.</summary>
     private static string Value(double si, string unit) =>
         unit == "A" ? CurrentText.Milliamps(si) : si.ToString("G4", CultureInfo.InvariantCulture);
 
