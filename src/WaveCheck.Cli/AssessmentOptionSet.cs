@@ -17,7 +17,17 @@ internal sealed class AssessmentOptionSet
 
     public Option<string?> Device { get; } = new("--device")
     {
-        Description = "Installed device type: AC, A, F, B or B+ (margins and the adequacy verdict are for it).",
+        Description = "Installed device type: AC, A, F, B or B+, with +RDC-DD when a 6 mA DC detection device (IEC 62955) is fitted beside it, e.g. A+RDC-DD (margins and the adequacy verdict are for it).",
+    };
+
+    public Option<bool> ChargerDcDetection { get; } = new("--charger-dc-detection")
+    {
+        Description = "With --ev: the charging equipment provides 6 mA DC fault detection itself, as its maker declares (IEC 60364-7-722).",
+    };
+
+    public Option<string?> Accuracy { get; } = new("--accuracy")
+    {
+        Description = "Accuracy of the clamp and logger, as a share of the reading plus a current, e.g. 3%+0.5mA (default 2%+0.1mA). A figure within it of a limit is at the limit and resolved to the safe side.",
     };
 
     public Option<string> Regime { get; } = new("--regime")
@@ -47,13 +57,13 @@ internal sealed class AssessmentOptionSet
     {
         _thresholds =
         [
-            (Threshold("--dc-threshold", "Smooth DC counted as present, e.g. 2mA (default: max(1 mA, 5 % of the worst-window RMS))."),
+            (Threshold("--dc-threshold", "Smooth DC counted as present (type B), e.g. 2mA (default 1mA)."),
                 false, (o, v) => o with { DcThresholdA = v }),
-            (Threshold("--below-mains-threshold", "Sub-mains and non-harmonic content counted as a converter signature (default: max(1 mA, 10 % of RMS))."),
+            (Threshold("--below-mains-threshold", "Motor-frequency content (sub-mains, tones up to 2 x mains) counted as a converter's composite current, type F (default: max(1 mA, 0.05 IΔn))."),
                 false, (o, v) => o with { BelowMainsThresholdA = v }),
-            (Threshold("--harmonic-threshold", "Harmonic content to 1 kHz counted as non-sinusoidal (default: max(1 mA, 50 % of the mains component))."),
+            (Threshold("--harmonic-threshold", "AC at other frequencies up to 1 kHz counted as present, type B (default: max(1 mA, 0.1 IΔn))."),
                 false, (o, v) => o with { HarmonicThresholdA = v }),
-            (Threshold("--hf-threshold", "Content above 1 kHz counted as present, e.g. 3mA (default: max(1 mA, 10 % of RMS))."),
+            (Threshold("--hf-threshold", "Content 1-20 kHz counted as present, type B+, e.g. 3mA (default: max(1 mA, 0.1 IΔn))."),
                 false, (o, v) => o with { HighFrequencyThresholdA = v }),
             (Threshold("--type-a-dc", "Smooth DC a type A device tolerates (default 6mA, IEC 61008-1)."),
                 false, (o, v) => o with { TypeASmoothDcToleranceA = v }),
@@ -61,7 +71,7 @@ internal sealed class AssessmentOptionSet
                 false, (o, v) => o with { TypeFSmoothDcToleranceA = v }),
             (Threshold("--rdc-dd", "DC threshold of an RDC-DD (default 6mA, IEC 62955)."),
                 false, (o, v) => o with { RdcDdThresholdA = v }),
-            (Threshold("--pulsating-share", "Share of windows (0 to 1) that must be pulsating DC to count (default 0.05)."),
+            (Threshold("--pulsating-share", "Share of windows (0 to 1) that must be pulsating DC to count (default: any window)."),
                 true, (o, v) => o with { PulsatingShareThreshold = v }),
             (Threshold("--leakage-budget", "Leakage budget as a fraction of IΔn (default 0.3, IEC 60364-5-53 §531.3.2)."),
                 true, (o, v) => o with { LeakageBudgetFraction = v }),
@@ -80,6 +90,8 @@ internal sealed class AssessmentOptionSet
         command.Options.Add(Device);
         command.Options.Add(Regime);
         command.Options.Add(Ev);
+        command.Options.Add(ChargerDcDetection);
+        command.Options.Add(Accuracy);
         foreach (var (option, _, _) in _thresholds)
         {
             command.Options.Add(option);
@@ -97,16 +109,25 @@ internal sealed class AssessmentOptionSet
         var options = new AssessmentOptions { RatedResidualCurrentA = Quantity.ParseCurrentA("--rated", ratedText, bareUnit: "mA") };
         if (parse.GetValue(Device) is { } deviceText)
         {
-            options = DeviceTypeNames.TryParse(deviceText, out var type)
-                ? options with { InstalledType = type }
-                : throw new OptionValueException("--device", deviceText, "AC, A, F, B or B+");
+            options = DeviceTypeNames.TryParseProtection(deviceText, out var type, out var rdcDd)
+                ? options with { InstalledType = type, InstalledRdcDd = rdcDd }
+                : throw new OptionValueException("--device", deviceText, "AC, A, F, B or B+, optionally with +RDC-DD (e.g. A+RDC-DD)");
         }
 
         var regimeText = parse.GetValue(Regime) ?? "iec";
         options = RegimeNames.TryParse(regimeText, out var regime)
             ? options with { Regime = regime }
             : throw new OptionValueException("--regime", regimeText, "iec or na");
-        options = options with { EvChargingPoint = parse.GetValue(Ev) };
+        options = options with { EvChargingPoint = parse.GetValue(Ev), ChargerDcDetection = parse.GetValue(ChargerDcDetection) };
+        if (options.ChargerDcDetection && !options.EvChargingPoint)
+        {
+            throw new OptionValueException("--charger-dc-detection", "true", "it only together with --ev (a charging point)");
+        }
+
+        if (parse.GetValue(Accuracy) is { } accuracyText)
+        {
+            options = options with { Accuracy = MeasurementAccuracy.Parse(accuracyText) };
+        }
 
         foreach (var (option, fraction, apply) in _thresholds)
         {

@@ -26,8 +26,9 @@ public sealed class AnalyzeCommandTests : IDisposable
     public void Json_carries_the_contract_and_the_verdict()
     {
         // Worked example of the analysis issue: 30 mA peak half-wave on 8 mA smooth DC has a mean of
-        // 8 + 30/π = 17.55 mA (closed form) and a smooth DC of 8 mA; IEC 62423: type F tolerates 10 mA smooth DC,
-        // type A only 6 mA, so type F is required.
+        // 8 + 30/π = 17.55 mA (closed form) and a smooth DC of 8 mA. Type F tolerates 10 mA smooth DC and type A
+        // only 6 mA (IEC 62423), but a circuit that produces smooth DC needs type B (REFERENCE.md, "tolerance is not
+        // fitness"); the installed type A is blinded.
         var wav = Synth("hw.wav", "halfwave:peak=30mA", "dc:level=8mA");
         var json = FilePath("hw.json");
         var (exit, output, error) = CliHarness.Run("analyze", wav, "--json", json, "--device", "A");
@@ -55,7 +56,10 @@ public sealed class AnalyzeCommandTests : IDisposable
         Assert.Equal(5, root.GetProperty("windows").GetProperty("count").GetInt32());
 
         var assessment = root.GetProperty("assessment");
-        Assert.Equal("F", assessment.GetProperty("requiredType").GetString());
+        Assert.Equal("B", assessment.GetProperty("requiredType").GetString());
+        Assert.Equal("B", assessment.GetProperty("minimumType").GetString());
+        Assert.Contains(assessment.GetProperty("classes").EnumerateArray(),
+            c => c.GetProperty("class").GetString() == "smoothDc" && c.GetProperty("presence").GetString() == "present");
         Assert.Equal(0.030, assessment.GetProperty("ratedResidualCurrentA").GetDouble());
         Assert.Equal(5, assessment.GetProperty("types").GetArrayLength());
         Assert.True(assessment.GetProperty("blinding").GetProperty("blinded").GetBoolean());

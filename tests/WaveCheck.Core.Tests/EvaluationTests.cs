@@ -30,9 +30,11 @@ public class EvaluationTests
     [InlineData("A", new[] { "halfwave:peak=30mA,angle=90" })]
     [InlineData("A", new[] { "halfwave:peak=30mA,angle=135" })]
     [InlineData("A", new[] { "halfwave:peak=30mA,polarity=neg" })]
-    // Type A still trips with up to 6 mA smooth DC superimposed; type F with up to 10 mA (IEC 62423).
-    [InlineData("A", new[] { "halfwave:peak=30mA", "dc:level=4mA" })]
-    [InlineData("F", new[] { "halfwave:peak=30mA", "dc:level=8mA" })]
+    // Type A still trips with up to 6 mA smooth DC superimposed, type F with up to 10 mA (IEC 62423): tolerance, not
+    // fitness. A circuit that itself produces smooth DC can produce a smooth DC fault, which only type B detects
+    // (REFERENCE.md "tolerance is not fitness"; IEC 60364-5-53 §531.3.3).
+    [InlineData("B", new[] { "halfwave:peak=30mA", "dc:level=4mA" })]
+    [InlineData("B", new[] { "halfwave:peak=30mA", "dc:level=8mA" })]
     [InlineData("B", new[] { "halfwave:peak=30mA", "dc:level=14mA" })]
     // IEC 62423: type F's composite test current of 10 Hz, 50 Hz and 1 kHz components.
     [InlineData("F", new[] { "composite:rms=20mA,motor=10Hz,switch=1kHz" })]
@@ -40,6 +42,20 @@ public class EvaluationTests
     [InlineData("B", new[] { "dc:level=20mA" })]
     [InlineData("B", new[] { "dc:level=-20mA" })]
     [InlineData("B", new[] { "sixpulse:mean=20mA" })]
+    // Rectified current from two or more phases never rests at zero for 150° (IEC 61008-1 definition of pulsating
+    // DC, from memory): type B at any level, below 6 mA too (IEC 62423).
+    [InlineData("B", new[] { "rectified:mean=2mA,pulses=2" })]
+    [InlineData("B", new[] { "rectified:mean=2mA,pulses=3" })]
+    [InlineData("B", new[] { "rectified:mean=2mA,pulses=6" })]
+    [InlineData("B", new[] { "rectified:mean=5mA,pulses=3" })]
+    [InlineData("B", new[] { "rectified:mean=8mA,pulses=3" })]
+    [InlineData("B", new[] { "rectified:mean=50mA,pulses=6" })]
+    [InlineData("B", new[] { "rectified:mean=3mA,pulses=3", "sine:rms=10mA" })]
+    [InlineData("B", new[] { "rectified:mean=3mA,pulses=6", "sine:rms=20mA" })]
+    // Sinusoidal AC up to 1 kHz at a frequency other than mains is type B's (IEC 62423), with or without a motor
+    // frequency beside it: adding a component never weakens the verdict.
+    [InlineData("B", new[] { "sine:rms=10mA,freq=150", "sine:rms=2mA" })]
+    [InlineData("B", new[] { "sine:rms=10mA,freq=150", "sine:rms=2mA", "sine:rms=3mA,freq=23" })]
     // Extended-frequency type B (B+, DIN VDE 0664-400): tripping defined up to 20 kHz; switching leakage at 16 kHz.
     [InlineData("B+", new[] { "sine:rms=5mA", "switching:rms=10mA,freq=16kHz" })]
     public void Each_test_current_of_the_standards_gets_its_type(string expected, string[] parts)
@@ -52,6 +68,11 @@ public class EvaluationTests
     [Theory]
     [InlineData("AC", new[] { "sine:rms=20mA" })]
     [InlineData("A", new[] { "halfwave:peak=30mA,angle=90" })]
+    // A mains sine on top of a two-pulse current stays below half its peak here: a two-pulse current less an in-phase
+    // sine of its own peak is a half-wave, pulsating DC by definition (closed form |sin θ| − sin θ).
+    [InlineData("B", new[] { "rectified:mean=4mA,pulses=3", "sine:rms=5mA" })]
+    [InlineData("B", new[] { "rectified:mean=4mA,pulses=2", "sine:rms=2mA" })]
+    [InlineData("B", new[] { "rectified:mean=4mA,pulses=6", "sine:rms=5mA" })]
     public void The_same_holds_at_60_Hz(string expected, string[] parts)
     {
         // IEC 61000-4-7: 12-cycle windows at 60 Hz; the verdict must not depend on the mains frequency.
@@ -90,7 +111,9 @@ public class EvaluationTests
         }
 
         var result = Evaluate([.. parts]);
-        Assert.Equal("F", result.Assessment.RequiredType);
+        // With real DC beside it, the circuit produces DC residual current: type B (REFERENCE.md, "tolerance is not
+        // fitness").
+        Assert.Equal(dcA == 0 ? "F" : "B", result.Assessment.RequiredType);
         Assert.Equal(dcA, result.Analysis.Components.SmoothDcMaxA, 0.0002);
 
         // Nor may it drag the mains tracking: the synthesized mains is exactly 50 Hz; the windows must stay within
@@ -111,11 +134,17 @@ public class EvaluationTests
     }
 
     [Fact]
-    public void A_low_sample_rate_leaves_b_plus_open()
+    public void A_low_sample_rate_leaves_the_verdict_open_below_b_plus()
     {
-        // Nyquist: at 10 kS/s nothing above 5 kHz is seen, so tripping up to 20 kHz cannot be judged (REFERENCE.md B+).
+        // Nyquist: at 10 kS/s nothing above 5 kHz is seen, so whether content up to 20 kHz asks for B+ cannot be
+        // judged (REFERENCE.md B+): the verdict is "at least AC", every type below B+ open, B+ (defined to 20 kHz)
+        // suitable.
         var result = Evaluate(["sine:rms=10mA"], rateHz: 10_000);
-        Assert.Null(result.Assessment.Types.Single(t => t.Type == "B+").Suitable);
+        Assert.Null(result.Assessment.RequiredType);
+        Assert.Equal("AC", result.Assessment.MinimumType);
+        Assert.Null(result.Assessment.Types.Single(t => t.Type == "B").Suitable);
+        Assert.True(result.Assessment.Types.Single(t => t.Type == "B+").Suitable);
+        Assert.Contains("at least type AC", result.Assessment.Headline, StringComparison.Ordinal);
     }
 
     [Fact]

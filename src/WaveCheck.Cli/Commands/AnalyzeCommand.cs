@@ -26,6 +26,10 @@ internal static class AnalyzeCommand
             Description = "Mains frequency: auto (find 50 or 60 Hz), 50, 60 or another frequency such as 400Hz; tracked within ±5 %.",
             DefaultValueFactory = _ => "auto",
         };
+        var mainsAsGiven = new Option<bool>("--mains-as-given")
+        {
+            Description = "Keep the --mains frequency even where the capture's own mains content contradicts it (otherwise that stops with an error).",
+        };
         var alarm = new Option<string?>("--alarm")
         {
             Description = "Record windows whose RMS exceeds this current as alarm events, e.g. 15mA (with --fail-on alarm: exit code 1).",
@@ -42,6 +46,7 @@ internal static class AnalyzeCommand
         imports.AddTo(command);
         assessment.AddTo(command);
         command.Options.Add(mains);
+        command.Options.Add(mainsAsGiven);
         command.Options.Add(alarm);
         command.Options.Add(json);
         command.Options.Add(windowsCsv);
@@ -57,6 +62,7 @@ internal static class AnalyzeCommand
                 MainsHz = mainsText.Trim().Equals("auto", StringComparison.OrdinalIgnoreCase)
                     ? null
                     : Quantity.ParseFrequencyHz("--mains", mainsText),
+                KeepGivenMains = parse.GetValue(mainsAsGiven),
                 AlarmA = parse.GetValue(alarm) is { } alarmText ? Quantity.ParseCurrentA("--alarm", alarmText, bareUnit: "mA") : null,
             };
             options.Validate();

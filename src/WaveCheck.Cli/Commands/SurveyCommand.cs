@@ -44,8 +44,9 @@ internal static class SurveyCommand
             {
                 RatedResidualCurrentA = parse.GetValue(rated) is { } r ? Quantity.ParsePositiveCurrentA("--rated", r, bareUnit: "mA") : null,
                 InstalledType = parse.GetValue(device) is { } d
-                    ? DeviceTypeNames.TryParse(d, out var t) ? t : throw new OptionValueException("--device", d, "AC, A, F, B or B+")
+                    ? DeviceTypeNames.TryParseProtection(d, out var t, out _) ? t : throw new OptionValueException("--device", d, "AC, A, F, B or B+, optionally with +RDC-DD")
                     : null,
+                InstalledRdcDd = parse.GetValue(device) is { } dd && DeviceTypeNames.TryParseProtection(dd, out _, out var rdc) ? rdc : null,
                 Sensor = parse.GetValue(sensor) is { } s ? SensorCouplingNames.Parse("--sensor", s) : null,
                 ScaleA = parse.GetValue(scale) is { } sc ? Quantity.ParsePositiveCurrentA("--scale", sc) : null,
                 Regime = parse.GetValue(regime) is { } rg

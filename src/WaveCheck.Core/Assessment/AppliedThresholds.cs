@@ -11,23 +11,27 @@ internal sealed class AppliedThresholds
     private const string Overridden = " (overridden)";
     private readonly List<ThresholdUse> _uses = [];
 
-    public AppliedThresholds(AssessmentOptions o, MeasuredFigures m)
+    public AppliedThresholds(AssessmentOptions o)
     {
         RatedA = o.RatedResidualCurrentA;
         Add("ratedResidualCurrentA", RatedA, "A", "IΔn of the device assessed (--rated; default 30 mA, practice)");
 
-        DcA = Significance("dcSignificanceA", o.DcThresholdA, Limits.DcSignificanceFraction, m.WindowRmsA,
-            "worst-window RMS", "engineering choice: above a DC clamp's offset, which scales with its range");
-        BelowMainsA = Significance("belowMainsSignificanceA", o.BelowMainsThresholdA, Limits.BelowMainsSignificanceFraction,
-            m.WindowRmsA, "worst-window RMS", "engineering choice: a converter's motor-frequency part is of the order of its mains part");
+        Accuracy = o.Accuracy ?? MeasurementAccuracy.Default;
+        _uses.Add(new ThresholdUse("accuracyReadingFraction", Accuracy.ReadingFraction, "1",
+            "measurement uncertainty, share of the reading: every limit below is compared with it (engineering choice: 2 % + 0.1 mA default, --accuracy)" + (o.Accuracy is null ? "" : Overridden)));
+        _uses.Add(new ThresholdUse("accuracyOffsetA", Accuracy.OffsetA, "A",
+            "measurement uncertainty, fixed part (see accuracyReadingFraction)" + (o.Accuracy is null ? "" : Overridden)));
+        DcA = Value("dcSignificanceA", o.DcThresholdA, Limits.DcSignificanceA, "A",
+            "engineering choice: smooth DC at or above it is present (type B); a fixed level so added content never hides it");
+        BelowMainsA = Significance("belowMainsSignificanceA", o.BelowMainsThresholdA, Limits.MotorFrequencySignificanceFraction,
+            "engineering choice: a motor-frequency part (type F's composite current)");
         HarmonicA = Significance("harmonicSignificanceA", o.HarmonicThresholdA, Limits.HarmonicSignificanceFraction,
-            m.MainsA, "mains component", "engineering choice: beyond it a mains-frequency rating no longer describes the current");
+            "engineering choice: AC at other frequencies up to 1 kHz (type B); a leakage within the 0.3 IΔn budget with normal supply distortion stays below");
         HighFrequencyA = Significance("highFrequencySignificanceA", o.HighFrequencyThresholdA,
-            Limits.HighFrequencySignificanceFraction, m.WindowRmsA, "worst-window RMS",
-            "engineering choice: content above 1 kHz, after a firing edge's own share");
+            Limits.HighFrequencySignificanceFraction, "engineering choice: content 1-20 kHz (B+), after a firing edge's own share");
 
         PulsatingShare = Value("pulsatingShareThreshold", o.PulsatingShareThreshold, Limits.PulsatingShareThreshold, "1",
-            "engineering choice: share of windows judged pulsating DC");
+            "engineering choice: share of windows judged pulsating DC (0: any window)");
         TypeADcA = Value("typeASmoothDcToleranceA", o.TypeASmoothDcToleranceA, Limits.TypeASmoothDcToleranceA, "A",
             "IEC 61008-1 / IEC 61009-1 type A, 6 mA smooth DC (std)");
         TypeFDcA = Value("typeFSmoothDcToleranceA", o.TypeFSmoothDcToleranceA, Limits.TypeFSmoothDcToleranceA, "A",
@@ -49,12 +53,10 @@ internal sealed class AppliedThresholds
             Value("bPlusUpperLimitA", o.BPlusUpperLimitA, Limits.BPlusUpperLimitA, "A", "DIN VDE 0664-400 B+ upper limit 420 mA to 20 kHz (from memory)"));
         Add("typeBSmoothDcFactor", Limits.TypeBSmoothDcFactor, "1", "IEC 62423 type B smooth DC upper limit 2 IΔn (std)");
         Add("pulsatingDcFactor", Limits.PulsatingDcFactor, "1", "IEC 61008-1 pulsating DC upper limit 1.4 IΔn (std)");
-        Add("sixPulseRippleShareOfDc", Limits.MultiPhaseRippleShareOfDc, "1",
-            "engineering choice: 6 × mains ripple of at least 2 % of the smooth DC reads as a three-phase bridge (closed form 4.0 %)");
-        Add("harmonicRippleRatio", Limits.MultiPhaseRippleRatio, "1",
-            "engineering choice: ripple above the mains component on smooth DC reads as multi-phase rectified");
-        Add("nonMainsDominanceRatio", Limits.NonMainsDominanceRatio, "1",
-            "engineering choice: harmonics above the mains component with no sub-mains part read as non-mains AC (type B)");
+        Add("minimumRestDeg", Signal.WaveformShape.MinRestDeg, "deg",
+            "IEC 61008-1 pulsating DC: at rest for a single interval of at least 150° each cycle (from memory)");
+        Add("motorFrequencyTopMultiple", Limits.MotorFrequencyTopMultiple, "1",
+            "practice: tones up to 2 × mains are motor frequencies (type F), above it AC at another frequency (type B)");
     }
 
     public double RatedA { get; }
@@ -71,6 +73,9 @@ internal sealed class AppliedThresholds
     public double PossibleFraction { get; }
     public double LikelyFraction { get; }
 
+    /// <summary>Uncertainty every comparison with a limit accounts for.</summary>
+    public MeasurementAccuracy Accuracy { get; }
+
     /// <summary>Frequency factors and the B+ limit as applied (defaults or overrides).</summary>
     public TripFactors Factors { get; }
 
@@ -85,7 +90,7 @@ internal sealed class AppliedThresholds
         _ => TypeBDcA,
     };
 
-    private double Significance(string name, double? given, double fraction, double reference, string referenceName, string why)
+    private double Significance(string name, double? given, double fractionOfRated, string why)
     {
         if (given is { } g)
         {
@@ -93,8 +98,8 @@ internal sealed class AppliedThresholds
             return g;
         }
 
-        var value = Math.Max(Limits.SignificanceFloorA, fraction * reference);
-        Add(name, value, "A", $"{why}; max(1 mA, {fraction * 100:0.#} % of the {referenceName})");
+        var value = Math.Max(Limits.SignificanceFloorA, fractionOfRated * RatedA);
+        Add(name, value, "A", $"{why}; max(1 mA, {fractionOfRated:0.##} IΔn)");
         return value;
     }
 

@@ -30,21 +30,31 @@ public sealed record AssessmentOptions
     /// <summary>The circuit feeds an EV charging point (CLI <c>--ev</c>): IEC 60364-7-722 guidance is given as a requirement.</summary>
     public bool EvChargingPoint { get; init; }
 
-    /// <summary>Smooth DC counted as present, amperes (CLI <c>--dc-threshold</c>); default max(1 mA, 5 % of worst-window RMS).</summary>
+    /// <summary>DC fault-current detection fitted beside the installed device (CLI <c>--device A+RDC-DD</c>).</summary>
+    public bool InstalledRdcDd { get; init; }
+
+    /// <summary>The charging equipment provides 6 mA DC fault detection itself, as its maker declares (CLI
+    /// <c>--charger-dc-detection</c>); only with <see cref="EvChargingPoint"/>.</summary>
+    public bool ChargerDcDetection { get; init; }
+
+    /// <summary>Accuracy of the measuring chain (CLI <c>--accuracy</c>); null for <see cref="MeasurementAccuracy.Default"/>.</summary>
+    public MeasurementAccuracy? Accuracy { get; init; }
+
+    /// <summary>Smooth DC counted as present, amperes (CLI <c>--dc-threshold</c>); default 1 mA.</summary>
     public double? DcThresholdA { get; init; }
 
     /// <summary>Sub-mains / non-harmonic content counted as a converter signature, amperes (CLI <c>--below-mains-threshold</c>);
-    /// default max(1 mA, 10 % of worst-window RMS).</summary>
+    /// default max(1 mA, 0.05 IΔn).</summary>
     public double? BelowMainsThresholdA { get; init; }
 
     /// <summary>Harmonic content to 1 kHz counted as non-sinusoidal, amperes (CLI <c>--harmonic-threshold</c>);
-    /// default max(1 mA, 50 % of the mains component).</summary>
+    /// default max(1 mA, 0.1 IΔn).</summary>
     public double? HarmonicThresholdA { get; init; }
 
-    /// <summary>Content above 1 kHz counted as present, amperes (CLI <c>--hf-threshold</c>); default max(1 mA, 10 % of worst-window RMS).</summary>
+    /// <summary>Content above 1 kHz counted as present, amperes (CLI <c>--hf-threshold</c>); default max(1 mA, 0.1 IΔn).</summary>
     public double? HighFrequencyThresholdA { get; init; }
 
-    /// <summary>Share of windows (0..1) that must be pulsating DC to count (CLI <c>--pulsating-share</c>); default 0.05.</summary>
+    /// <summary>Share of windows (0..1) that must be pulsating DC to count (CLI <c>--pulsating-share</c>); default 0: any window.</summary>
     public double? PulsatingShareThreshold { get; init; }
 
     /// <summary>Type A smooth-DC tolerance, amperes (CLI <c>--type-a-dc</c>); default 6 mA (IEC 61008-1).</summary>

@@ -50,4 +50,24 @@ public static class DeviceTypeNames
             default: type = DeviceType.AC; return false;
         }
     }
+
+    /// <summary>Parses an installed protection: a type, optionally with an RDC-DD (IEC 62955) beside it, written
+    /// <c>A+RDC-DD</c> (spaces allowed; <c>A+RDCDD</c> also accepted).</summary>
+    /// <returns>False when the text is none of these.</returns>
+    public static bool TryParseProtection(string? text, out DeviceType type, out bool rdcDd)
+    {
+        var compact = (text ?? string.Empty).Replace(" ", string.Empty, StringComparison.Ordinal).ToUpperInvariant();
+        rdcDd = false;
+        foreach (var suffix in new[] { "+RDC-DD", "+RDCDD" })
+        {
+            if (compact.EndsWith(suffix, StringComparison.Ordinal) && compact.Length > suffix.Length)
+            {
+                rdcDd = true;
+                compact = compact[..^suffix.Length];
+                break;
+            }
+        }
+
+        return TryParse(compact, out type);
+    }
 }

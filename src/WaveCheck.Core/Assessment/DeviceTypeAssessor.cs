@@ -8,13 +8,15 @@ namespace WaveCheck.Core.Assessment;
 /// margins of the installed (or required) device. Judges the worst windows of the whole capture, never averages.
 /// </summary>
 /// <remarks>
-/// <para>Rules (IEC 60364-5-53:2015 §531.3.3, IEC 61008-1, IEC 62423; thresholds in <see cref="Limits"/>):
-/// AC: sinusoidal at mains frequency only; A: adds pulsating DC with smooth DC ≤ 6 mA; F: adds composite current
-/// of single-phase converters (sub-mains motor frequency, mains, switching content to 1 kHz) with smooth DC ≤ 10 mA;
-/// B: adds smooth DC of either polarity, multi-phase rectified current and AC up to 1 kHz; B+: B with tripping
-/// defined to 20 kHz, needed when content between 1 and 20 kHz is significant.</para>
-/// <para>A capture that cannot show something (an AC-coupled sensor and DC; a sample rate below 40 kS/s and the
-/// 1 to 20 kHz range) leaves the verdicts that depend on it open (null) and says what to measure instead.</para>
+/// <para>The capture is read for the <see cref="ResidualCurrentClass">classes of residual current</see> the standards
+/// distinguish (IEC 60364-5-53:2015 §531.3.3, IEC 61008-1, IEC 62423, IEC 60364-7-722); the required type is the
+/// least type that detects every class present. Each class has its own evidence and a threshold that depends only on
+/// the device (IΔn) and the user's overrides, never on the capture's other content, so adding a component to a
+/// waveform or scaling it up never lowers the required type (tested as a property). Every comparison accounts for the
+/// measurement uncertainty (<see cref="MeasurementAccuracy"/>); a figure within it of a threshold is "at the limit"
+/// and counted as present: the safe side.</para>
+/// <para>What the capture cannot show (DC with an AC-coupled sensor, 1 to 20 kHz below 40 kS/s, anything beyond full
+/// scale) makes the classes it hides open: the verdict is then "at least" the type the seen classes demand.</para>
 /// Stateless and thread-safe.
 /// </remarks>
 public static class DeviceTypeAssessor
@@ -33,273 +35,189 @@ public static class DeviceTypeAssessor
         options.Validate();
 
         var m = MeasuredFigures.From(analysis);
-        var th = new AppliedThresholds(options, m);
-        var pulsating = m.PulsatingFlag || m.PulsatingShare >= th.PulsatingShare;
-        var dcSeen = m.SmoothDcA >= th.DcA;
-        var dcKnown = m.Coupling == SensorCoupling.Dc || (m.Coupling == SensorCoupling.Unknown && (dcSeen || pulsating));
+        var th = new AppliedThresholds(options);
+        var acSignature = LooksAcCoupled(m, th);
+        var coupling = acSignature ? SensorCoupling.Ac : m.Coupling;
+        var pulsatingSeen = m.PulsatingShare > th.PulsatingShare || (th.PulsatingShare == 0 && m.PulsatingShare > 0);
+        var dcSeen = th.Accuracy.Compare(m.SmoothDcA, th.DcA) != LimitState.Below;
+        var dcKnown = coupling == SensorCoupling.Dc ||
+            (coupling == SensorCoupling.Unknown && (dcSeen || pulsatingSeen));
         var hfCovered = m.SampleRateHz >= Limits.BPlusMinimumSampleRateHz;
 
-        var findings = Findings(m, th, pulsating, dcKnown, options.EvChargingPoint, out var hfSeen);
+        var classes = ClassDetector.Detect(m, th, options, pulsatingSeen, dcKnown, coupling, hfCovered);
+        var present = classes.Where(c => c.Presence is ClassPresence.Present or ClassPresence.AtLimit).ToList();
+        var open = classes.Where(c => c.Presence == ClassPresence.Open).ToList();
+        var level = present.Count == 0 ? DeviceType.AC : present.Max(c => c.Class.LeastType());
+        if (options.EvChargingPoint && level < DeviceType.A)
+        {
+            level = DeviceType.A;
+        }
+
+        var openTop = open.Count == 0 ? DeviceType.AC : open.Max(c => c.Class.LeastType());
+        DeviceType? required = openTop > level ? null : level;
+
         var verdicts = new List<TypeVerdict>(AllTypes.Length);
         foreach (var t in AllTypes)
         {
-            verdicts.Add(Verdict(t, findings, m, th, pulsating, hfCovered, hfSeen));
+            verdicts.Add(Verdict(t, present, open, m, th, options.EvChargingPoint));
         }
 
-        var (required, minimum) = Decide(verdicts);
-        var assessed = options.InstalledType ?? required ?? minimum;
+        var assessed = options.InstalledType ?? required ?? level;
+        var dcDetection = options.InstalledRdcDd ? DcDetection.RdcDd
+            : options.ChargerDcDetection && options.EvChargingPoint ? DcDetection.Charger : DcDetection.None;
         var blinding = Margins.Blinding(assessed, m, th, dcKnown);
-        var evCharging = Margins.EvCharging(m, th, dcKnown, options.EvChargingPoint);
-        var result = new AssessmentResult
+        var dcReachesRdcDd = th.Accuracy.Compare(m.SmoothDcA, th.RdcDdA) != LimitState.Below;
+        var evCharging = Margins.EvCharging(m, th, dcKnown, options.EvChargingPoint, dcDetection);
+        var pulsatingForWeights = pulsatingSeen && m.PulsatingFlag;
+        return new AssessmentResult
         {
             RequiredType = required?.ToTradeName(),
-            MinimumType = minimum.ToTradeName(),
-            Headline = Headline(required, minimum, findings, m, hfCovered),
+            MinimumType = level.ToTradeName(),
+            Headline = Headline(required, level, present, open, m, hfCovered, options.EvChargingPoint, dcReachesRdcDd),
             RatedResidualCurrentA = th.RatedA,
             InstalledType = options.InstalledType?.ToTradeName(),
-            InstalledAdequate = options.InstalledType is { } it ? verdicts[(int)it].Suitable : null,
+            InstalledProtection = options.InstalledType is { } it ? ProtectionText(it, dcDetection) : null,
+            InstalledAdequate = options.InstalledType is { } installed
+                ? Adequate(installed, dcDetection, present, open, options.EvChargingPoint, dcReachesRdcDd)
+                : null,
+            AcceptedProtection = required is { } r ? Accepted(r, present, options.EvChargingPoint, dcReachesRdcDd) : null,
+            Classes = [.. classes.Select(c => c.ToResult())],
+            Accuracy = th.Accuracy.ToString(),
             Regime = options.Regime.ToText(),
             Types = verdicts,
-            NuisanceTrip = Margins.NuisanceTrip(assessed, m, th, pulsating),
+            NuisanceTrip = Margins.NuisanceTrip(assessed, m, th, pulsatingForWeights),
             Blinding = blinding,
             EvCharging = evCharging,
             Gfci = options.Regime == Regime.Na ? Gfci.Assess(m.WindowRmsA) : null,
             TouchCurrent = analysis.TouchCurrent is { } tc ? TouchCurrentLimits.Compare(tc) : null,
-            Cautions = Cautions(analysis, m, th, dcKnown, hfCovered, blinding, options.EvChargingPoint ? evCharging : null),
+            Cautions = Cautions(analysis, m, th, dcKnown, coupling, acSignature, hfCovered, blinding,
+                options.EvChargingPoint ? evCharging : null),
             Thresholds = th.Uses,
         };
-        return result;
     }
-
-    /// <summary>A measured fact that rules out (definite) or may rule out (open) every type up to <paramref name="Exceeds"/>.</summary>
-    private sealed record Finding(DeviceType Exceeds, string Text, bool Definite);
 
     /// <summary>
-    /// RMS of the harmonic at 6 × mains, amperes, when it stands out as a six-pulse bridge's ripple: at least
-    /// <see cref="Limits.MultiPhaseRippleContrast"/> times every other harmonic from order 2 to 7 (a six-pulse
-    /// bridge has only orders 6k, closed form); null otherwise or when the spectrum does not reach it.
+    /// The signature of an AC-coupled sensor with the coupling not stated: pulsating windows on a floor far from zero
+    /// while the capture's mean is zero within its uncertainty and <see cref="Limits.AcCouplingMeanFraction"/> of the
+    /// RMS. A DC-coupled capture of pulsating DC has a mean of about a third of its peak.
     /// </summary>
-    private static double? SixPulseRippleA(MeasuredFigures m)
+    private static bool LooksAcCoupled(MeasuredFigures m, AppliedThresholds th) =>
+        m.Coupling == SensorCoupling.Unknown && m.PulsatingShare > 0 &&
+        th.Accuracy.Compare(m.SmoothDcA, th.DcA) == LimitState.Above &&
+        Math.Abs(m.CaptureMeanA) <= Math.Max(th.Accuracy.UncertaintyA(m.CaptureMeanA), Limits.AcCouplingMeanFraction * m.WindowRmsA);
+
+    /// <summary>Adequacy of an installed protection: every class present detected by the type, or (DC classes) by DC
+    /// detection beside a type A or stronger; an open class it does not cover leaves it undetermined.</summary>
+    private static bool? Adequate(DeviceType type, DcDetection dc, List<ClassFinding> present, List<ClassFinding> open,
+        bool evChargingPoint, bool dcReachesRdcDd)
     {
-        double? sixth = null;
-        var others = 0.0;
-        foreach (var (frequencyHz, rmsA) in m.HarmonicsTo1k)
+        // DC detection stands in for type B only while the standing DC stays below its 6 mA: at or above it the
+        // detection disconnects the circuit, and a type A or F beside it is beyond its DC tolerance.
+        if (dc != DcDetection.None && type < DeviceType.B && dcReachesRdcDd)
         {
-            var order = (int)Math.Round(frequencyHz / m.MainsHz);
-            if (order == 6)
-            {
-                sixth = rmsA;
-            }
-            else if (order is >= 2 and <= 7)
-            {
-                others = Math.Max(others, rmsA);
-            }
+            dc = DcDetection.None;
         }
 
-        return sixth is { } r && r >= Limits.MultiPhaseRippleContrast * others ? r : null;
+        bool Covers(ClassFinding c) => c.Class.LeastType() <= type ||
+            (dc != DcDetection.None && c.Class.CoveredByDcDetection() && type >= DeviceType.A);
+
+        if ((evChargingPoint && type < DeviceType.A) || present.Any(c => !Covers(c)))
+        {
+            return false;
+        }
+
+        return open.All(Covers) ? true : null;
     }
 
-    private static List<Finding> Findings(MeasuredFigures m, AppliedThresholds th, bool pulsating, bool dcKnown,
-        bool evChargingPoint, out bool hfSeen)
+    private static string ProtectionText(DeviceType type, DcDetection dc) => dc switch
     {
-        var f = new List<Finding>();
-        var dc = Ma(m.SmoothDcA);
-        if (m.SmoothDcA >= th.DcA)
+        DcDetection.RdcDd => $"{type.ToTradeName()}+RDC-DD",
+        DcDetection.Charger => $"{type.ToTradeName()} + charger DC detection",
+        _ => type.ToTradeName(),
+    };
+
+    /// <summary>The required type and, where only DC classes ask for type B, the alternative of a weaker type with 6 mA
+    /// DC detection (IEC 60364-7-722, IEC 62955).</summary>
+    private static string Accepted(DeviceType required, List<ClassFinding> present, bool evChargingPoint, bool dcReachesRdcDd)
+    {
+        var name = required.ToTradeName();
+        if (required != DeviceType.B || dcReachesRdcDd)
         {
-            f.Add(new(DeviceType.AC, $"smooth DC {dc} is present (≥ {Ma(th.DcA)} significance, engineering choice); type AC is specified for sinusoidal AC only (IEC 61008-1)", true));
+            return $"type {name}";
         }
 
-        if (m.SmoothDcA > th.TypeADcA)
+        var withoutDc = present.Where(c => !c.Class.CoveredByDcDetection()).Select(c => c.Class.LeastType())
+            .DefaultIfEmpty(DeviceType.AC).Max();
+        if (withoutDc >= DeviceType.B)
         {
-            f.Add(new(DeviceType.A, $"smooth DC {dc} exceeds the {Ma(th.TypeADcA)} that type A tolerates (IEC 61008-1 / IEC 61009-1)", true));
+            return "type B";
         }
 
-        if (m.SmoothDcA > th.TypeFDcA)
-        {
-            f.Add(new(DeviceType.F, $"smooth DC {dc} exceeds the {Ma(th.TypeFDcA)} that type F tolerates (IEC 62423)", true));
-        }
-
-        // IEC 60364-7-722: a charging point has its own RCD of at least type A, whatever the capture shows.
-        if (evChargingPoint)
-        {
-            f.Add(new(DeviceType.AC, "charging point: IEC 60364-7-722 asks for its own RCD of at least type A", true));
-        }
-
-        // IEC 60364-7-722: a charging point's device is type B, or type A with an RDC-DD, once smooth DC of 6 mA or
-        // more cannot be ruled out; type F is not among the choices, so DC within F's tolerance does not make F enough.
-        if (evChargingPoint && m.SmoothDcA >= th.RdcDdA && m.SmoothDcA <= th.TypeFDcA)
-        {
-            f.Add(new(DeviceType.F, $"charging point with smooth DC {dc} ≥ {Ma(th.RdcDdA)}: IEC 60364-7-722 asks for type B, or type A with an RDC-DD (IEC 62955), which would disconnect at this DC; type F is not one of its choices", true));
-        }
-
-        // A three-phase bridge leaves smooth DC with ripple at 6 × mains (closed form: 4.0 % of the mean, RMS) and no
-        // own fundamental; a fault on it gives smooth DC, which only type B detects (IEC 60364-5-53 guidance).
-        if (!pulsating && dcKnown && m.SmoothDcA >= th.DcA && SixPulseRippleA(m) is { } ripple &&
-            ripple >= Math.Max(Limits.MultiPhaseRippleFloorA, Limits.MultiPhaseRippleShareOfDc * m.SmoothDcA))
-        {
-            f.Add(new(DeviceType.F, $"ripple {Ma(ripple)} at 6 × mains ({6 * m.MainsHz:0} Hz) on smooth DC {dc} (≥ {Limits.MultiPhaseRippleShareOfDc * 100:0} % of it, engineering choice): rectified current from a three-phase bridge, which type B adds (IEC 62423)", true));
-        }
-
-        if (pulsating)
-        {
-            var angle = m.DelayAngleDeg is { } a ? $", current-delay angle {a:0}°" : "";
-            f.Add(new(DeviceType.AC, $"pulsating DC in {m.PulsatingShare * 100:0} % of windows{angle}; type AC does not detect pulsating DC (IEC 60364-5-53 §531.3.3)", true));
-        }
-
-        if (!dcKnown)
-        {
-            var why = m.Coupling == SensorCoupling.Ac ? "the sensor is AC-coupled" : "the sensor coupling is not stated and no DC was seen";
-            f.Add(new(DeviceType.F, $"smooth and pulsating DC cannot be determined: {why}; any DC seen ({dc}) is a lower bound, and types AC, A and F tolerate only {Ma(th.DcA)} (significance), {Ma(th.TypeADcA)} and {Ma(th.TypeFDcA)}", false));
-        }
-
-        var composite = false;
-        if (m.BelowMainsA >= th.BelowMainsA)
-        {
-            composite = true;
-            f.Add(new(DeviceType.A, $"sub-mains content {Ma(m.BelowMainsA)} (≥ {Ma(th.BelowMainsA)}, engineering choice) marks a frequency converter's composite current; type A covers mains frequency and pulsating DC only, type F adds composite current (IEC 62423)", true));
-        }
-
-        if (m.StrongestNonHarmonicTone is { } tone && tone.RmsA >= th.BelowMainsA)
-        {
-            composite = true;
-            f.Add(new(DeviceType.A, $"non-harmonic tone at {tone.FrequencyHz:0.#} Hz, {Ma(tone.RmsA)} (≥ {Ma(th.BelowMainsA)}, engineering choice) marks a converter's composite current, which type F adds (IEC 62423)", true));
-        }
-
-        // Harmonics of pulsating DC are its own (any delay angle); only bipolar or smooth-DC currents are judged on them.
-        if (!pulsating && m.HarmonicsTo1kA >= th.HarmonicA)
-        {
-            var share = m.MainsA > 0 ? $"{m.HarmonicsTo1kA / m.MainsA * 100:0} % of" : "above";
-            if (dcKnown && m.SmoothDcA >= th.DcA && m.HarmonicsTo1kA > Limits.MultiPhaseRippleRatio * m.MainsA)
-            {
-                f.Add(new(DeviceType.F, $"ripple {Ma(m.HarmonicsTo1kA)} at mains harmonics on smooth DC {dc}, mains component only {Ma(m.MainsA)}: rectified current from two or more phases, which type B adds (IEC 62423)", true));
-            }
-            else if (!composite && m.HarmonicsTo1kA > Limits.NonMainsDominanceRatio * m.MainsA)
-            {
-                f.Add(new(DeviceType.F, $"AC content to 1 kHz {Ma(m.HarmonicsTo1kA)} exceeds the mains component {Ma(m.MainsA)}: residual current at frequencies other than mains, which type B adds (sinusoidal AC up to 1 kHz, IEC 62423)", true));
-            }
-            else if (!composite)
-            {
-                f.Add(new(DeviceType.A, $"harmonic content to 1 kHz {Ma(m.HarmonicsTo1kA)} is {share} the mains component {Ma(m.MainsA)} (≥ {Ma(th.HarmonicA)}, engineering choice): composite current beyond the mains frequency types AC and A are specified for; type F covers it (IEC 62423)", true));
-            }
-        }
-
-        var hf = m.From1kTo20kA;
-        var edge = 0.0;
-        if (pulsating && m.DelayAngleDeg is { } alpha && alpha >= Limits.MinimumDelayAngleDeg)
-        {
-            var top = Math.Min(m.SampleRateHz / 2, Limits.BPlusUpperFrequencyHz);
-            edge = PhaseControlledSpectrum.ShareBetween(alpha, m.MainsHz, Limits.TypeBUpperFrequencyHz, top) * m.WindowRmsA;
-        }
-
-        var excess = Math.Sqrt(Math.Max(0, (hf * hf) - (edge * edge)));
-        hfSeen = excess >= th.HighFrequencyA;
-        if (hfSeen)
-        {
-            var after = edge > 0 ? $" ({Ma(excess)} beyond the {Ma(edge)} a {m.DelayAngleDeg:0}° firing edge accounts for)" : "";
-            f.Add(new(DeviceType.B, $"content {m.From1kRangeText} {Ma(hf)}{after} (≥ {Ma(th.HighFrequencyA)}, engineering choice): type B's tripping is defined only up to 1 kHz (IEC 62423); B+ is defined up to 20 kHz (DIN VDE 0664-400)", true));
-        }
-
-        return f;
+        var weaker = (DeviceType)Math.Max((int)withoutDc, (int)DeviceType.A);
+        var where = evChargingPoint ? "IEC 60364-7-722" : "as IEC 60364-7-722 allows at charging points; engineering choice elsewhere";
+        return $"type B, or type {weaker.ToTradeName()} with 6 mA DC fault detection (an RDC-DD, IEC 62955{(evChargingPoint ? ", or the charger's own, declared by its maker" : "")}; {where})";
     }
 
-    private static TypeVerdict Verdict(DeviceType t, List<Finding> findings, MeasuredFigures m, AppliedThresholds th,
-        bool pulsating, bool hfCovered, bool hfSeen)
+    private static TypeVerdict Verdict(DeviceType t, List<ClassFinding> present, List<ClassFinding> open,
+        MeasuredFigures m, AppliedThresholds th, bool evChargingPoint)
     {
-        var against = findings.Where(x => x.Definite && x.Exceeds >= t).ToList();
+        var against = present.Where(c => c.Class.LeastType() > t).Select(c => c.Text).ToList();
+        if (evChargingPoint && t < DeviceType.A)
+        {
+            against.Insert(0, "charging point: IEC 60364-7-722 asks for its own RCD of at least type A");
+        }
+
         if (against.Count > 0)
         {
-            var own = against.Where(x => x.Exceeds == t).ToList();
-            return new TypeVerdict(t.ToTradeName(), false, (own.Count > 0 ? own : against).Select(x => x.Text).ToList());
+            return new TypeVerdict(t.ToTradeName(), false, against);
         }
 
-        var open = findings.Where(x => !x.Definite && x.Exceeds >= t).Select(x => x.Text).ToList();
-        if (t == DeviceType.BPlus && !hfCovered && !hfSeen)
+        var unknown = open.Where(c => c.Class.LeastType() > t).Select(c => c.Text).ToList();
+        if (unknown.Count > 0)
         {
-            open.Add($"whether content between 1 and 20 kHz needs B+ cannot be determined: the sample rate {m.SampleRateHz / 1000:0.#} kS/s shows content only up to {m.SampleRateHz / 2000:0.#} kHz (B+ is defined to 20 kHz, DIN VDE 0664-400)");
-        }
-
-        if (open.Count > 0)
-        {
-            return new TypeVerdict(t.ToTradeName(), null, open);
+            return new TypeVerdict(t.ToTradeName(), null, unknown);
         }
 
         var reasons = new List<string>();
-        var dc = Ma(m.SmoothDcA);
-        switch (t)
+        var covered = present.Where(c => c.Class != ResidualCurrentClass.MainsAc).Select(c => c.Class.Describe()).ToList();
+        reasons.Add(covered.Count == 0
+            ? $"detects the sinusoidal mains-frequency current seen (worst window {Ma(m.WindowRmsA)}); no other class of residual current present (IEC 60364-5-53 §531.3.3)"
+            : $"detects every class of residual current present: {string.Join(", ", covered)} (IEC 60364-5-53 §531.3.3, IEC 62423)");
+        if (t >= DeviceType.B && th.Accuracy.Compare(m.SmoothDcA, th.TypeBDcA) != LimitState.Below)
         {
-            case DeviceType.AC:
-                reasons.Add($"sinusoidal at mains frequency: mains component {Ma(m.MainsA)}, smooth DC {dc} below the {Ma(th.DcA)} significance, no pulsating DC, sub-mains content {Ma(m.BelowMainsA)} below {Ma(th.BelowMainsA)} (IEC 61008-1)");
-                break;
-            case DeviceType.A:
-                reasons.Add($"covers {(pulsating ? "the pulsating DC seen" : "sinusoidal AC and pulsating DC")}; smooth DC {dc} within the {Ma(th.TypeADcA)} type A works with (IEC 61008-1 / IEC 61009-1)");
-                break;
-            case DeviceType.F:
-                reasons.Add($"covers composite current of single-phase frequency converters (IEC 62423); smooth DC {dc} within the {Ma(th.TypeFDcA)} type F works with (IEC 62423)");
-                break;
-            case DeviceType.B:
-                reasons.Add($"covers smooth DC of either polarity, multi-phase rectified current and AC up to 1 kHz (IEC 62423); content {m.From1kRangeText} {Ma(m.From1kTo20kA)} below {Ma(th.HighFrequencyA)}");
-                break;
-            default:
-                reasons.Add($"type B with tripping defined up to 20 kHz (DIN VDE 0664-400): covers the content {m.From1kRangeText} ({Ma(m.From1kTo20kA)})");
-                break;
-        }
-
-        if (t >= DeviceType.B && m.SmoothDcA > th.TypeBDcA)
-        {
-            reasons.Add($"smooth DC {dc} exceeds the {Ma(th.TypeBDcA)} (max of {Limits.TypeBSmoothDcToleranceFraction:0.#} IΔn and {Ma(Limits.TypeBSmoothDcToleranceMinA)}) with which type B's tripping on superimposed currents is specified (IEC 62423): see blinding");
+            reasons.Add($"smooth DC {Ma(m.SmoothDcA)} reaches the {Ma(th.TypeBDcA)} (max of {Limits.TypeBSmoothDcToleranceFraction:0.#} IΔn and {Ma(Limits.TypeBSmoothDcToleranceMinA)}) with which type B's tripping on superimposed currents is specified (IEC 62423): see blinding");
         }
 
         return new TypeVerdict(t.ToTradeName(), true, reasons);
     }
 
-    /// <summary>Required: least suitable type with every lesser type ruled out; minimum: least type not ruled out.</summary>
-    private static (DeviceType? Required, DeviceType Minimum) Decide(List<TypeVerdict> verdicts)
+    private static string Headline(DeviceType? required, DeviceType level, List<ClassFinding> present,
+        List<ClassFinding> open, MeasuredFigures m, bool hfCovered, bool evChargingPoint, bool dcReachesRdcDd)
     {
-        DeviceType? minimum = null;
-        foreach (var t in AllTypes)
-        {
-            var v = verdicts[(int)t].Suitable;
-            if (v == false)
-            {
-                continue;
-            }
-
-            minimum ??= t;
-            if (v == true)
-            {
-                return (minimum == t ? t : null, minimum.Value);
-            }
-        }
-
-        return (null, minimum ?? DeviceType.BPlus);
-    }
-
-    private static string Headline(DeviceType? required, DeviceType minimum, List<Finding> findings, MeasuredFigures m,
-        bool hfCovered)
-    {
-        // Below 40 kS/s content up to 20 kHz is partly unseen: a decided type below B+ carries that in its headline.
-        var bPlusOpen = !hfCovered
+        var bPlusOpen = !hfCovered && required is { } rq && rq < DeviceType.BPlus
             ? $"; whether B+ is needed is open (this capture shows content only up to {m.From1kTopHz / 1000:0.#} kHz)"
             : string.Empty;
-        if (required == DeviceType.AC)
-        {
-            return $"Type AC sufficient: sinusoidal residual current at mains frequency only (worst window {Ma(m.WindowRmsA)}), no significant DC; check that type AC is permitted locally{bPlusOpen}";
-        }
-
         if (required is { } r)
         {
-            var deciding = findings.FirstOrDefault(x => x.Definite && x.Exceeds == r - 1)
-                ?? findings.First(x => x.Definite && x.Exceeds < r);
-            return $"Type {r.ToTradeName()} required: {deciding.Text}{(r < DeviceType.BPlus ? bPlusOpen : string.Empty)}";
+            if (r == DeviceType.AC)
+            {
+                return $"Type AC sufficient: sinusoidal residual current at mains frequency only (worst window {Ma(m.WindowRmsA)}), no other class of residual current present; check that type AC is permitted locally{bPlusOpen}";
+            }
+
+            var deciding = present.Where(c => c.Class.LeastType() == r).Select(c => c.Text).FirstOrDefault()
+                ?? (evChargingPoint ? "charging point: IEC 60364-7-722 asks for its own RCD of at least type A" : "");
+            var alternative = r == DeviceType.B && !dcReachesRdcDd && present.Where(c => c.Class.LeastType() == DeviceType.B).All(c => c.Class.CoveredByDcDetection())
+                ? " (or type A with 6 mA DC fault detection, IEC 62955)"
+                : string.Empty;
+            return $"Type {r.ToTradeName()}{alternative} required: {deciding}{bPlusOpen}";
         }
 
-        var reason = findings.FirstOrDefault(x => !x.Definite)?.Text
-            ?? "content between 1 and 20 kHz not covered by the sample rate";
-        return $"Required type cannot be determined from this capture ({reason}); at least type {minimum.ToTradeName()}";
+        var reason = open.Where(c => c.Class.LeastType() > level).Select(c => c.Text).First();
+        return $"Required type cannot be determined from this capture: at least type {level.ToTradeName()}; {reason}";
     }
 
     private static List<string> Cautions(AnalysisResult analysis, MeasuredFigures m, AppliedThresholds th, bool dcKnown,
-        bool hfCovered, BlindingResult blinding, EvChargingResult? declaredChargingPoint)
+        SensorCoupling coupling, bool acSignature, bool hfCovered, BlindingResult blinding, EvChargingResult? declaredChargingPoint)
     {
         var c = new List<string>();
         if (blinding.Blinded == true)
@@ -316,13 +234,17 @@ public static class DeviceTypeAssessor
         c.AddRange(StandingCautions.All);
         c.Add("Type AC is not permitted in some countries, and some codes allow it only for fixed equipment with no DC component.");
         c.Add($"The verdict covers only the operating states in this capture ({analysis.Capture.DurationS:0.#} s); start-up, other speeds or charging phases may demand more: capture each.");
-        if (!dcKnown)
+        if (acSignature)
         {
-            c.Add(m.Coupling == SensorCoupling.Ac
+            c.Add($"The sensor coupling is not stated, and the capture bears the signature of an AC-coupled sensor: one-sided pulses on a floor of {Ma(m.SmoothDcA)} while the mean of the whole capture is {Ma(m.CaptureMeanA)}. It is treated as AC-coupled (engineering choice): DC verdicts are open. Measure again with a DC-coupled clamp, or state --sensor dc if the clamp is DC-coupled.");
+        }
+        else if (!dcKnown)
+        {
+            c.Add(coupling == SensorCoupling.Ac
                 ? "The sensor is AC-coupled (current transformer or Rogowski coil): smooth DC is invisible to it and pulsating DC is distorted, so the verdicts on types AC, A and F are open. Measure again with a DC-coupled clamp (fluxgate or Hall-effect)."
                 : "The sensor coupling is not stated and the capture shows no DC: if the sensor is AC-coupled, DC is invisible. State the coupling, or measure again with a DC-coupled clamp (fluxgate or Hall-effect).");
         }
-        else if (m.Coupling == SensorCoupling.Unknown)
+        else if (coupling == SensorCoupling.Unknown)
         {
             c.Add($"The sensor coupling is not stated; it is taken as DC-coupled because the capture shows DC (smooth DC {Ma(m.SmoothDcA)}). State the coupling to confirm.");
         }

@@ -105,70 +105,58 @@ public static class Limits
     /// device's IΔn.</remarks>
     public const double SignificanceFloorA = 0.001;
 
-    /// <summary>Smooth DC counts as present at or above max(<see cref="SignificanceFloorA"/>, this fraction × worst-window RMS): 0.05.</summary>
-    /// <remarks>Engineering choice: a clamp's DC offset and drift scale with its range, and the range follows the
-    /// current measured; 5 % of the RMS (−26 dB) is about the accuracy of a leakage clamp. It decides type AC only
-    /// (types A and F have their own absolute tolerances).</remarks>
-    public const double DcSignificanceFraction = 0.05;
+    /// <summary>Smooth DC counts as present (class "smooth DC", type B) at or above <see cref="SignificanceFloorA"/>,
+    /// 1 mA, within the measurement uncertainty (<see cref="MeasurementAccuracy"/>).</summary>
+    /// <remarks>Engineering choice: a fixed level, not a share of the capture's other content, so that adding content
+    /// to a waveform never hides its DC (the verdict is monotone). 1 mA lies above the zero offset of a DC-capable
+    /// leakage clamp and is a sixth of the 6 mA that type A tolerates. The 6 mA (A) and 10 mA (F) tolerances say how
+    /// much superimposed DC those types still work with; they do not make A or F fit for a circuit that itself
+    /// produces smooth DC residual current (REFERENCE "tolerance is not fitness"; IEC 60364-5-53 §531.3.3).</remarks>
+    public const double DcSignificanceA = SignificanceFloorA;
 
-    /// <summary>Sub-mains content (and non-harmonic tones up to 1 kHz) counts as a frequency-converter
-    /// signature at or above max(<see cref="SignificanceFloorA"/>, this fraction × worst-window RMS): 0.10.</summary>
-    /// <remarks>Engineering choice: a converter's motor-frequency component is of the order of its mains component;
-    /// at 10 % of the RMS (−20 dB) it changes the RMS by only 0.5 %, so below it the current is practically a mains
-    /// current and a mains-frequency device judges it correctly. Load flicker and window-edge leakage stay far below.</remarks>
-    public const double BelowMainsSignificanceFraction = 0.10;
+    /// <summary>A motor-frequency component (sub-mains content, or a non-harmonic tone up to
+    /// <see cref="MotorFrequencyTopMultiple"/> × mains) marks a converter's composite current (type F) at or above
+    /// max(<see cref="SignificanceFloorA"/>, this fraction × IΔn): 0.05.</summary>
+    /// <remarks>Engineering choice: fixed for a given device (never a share of the capture's own content, so that
+    /// adding content cannot hide the class); at 1.5 mA for 30 mA a motor-frequency part well above clamp noise and
+    /// window-edge leakage of the mains component.</remarks>
+    public const double MotorFrequencySignificanceFraction = 0.05;
 
-    /// <summary>Harmonic content (groups 2 up to 1 kHz, bipolar currents only) beyond which the current is no longer
-    /// "sinusoidal at mains frequency": max(<see cref="SignificanceFloorA"/>, this fraction × the mains component): 0.5.</summary>
-    /// <remarks>Engineering choice: types AC and A are specified at rated frequency only. With harmonics at half the
-    /// fundamental the RMS is 1.12 × the fundamental, so a device reacting to the fundamental alone trips at most
-    /// 12 % late, inside its own 0.5 to 1.0 IΔn band; beyond that the mains-frequency rating no longer describes the
-    /// current. Ordinary capacitive leakage on a distorted supply (harmonic currents some 5 to 20 % of the fundamental)
-    /// stays below. For pulsating DC the harmonics are its own and are not counted.</remarks>
-    public const double HarmonicSignificanceFraction = 0.5;
+    /// <summary>AC at frequencies other than mains up to 1 kHz (harmonic groups from order 2 of windows that are not
+    /// pulsating DC, and non-harmonic tones above <see cref="MotorFrequencyTopMultiple"/> × mains) is present
+    /// (type B: "sinusoidal AC up to 1 kHz", IEC 62423) at or above max(<see cref="SignificanceFloorA"/>, this
+    /// fraction × IΔn): 0.1.</summary>
+    /// <remarks>Engineering choice: a leakage within the 0.3 IΔn budget (IEC 60364-5-53 §531.3.2) with the 5 to 20 %
+    /// harmonic content that a distorted supply drives through filter capacitance stays below it (at 33 % distortion
+    /// it reaches it), while a converter's own non-mains current at a tenth of IΔn is counted. Fixed for a given
+    /// device, so adding content never hides the class.</remarks>
+    public const double HarmonicSignificanceFraction = 0.1;
 
-    /// <summary>When harmonic content to 1 kHz exceeds this multiple of the mains component and there is no sub-mains
-    /// signature, the current is AC at a frequency other than mains: type B ("sinusoidal AC up to 1 kHz"): 1.0.</summary>
-    /// <remarks>Engineering choice: a composite current (type F) carries its mains part; a current dominated by another
-    /// frequency is the case type B adds (IEC 62423).</remarks>
-    public const double NonMainsDominanceRatio = 1.0;
-
-    /// <summary>Content above 1 kHz (up to 20 kHz) counts as present at or above max(<see cref="SignificanceFloorA"/>,
-    /// this fraction × worst-window RMS): 0.10.</summary>
-    /// <remarks>Engineering choice, as for <see cref="BelowMainsSignificanceFraction"/>. For a phase-controlled
+    /// <summary>Content between 1 and 20 kHz is present (type B+) at or above max(<see cref="SignificanceFloorA"/>, this
+    /// fraction × IΔn): 0.1.</summary>
+    /// <remarks>Engineering choice, as for <see cref="HarmonicSignificanceFraction"/>. For a phase-controlled
     /// half-wave the content its own firing edge puts above 1 kHz (closed-form Fourier series of the ideal waveform)
     /// is taken off first, so a dimmer does not read as a switching converter.</remarks>
-    public const double HighFrequencySignificanceFraction = 0.10;
+    public const double HighFrequencySignificanceFraction = 0.1;
 
-    /// <summary>Smooth DC on which harmonic ripple rides counts as multi-phase rectified current (type B) when the
-    /// ripple (harmonic groups 2 to 1 kHz) exceeds this multiple of the mains component: 1.0.</summary>
-    /// <remarks>Engineering choice: a single-phase half-wave has its fundamental 2.3 times its harmonic content
-    /// (closed form: Ipk/2 against 0.217 Ipk); a 3- or 6-pulse bridge has no fundamental and ripple at 150/300 Hz
-    /// (IEC 60364-5-53 guidance).</remarks>
-    public const double MultiPhaseRippleRatio = 1.0;
+    /// <summary>Non-harmonic tones up to this multiple of mains count as a motor frequency (type F's composite
+    /// current); above it as AC at another frequency (type B): 2.</summary>
+    /// <remarks>Practice: drive output (motor) frequencies run from 0 to about 100 Hz (REFERENCE, "which loads make
+    /// which residual current"); IEC 62423's composite test current uses 10 Hz beside the rated frequency.</remarks>
+    public const double MotorFrequencyTopMultiple = 2.0;
 
-    /// <summary>Smooth DC with ripple at 6 × mains of at least this share of the DC (RMS of the ripple over the DC)
-    /// reads as a three-phase bridge's output, which demands type B: 0.02.</summary>
-    /// <remarks>Engineering choice: the six-pulse bridge's 6th-harmonic ripple is 2/35 of its mean in amplitude, 4.0 %
-    /// in RMS (closed form of the bridge rectifier); half of that leaves room for a smoothed or partly loaded bridge
-    /// while staying far above the 6th harmonic a single-phase load leaves on a DC offset (even harmonics are small in
-    /// a symmetrical supply).</remarks>
-    public const double MultiPhaseRippleShareOfDc = 0.02;
+    /// <summary>Pulsating DC counts as present when at least this share of windows is pulsating DC with a pulse mean
+    /// at or above <see cref="DcSignificanceA"/>: 0 (any one window).</summary>
+    /// <remarks>Engineering choice: a load that runs phase-controlled for one window in a thousand still needs a device
+    /// that detects it; a misjudged window only ever asks for a stronger type.</remarks>
+    public const double PulsatingShareThreshold = 0;
 
-    /// <summary>Least ripple RMS at 6 × mains that counts for <see cref="MultiPhaseRippleShareOfDc"/>: 0.1 mA
-    /// (engineering choice: above a DC-coupled clamp's noise floor).</summary>
-    public const double MultiPhaseRippleFloorA = 0.0001;
-
-    /// <summary>How far the 6th harmonic must stand above harmonics 2 to 5 and 7 to read as a six-pulse bridge: 3.
-    /// Engineering choice: the bridge has only orders 6k (closed form), while spectral leakage of a drive's motor
-    /// frequency or a distorted leakage current spreads over neighbouring orders alike.</summary>
-    public const double MultiPhaseRippleContrast = 3.0;
-
-    /// <summary>Pulsating DC counts as present when the analysis flags the capture so, or at least this share of
-    /// windows is pulsating: 0.05.</summary>
-    /// <remarks>Engineering choice: a load that runs phase-controlled for one minute in twenty still needs a device
-    /// that detects it; a share below 5 % is more likely a misjudged window than a load.</remarks>
-    public const double PulsatingShareThreshold = 0.05;
+    /// <summary>With the sensor coupling not stated, a capture whose mean stays within this share of its RMS (and
+    /// within the measurement uncertainty) while its windows are one-sided pulses on a floor far from zero bears the
+    /// signature of an AC-coupled sensor, and is treated as one: 0.02.</summary>
+    /// <remarks>Engineering choice: a DC-coupled capture of pulsating DC has a mean of about a third of its peak
+    /// (closed form Ipk/π at 0°); a mean near zero with a floor at −Ipk/π is what a current transformer makes of it.</remarks>
+    public const double AcCouplingMeanFraction = 0.02;
 
     /// <summary>A tone within this fraction of the mains frequency from a harmonic is counted as that harmonic: 0.05.</summary>
     /// <remarks>Engineering choice: half a 5 Hz bin at 50 Hz, the resolution of IEC 61000-4-7 windows.</remarks>

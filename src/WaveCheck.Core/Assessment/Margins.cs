@@ -46,24 +46,27 @@ internal static class Margins
             rawSq += p.RmsA * p.RmsA;
         }
 
-        var standing = Math.Sqrt(standingSq);
+        // The primary figure is unweighted: 0.5 IΔn is the non-operating current a compliant device guarantees in every
+        // frequency range (IEC 61008-1, IEC 62423 lower limits); the weighted figure models a typical device only.
+        var standing = Math.Sqrt(rawSq);
+        var typical = Math.Sqrt(standingSq);
         var limit = Limits.NonOperatingFraction * rated;
         var margin = limit - standing;
         var budget = th.LeakageBudgetFraction * rated;
-        var risk = standing >= th.LikelyFraction * rated ? "likely" : standing >= th.PossibleFraction * rated ? "possible" : "low";
+        var acc = th.Accuracy;
+        var likely = acc.Compare(standing, th.LikelyFraction * rated) != LimitState.Below;
+        var possible = acc.Compare(standing, th.PossibleFraction * rated) != LimitState.Below;
+        var risk = likely ? "likely" : possible ? "possible" : "low";
+        var withinBudget = acc.Compare(standing, budget) == LimitState.Below;
         var name = type.ToTradeName();
         var explanation =
-            $"Standing residual current as a type {name} device responds to it: {Ma(standing)} (unweighted {Ma(Math.Sqrt(rawSq))}; "
-            + $"each range's worst window, weighted by the type's tripping factor). Against the non-operating limit 0.5 IΔn = {Ma(limit)} "
-            + $"(IEC 61008-1): margin {Ma(margin)} ({margin / limit * 100:0} %); leakage budget {th.LeakageBudgetFraction:0.##} IΔn = {Ma(budget)} "
-            + $"(IEC 60364-5-53 §531.3.2) {(standing <= budget ? "kept" : "exceeded")}. Risk {risk}: likely from {th.LikelyFraction:0.##} IΔn, "
-            + $"possible from {th.PossibleFraction:0.##} IΔn (engineering choice). A device may trip from 0.5 IΔn at any frequency; the weighting models a typical one.";
-        if (double.IsPositiveInfinity(TripWeighting.SmoothDcFactor(type)) && m.SmoothDcA > 0)
-        {
-            explanation += $" Smooth DC ({Ma(m.SmoothDcA)}) is not counted: a type {name} device does not respond to it (see blinding).";
-        }
-        return new NuisanceTripResult(risk, name, standing, limit, margin, margin / limit * 100, budget, standing <= budget,
-            parts, explanation);
+            $"Standing residual current {Ma(standing)} (each frequency range's worst window, unweighted) against the non-operating current 0.5 IΔn = {Ma(limit)}, "
+            + $"which a compliant device guarantees in every frequency range (IEC 61008-1, IEC 62423): margin {Ma(margin)} ({margin / limit * 100:0} %); "
+            + $"leakage budget {th.LeakageBudgetFraction:0.##} IΔn = {Ma(budget)} (IEC 60364-5-53 §531.3.2) {(withinBudget ? "kept" : "exceeded or at its limit")}. "
+            + $"Risk {risk}: likely from {th.LikelyFraction:0.##} IΔn, possible from {th.PossibleFraction:0.##} IΔn (engineering choice), each within the measurement uncertainty ({acc}) counted as reached. "
+            + $"A typical type {name} device responds as to {Ma(typical)} (each range weighted by the type's tripping factor, second figure).";
+        return new NuisanceTripResult(risk, name, standing, limit, margin, margin / limit * 100, budget, withinBudget,
+            parts, explanation, typical);
     }
 
     /// <summary>Smooth DC against the type's tolerance: beyond it the device may not trip on a real fault.</summary>
@@ -71,8 +74,10 @@ internal static class Margins
     {
         var tolerance = th.DcTolerance(type);
         var effective = tolerance ?? th.DcA;
-        var over = tolerance is null ? m.SmoothDcA >= effective : m.SmoothDcA > effective;
-        bool? blinded = over ? true : dcKnown ? false : null;
+        // Within the measurement uncertainty of the tolerance counts as beyond it: the safe side.
+        var over = th.Accuracy.Compare(m.SmoothDcA, effective) != LimitState.Below;
+        // With DC not determinable, the figure seen (an AC-coupled sensor's floor) is no measurement of DC: open.
+        bool? blinded = dcKnown ? over : null;
         var name = type.ToTradeName();
         var source = type switch
         {
@@ -96,17 +101,24 @@ internal static class Margins
         return new BlindingResult(name, m.SmoothDcA, tolerance, blinded, explanation);
     }
 
-    /// <summary>The 6 mA DC criterion (IEC 62955) and the device choice it implies per IEC 60364-7-722.</summary>
-    public static EvChargingResult EvCharging(MeasuredFigures m, AppliedThresholds th, bool dcKnown, bool evPoint)
+    /// <summary>The 6 mA DC criterion (IEC 62955) and the protection it implies per IEC 60364-7-722.</summary>
+    public static EvChargingResult EvCharging(MeasuredFigures m, AppliedThresholds th, bool dcKnown, bool evPoint,
+        DcDetection installed)
     {
-        bool? above = m.SmoothDcA >= th.RdcDdA ? true : dcKnown ? false : null;
-        var lead = evPoint ? "EV charging point (IEC 60364-7-722): its own RCD, at least type A; " : "Not declared an EV charging point; if it is one (IEC 60364-7-722): ";
+        var state = th.Accuracy.Compare(m.SmoothDcA, th.RdcDdA);
+        bool? above = state != LimitState.Below ? true : dcKnown ? false : null;
+        var lead = evPoint ? "EV charging point (IEC 60364-7-722): its own RCD, at least type A, and protection against DC fault current whatever DC is measured: " : "Not declared an EV charging point; if it is one (IEC 60364-7-722): ";
         var rec = above switch
         {
-            true => $"smooth DC {Ma(m.SmoothDcA)} reaches the {Ma(th.RdcDdA)} at which an RDC-DD disconnects (IEC 62955): fit type B (type A + RDC-DD would disconnect).",
-            false => $"smooth DC {Ma(m.SmoothDcA)} stays below {Ma(th.RdcDdA)} (IEC 62955) in this capture, but a capture cannot rule out DC ≥ {Ma(th.RdcDdA)} in a fault: fit type A + RDC-DD (IEC 62955) or type B, unless the charger's maker declares its own {Ma(th.RdcDdA)} DC protection.",
-            null => $"DC cannot be determined with this sensor: treat DC ≥ {Ma(th.RdcDdA)} as not ruled out: fit type A + RDC-DD (IEC 62955) or type B.",
+            true => $"smooth DC {Ma(m.SmoothDcA)} reaches{(state == LimitState.AtLimit ? " (within the measurement uncertainty)" : "")} the {Ma(th.RdcDdA)} at which a DC detection device disconnects (IEC 62955): fit type B; type A with an RDC-DD would disconnect the charger.",
+            false => $"type B, or type A with a {Ma(th.RdcDdA)} DC detection device (RDC-DD, IEC 62955), unless the charging equipment provides that detection itself (its maker's declaration); smooth DC today {Ma(m.SmoothDcA)}, below {Ma(th.RdcDdA)}.",
+            null => $"DC cannot be determined with this sensor: type B, or type A with an RDC-DD (IEC 62955).",
         };
+        if (installed != DcDetection.None && above == true)
+        {
+            rec += " The DC detection declared with the installed device will disconnect at this standing DC.";
+        }
+
         return new EvChargingResult(th.RdcDdA, m.SmoothDcA, above, lead + rec);
     }
 

@@ -30,6 +30,27 @@ internal sealed record MeasuredFigures
     public required double Above20kA { get; init; }
     public required ToneValue? StrongestNonHarmonicTone { get; init; }
 
+    /// <summary>Strongest non-harmonic tone up to <see cref="Limits.MotorFrequencyTopMultiple"/> × mains: a motor frequency.</summary>
+    public ToneValue? MotorTone { get; init; }
+
+    /// <summary>Strongest non-harmonic tone above that and up to 1 kHz: AC at another frequency.</summary>
+    public ToneValue? OtherTone { get; init; }
+
+    /// <summary>Harmonic groups 2 to 1 kHz of the worst window that is not pulsating DC, amperes.</summary>
+    public double NonPulsatingHarmonicsTo1kA { get; init; }
+
+    /// <summary>Harmonic group at 1 kHz of the worst window that is not pulsating DC, amperes.</summary>
+    public double NonPulsating1kGroupA { get; init; }
+
+    /// <summary>Mean of the whole capture, amperes, signed.</summary>
+    public double CaptureMeanA { get; init; }
+
+    /// <summary>Share of windows with samples at full scale.</summary>
+    public double ClippedShare { get; init; }
+
+    /// <summary>Largest pulse mean above the floor among pulsating windows, amperes.</summary>
+    public double PulsatingPulseMeanA { get; init; }
+
     /// <summary>Content 1 kHz to 20 kHz: above 1 kHz less above 20 kHz, in quadrature.</summary>
     public double From1kTo20kA => Math.Sqrt(Math.Max(0, (Above1kA * Above1kA) - (Above20kA * Above20kA)));
 
@@ -77,7 +98,7 @@ internal sealed record MeasuredFigures
             }
         }
 
-        ToneValue? tone = null;
+        ToneValue? tone = null, motor = null, other = null;
         foreach (var t in c.Tones)
         {
             if (t.FrequencyHz < 1 || t.FrequencyHz > Limits.TypeBUpperFrequencyHz || IsHarmonic(t.FrequencyHz, mainsHz))
@@ -88,6 +109,15 @@ internal sealed record MeasuredFigures
             if (tone is null || t.RmsA > tone.RmsA)
             {
                 tone = t;
+            }
+
+            if (t.FrequencyHz <= Limits.MotorFrequencyTopMultiple * mainsHz)
+            {
+                motor = motor is null || t.RmsA > motor.RmsA ? t : motor;
+            }
+            else
+            {
+                other = other is null || t.RmsA > other.RmsA ? t : other;
             }
         }
 
@@ -110,6 +140,13 @@ internal sealed record MeasuredFigures
             Above1kA = above1k,
             Above20kA = Math.Min(Math.Sqrt(above20kSq), above1k),
             StrongestNonHarmonicTone = tone,
+            MotorTone = motor,
+            OtherTone = other,
+            NonPulsatingHarmonicsTo1kA = c.NonPulsatingHarmonicsTo1kMaxA,
+            NonPulsating1kGroupA = c.NonPulsating1kGroupMaxA,
+            CaptureMeanA = analysis.Summary.DcA,
+            ClippedShare = c.ClippedWindowShare,
+            PulsatingPulseMeanA = c.PulsatingMeanMaxA,
         };
     }
 

@@ -117,6 +117,22 @@ public sealed record ComponentsResult
 
     /// <summary>Strongest non-harmonic tones, strongest first.</summary>
     public required IReadOnlyList<ToneValue> Tones { get; init; }
+
+    /// <summary>Largest over the windows not judged pulsating DC of the harmonic groups from order 2 up to the one
+    /// holding 1 kHz, that one excluded (root-sum-square), amperes: AC at frequencies other than mains, which only
+    /// type B is specified for.</summary>
+    public double NonPulsatingHarmonicsTo1kMaxA { get; init; }
+
+    /// <summary>Largest over the windows not judged pulsating DC of the harmonic group holding 1 kHz (order 20 at
+    /// 50 Hz, 17 at 60 Hz), amperes: the switching part of type F's composite test current (IEC 62423).</summary>
+    public double NonPulsating1kGroupMaxA { get; init; }
+
+    /// <summary>Largest over the windows judged pulsating DC of the mean above the floor (the pulses' own DC),
+    /// amperes, magnitude.</summary>
+    public double PulsatingMeanMaxA { get; init; }
+
+    /// <summary>Share of windows with a sample at full scale, 0..1 (0 when the full scale is unknown).</summary>
+    public double ClippedWindowShare { get; init; }
 }
 
 /// <summary>A harmonic (or interharmonic) group value.</summary>

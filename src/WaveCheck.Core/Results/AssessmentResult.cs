@@ -32,6 +32,21 @@ public sealed record AssessmentResult
     /// <summary>Installed type as given by <c>--device</c>; null when not given.</summary>
     public string? InstalledType { get; init; }
 
+    /// <summary>Installed protection in full: the type and any DC fault detection beside it (<c>A+RDC-DD</c>, or
+    /// <c>A + charger DC detection</c>); null when no device was given.</summary>
+    public string? InstalledProtection { get; init; }
+
+    /// <summary>What protects the circuit, in words: the required type and the alternatives the standards accept
+    /// (type A with 6 mA DC detection in place of type B where only DC classes ask for B); null when open.</summary>
+    public string? AcceptedProtection { get; init; }
+
+    /// <summary>Every class of residual current considered, with its figure, threshold and presence: the evidence
+    /// the required type rests on.</summary>
+    public IReadOnlyList<ClassResult> Classes { get; init; } = [];
+
+    /// <summary>Measurement uncertainty applied to every comparison with a limit (e.g. <c>2%+0.1mA</c>).</summary>
+    public string Accuracy { get; init; } = "";
+
     /// <summary>Installed type adequate (true), not adequate (false), not determinable (null); null also when none given.</summary>
     public bool? InstalledAdequate { get; init; }
 
@@ -64,6 +79,18 @@ public sealed record AssessmentResult
     public required IReadOnlyList<ThresholdUse> Thresholds { get; init; }
 }
 
+/// <summary>One class of residual current as judged in a capture.</summary>
+/// <param name="Class">Identifier (<c>pulsatingDc</c>, <c>smoothDc</c>, ...).</param>
+/// <param name="Name">In words.</param>
+/// <param name="Presence"><c>absent</c>, <c>at limit</c> (within the uncertainty: counted as present), <c>present</c>, <c>open</c> (the capture cannot show it).</param>
+/// <param name="FigureA">The measured figure compared, amperes; null for a rule that applies regardless of figures.</param>
+/// <param name="ThresholdA">The threshold it was compared with, amperes; null likewise.</param>
+/// <param name="LeastType">Least type specified to detect the class.</param>
+/// <param name="CoveredByDcDetection">A 6 mA DC detection device beside type A or stronger covers it in place of type B.</param>
+/// <param name="Text">The finding with its figure, limit and source.</param>
+public sealed record ClassResult(string Class, string Name, string Presence, double? FigureA, double? ThresholdA,
+    string LeastType, bool CoveredByDcDetection, string Text);
+
 /// <summary>One type's verdict.</summary>
 /// <param name="Type">Trade name.</param>
 /// <param name="Suitable">True suitable, false not suitable, null cannot be determined.</param>
@@ -80,7 +107,7 @@ public sealed record ThresholdUse(string Name, double Value, string Unit, string
 /// <summary>Nuisance tripping: standing residual current against the non-operating limit and the leakage budget.</summary>
 /// <param name="Risk"><c>low</c>, <c>possible</c> or <c>likely</c>.</param>
 /// <param name="DeviceType">Type the margin is computed for.</param>
-/// <param name="StandingA">Frequency-weighted standing residual current (worst window), amperes: the current a device of that type responds to as if it were at mains frequency.</param>
+/// <param name="StandingA">Standing residual current, unweighted (each range's worst window, in quadrature), amperes: compared with the guaranteed non-operating current 0.5 IΔn, which holds in every frequency range.</param>
 /// <param name="NonOperatingLimitA">0.5 IΔn, amperes.</param>
 /// <param name="MarginA">Limit minus standing current, amperes (negative: above the limit).</param>
 /// <param name="MarginPercent">Margin as a share of the limit, per cent.</param>
@@ -88,9 +115,10 @@ public sealed record ThresholdUse(string Name, double Value, string Unit, string
 /// <param name="WithinLeakageBudget">Standing current within 0.3 IΔn.</param>
 /// <param name="Contributions">Per frequency range: measured RMS, the type's tripping factor, weighted RMS.</param>
 /// <param name="Explanation">For a person.</param>
+/// <param name="TypicalStandingA">Second figure: the standing current as a typical device of the type responds to it (each range weighted by its tripping factor), amperes.</param>
 public sealed record NuisanceTripResult(string Risk, string DeviceType, double StandingA, double NonOperatingLimitA,
     double MarginA, double MarginPercent, double LeakageBudgetA, bool WithinLeakageBudget,
-    IReadOnlyList<FrequencyContribution> Contributions, string Explanation);
+    IReadOnlyList<FrequencyContribution> Contributions, string Explanation, double TypicalStandingA = 0);
 
 /// <summary>A frequency range's share of the standing residual current.</summary>
 /// <param name="Label">E.g. <c>DC</c>, <c>below mains</c>, <c>mains</c>, <c>harmonics to 1 kHz</c>, <c>1-20 kHz</c>.</param>

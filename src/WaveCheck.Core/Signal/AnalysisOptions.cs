@@ -8,6 +8,11 @@ public sealed record AnalysisOptions
     /// <summary>Nominal mains frequency, hertz; null to detect 50 or 60 Hz. The frequency is still tracked within ±5 %.</summary>
     public double? MainsHz { get; init; }
 
+    /// <summary>Keep <see cref="MainsHz"/> even where the capture's own mains-band content says otherwise (CLI
+    /// <c>--mains-as-given</c>). Off by default: a declared 50 Hz on a 60 Hz capture turns the mains current into a
+    /// "non-harmonic tone" and misjudges the device type, so the analysis stops with an error instead.</summary>
+    public bool KeepGivenMains { get; init; }
+
     /// <summary>Window RMS above which an alarm event is recorded, amperes; null for none.</summary>
     public double? AlarmA { get; init; }
 

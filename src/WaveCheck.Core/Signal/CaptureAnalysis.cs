@@ -88,6 +88,10 @@ public sealed class CaptureAnalysis
     private double _smoothDcSum;
     private double _smoothDcMax;
     private int _pulsating;
+    private double _bipolarHarmonicsMaxPower;
+    private double _pulsatingMeanMax;
+    private double _oneKGroupMaxPower;
+    private int _clippedWindows;
     private double _angleSum;
     private int _angleCount;
     private TrendTable? _trend;
@@ -272,6 +276,13 @@ public sealed class CaptureAnalysis
         _detected = true;
         var head = _detectBuffer.AsSpan(0, _detectCount);
         _mains = MainsFrequency.Detect(head, _fs, _options.MainsHz);
+        if (_options.MainsHz is { } given && !_options.KeepGivenMains &&
+            MainsFrequency.Contradicts(head, _fs, given, _mains) is { } seenHz)
+        {
+            throw new UserInputException(string.Create(CultureInfo.InvariantCulture,
+                $"{Path.GetFileName(_info.FilePath)}: mains given as {given:0.##} Hz, but the capture's mains content in its first {head.Length / _fs:0.#} s is at {seenHz:0.##} Hz; give --mains {Math.Round(seenHz / 10) * 10:0} or auto, or --mains-as-given to keep {given:0.##} Hz"));
+        }
+
         _tracking = _mains.Found;
         _trackedHz = _mains.FrequencyHz;
         if (!_mains.Found)
@@ -497,6 +508,34 @@ public sealed class CaptureAnalysis
             _inter.Add(order, HarmonicGroups.InterharmonicGroup(power, _cycles, order));
         }
 
+        // Harmonic groups from order 2 up to 1 kHz (type B's range) of a window that is not pulsating DC: the evidence of
+        // AC at frequencies other than mains. A half-wave's own harmonics are not counted (they are its shape).
+        if (!shape.PulsatingDc)
+        {
+            // The group holding 1 kHz is kept apart: type F's composite test current has a 1 kHz part (IEC 62423).
+            var harmonicsPowerBelow1k = 0.0;
+            var oneKOrder = (int)Math.Round(1000 / frequency);
+            for (var order = 2; order <= Math.Min(oneKOrder, _maxOrder); order++)
+            {
+                if ((_cycles * order) + (_cycles / 2) >= power.Length)
+                {
+                    break;
+                }
+
+                var g = HarmonicGroups.Group(power, _cycles, order);
+                if (order < oneKOrder)
+                {
+                    harmonicsPowerBelow1k += g;
+                }
+                else
+                {
+                    _oneKGroupMaxPower = Math.Max(_oneKGroupMaxPower, g);
+                }
+            }
+
+            _bipolarHarmonicsMaxPower = Math.Max(_bipolarHarmonicsMaxPower, harmonicsPowerBelow1k);
+        }
+
         var belowPower = HarmonicGroups.BelowFundamental(power, _cycles);
         // "Above 1 kHz" starts after the harmonic group centred on 1 kHz (half a group, N/2 bins, beyond the bin nearest
         // 1 kHz): a 1 kHz component, the top of type B's range and of type F's composite test current, leaks into
@@ -566,6 +605,12 @@ public sealed class CaptureAnalysis
         if (shape.PulsatingDc)
         {
             _pulsating++;
+            _pulsatingMeanMax = Math.Max(_pulsatingMeanMax, Math.Abs(mean - shape.SmoothDcA));
+        }
+
+        if (window.Clipped)
+        {
+            _clippedWindows++;
         }
 
         if (shape.CurrentDelayAngleDeg is { } angle)
@@ -762,6 +807,10 @@ public sealed class CaptureAnalysis
             Above9kHzRmsA = Math.Sqrt(_above9kSum / count),
             ThdPercent = _windows > 0 && HasFundamental(mainsRms, summary.AcRmsA) ? harmonicsRms / mainsRms * 100 : null,
             Tones = ToneFinder.Strongest(spectrum, _cycles, harmonics.Length, _options.ToneCount, summary.AcRmsA),
+            NonPulsatingHarmonicsTo1kMaxA = Math.Sqrt(_bipolarHarmonicsMaxPower),
+            NonPulsating1kGroupMaxA = Math.Sqrt(_oneKGroupMaxPower),
+            ClippedWindowShare = _windows > 0 ? _clippedWindows / (double)_windows : 0,
+            PulsatingMeanMaxA = _pulsatingMeanMax,
         };
     }
 

@@ -133,6 +133,32 @@ public static class MainsFrequency
     }
 
     /// <summary>
+    /// Whether a declared mains frequency is contradicted by the capture: detection without it finds 50 or 60 Hz
+    /// outside the tracking range of the declared value, and that component is at least
+    /// <see cref="ContradictionRatio"/> times the one found near the declared value (or none was found there).
+    /// </summary>
+    /// <param name="samplesA">The first seconds of the capture, amperes.</param>
+    /// <param name="sampleRateHz">Sample rate, hertz.</param>
+    /// <param name="givenHz">Declared mains frequency, hertz.</param>
+    /// <param name="given">Detection with the declared frequency.</param>
+    /// <returns>The frequency the capture shows, hertz; null when it does not contradict the declared one.</returns>
+    public static double? Contradicts(ReadOnlySpan<double> samplesA, double sampleRateHz, double givenHz, MainsDetection given)
+    {
+        var free = Detect(samplesA, sampleRateHz, null);
+        if (!free.Found || Math.Abs(free.FrequencyHz - givenHz) <= TrackingRange * givenHz)
+        {
+            return null;
+        }
+
+        return !given.Found || free.FundamentalRmsA >= ContradictionRatio * given.FundamentalRmsA ? free.FrequencyHz : null;
+    }
+
+    /// <summary>How much stronger the undeclared 50 or 60 Hz component must be to contradict a declared mains
+    /// frequency: 3 (engineering choice: a real mains current dominates its neighbourhood by far more; a motor
+    /// frequency near 60 Hz on a 50 Hz supply stays beside a mains component of its own order).</summary>
+    public const double ContradictionRatio = 3.0;
+
+    /// <summary>
     /// Frequency of the component near <paramref name="referenceHz"/> from the phase advance between the first and the
     /// last stretch of <paramref name="halfCycles"/> reference cycles in <paramref name="samplesA"/>.
     /// </summary>

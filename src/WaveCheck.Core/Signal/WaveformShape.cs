@@ -17,10 +17,11 @@ public readonly record struct ShapeFigures(double SmoothDcA, bool PulsatingDc, d
 /// <para>Definitions (engineering choices, stated so they can be checked):</para>
 /// <para>Let P2 and P98 be the window's 2nd and 98th percentiles and R = P98 − P2. The <b>floor band</b> is the samples
 /// within <see cref="FloorBandShare"/> (5 %) of R of P2 (or of P98 for negative pulses). A window is <b>pulsating
-/// DC</b> when at least <see cref="MinDwellShare"/> (20 %) of its samples lie in one floor band and fewer than that
-/// in the opposite one (a sine spends about 14 % of its time within 5 % of its range of either extreme, a square wave
-/// 50 % at both, a half-wave at least 50 % at its floor and about 10 % near its top), and every mains cycle of the
-/// window has at least one sample in that band (it returns to the floor each cycle).</para>
+/// DC</b> when, in every mains cycle of the window, its samples rest in one floor band for a single interval of at
+/// least <see cref="MinRestDeg"/> (150°, the IEC 61008-1 definition), short excursions of noise bridged. A sine rests
+/// within 5 % of its range of an extreme for about 52° a cycle, a full-wave (two-pulse) rectified sine for about 12°,
+/// a three- or six-pulse rectified current only at its cusps; a half-wave rests for 180° or more. A current resting
+/// that long at both extremes (a square wave) is bipolar, not pulsating.</para>
 /// <para><b>Smooth DC</b> of a pulsating window is the median of the floor-band samples (so 30 mA half-wave pulses on
 /// 8 mA give 8 mA, not the mean of 17.5 mA); of any other window (AC with an offset, DC with ripple, pure DC) it is
 /// the mean. A full-wave rectified sine without phase control has no resting floor and so is reported as AC on a
@@ -36,8 +37,15 @@ public sealed class WaveformShape
     /// <summary>Floor band width as a share of P98 − P2 (engineering choice, see remarks).</summary>
     public const double FloorBandShare = 0.05;
 
-    /// <summary>Least share of samples in the floor band for a pulsating window (engineering choice, see remarks).</summary>
-    public const double MinDwellShare = 0.20;
+    /// <summary>Least rest at the floor, in one piece, in every mains cycle for a pulsating window: 150°.</summary>
+    /// <remarks>IEC 61008-1 definition of pulsating direct current (a current that in each period of the rated
+    /// frequency is zero, or does not exceed 6 mA DC, for a single interval of at least 150°), from memory. A two-,
+    /// three- or six-pulse rectified current never rests so long and is not pulsating DC.</remarks>
+    public const double MinRestDeg = 150;
+
+    /// <summary>Longest excursion out of the floor band, as a share of the cycle, that still counts as part of one rest
+    /// (noise on the floor must not split it): 1 % (3.6°). Engineering choice.</summary>
+    public const double RestGapShare = 0.01;
 
     /// <summary>Level above the floor, as a share of the pulse height, where conduction counts as started.</summary>
     public const double ConductionShare = 0.02;
@@ -129,12 +137,17 @@ public sealed class WaveformShape
         var highLimit = p98 - (FloorBandShare * spread);
         var dwellLow = CountBelow(lowLimit, minA, scale) / (double)n;
         var dwellHigh = (n - CountBelow(highLimit, minA, scale)) / (double)n;
+
+        // Pulsating DC rests at its floor for a single interval of at least 150° in each cycle (IEC 61008-1
+        // definition): a floor side holding less than that share of the samples cannot qualify. A current that rests
+        // that long at both extremes (a square wave) is bipolar AC, not pulsating DC.
+        var restShare = MinRestDeg / 360.0;
         bool positive;
-        if (dwellLow >= MinDwellShare && dwellHigh < MinDwellShare)
+        if (dwellLow >= restShare && dwellHigh < restShare)
         {
             positive = true;
         }
-        else if (dwellHigh >= MinDwellShare && dwellLow < MinDwellShare)
+        else if (dwellHigh >= restShare && dwellLow < restShare)
         {
             positive = false;
         }
@@ -143,17 +156,16 @@ public sealed class WaveformShape
             return new ShapeFigures(meanA, false, null);
         }
 
-        // Exact count of the floor band, and the return to the floor in every cycle.
+        // Exact count of the floor band, and a rest of at least 150° in one piece in every cycle.
         var limit = positive ? lowLimit : highLimit;
         var inBand = 0;
         for (var c = 0; c < cycles; c++)
         {
             var from = (int)((long)c * n / cycles);
             var to = (int)((long)(c + 1) * n / cycles);
-            var before = inBand;
-            inBand += CountOnFloorSide(samplesA[from..to], limit, positive);
-
-            if (inBand == before)
+            var cycle = samplesA[from..to];
+            inBand += CountOnFloorSide(cycle, limit, positive);
+            if (LongestCircularRest(cycle, limit, positive) < restShare * cycle.Length)
             {
                 return new ShapeFigures(meanA, false, null);
             }
@@ -214,6 +226,49 @@ public sealed class WaveformShape
         }
 
         return alpha * 180 / Math.PI;
+    }
+
+    /// <summary>Longest run of samples on the floor side of <paramref name="limit"/> in one cycle, taken as circular
+    /// (a rest that spans the cycle's cut counts whole), with excursions up to <see cref="RestGapShare"/> of the cycle
+    /// bridged.</summary>
+    private static int LongestCircularRest(ReadOnlySpan<double> cycle, double limit, bool positive)
+    {
+        var n = cycle.Length;
+        var gapLimit = Math.Max(1, (int)(RestGapShare * n));
+        var best = 0;
+        var run = 0;
+        var gap = 0;
+        var leading = -1;
+        for (var i = 0; i < n; i++)
+        {
+            var rest = positive ? cycle[i] <= limit : cycle[i] >= limit;
+            if (rest)
+            {
+                run += gap + 1;
+                gap = 0;
+            }
+            else if (run > 0 && ++gap <= gapLimit)
+            {
+                continue;
+            }
+            else
+            {
+                leading = leading < 0 ? run : leading;
+                best = Math.Max(best, run);
+                run = 0;
+                gap = 0;
+            }
+        }
+
+        if (leading < 0)
+        {
+            // Never left the band for long: the whole cycle rests.
+            return run == 0 ? 0 : n;
+        }
+
+        // The run still open at the end joins, across a short gap, the one the cycle began with.
+        var tail = run > 0 && leading > 0 ? run + gap + leading : run;
+        return Math.Max(best, Math.Min(n, tail));
     }
 
     /// <summary>Samples at or below <paramref name="limit"/> (<paramref name="below"/>) or at or above it, counted on

@@ -23,6 +23,12 @@ public sealed record CaptureSettings
     /// <summary>Device type installed on the circuit; null when not known.</summary>
     public DeviceType? InstalledType { get; init; }
 
+    /// <summary>A 6 mA DC detection device (RDC-DD, IEC 62955) is fitted beside the installed device (<c>"A+RDC-DD"</c>).</summary>
+    public bool InstalledRdcDd { get; init; }
+
+    /// <summary>The charging equipment provides 6 mA DC fault detection itself, as its maker declares.</summary>
+    public bool ChargerDcDetection { get; init; }
+
     /// <summary>Rules to judge by: <c>iec</c> or <c>na</c> (UL 943).</summary>
     public string Regime { get; init; } = "iec";
 
@@ -44,6 +50,12 @@ public sealed record CaptureSettingsPatch
 
     /// <summary>Installed device type.</summary>
     public DeviceType? InstalledType { get; init; }
+
+    /// <summary>An RDC-DD beside the installed device; stated together with <see cref="InstalledType"/>.</summary>
+    public bool? InstalledRdcDd { get; init; }
+
+    /// <summary>The charging equipment provides 6 mA DC fault detection itself.</summary>
+    public bool? ChargerDcDetection { get; init; }
 
     /// <summary>Sensor coupling.</summary>
     public SensorCoupling? Sensor { get; init; }
@@ -97,6 +109,8 @@ public sealed record CaptureSettingsPatch
             Import = import,
             RatedResidualCurrentA = RatedResidualCurrentA ?? settings.RatedResidualCurrentA,
             InstalledType = InstalledType ?? settings.InstalledType,
+            InstalledRdcDd = InstalledType is not null ? InstalledRdcDd ?? false : settings.InstalledRdcDd,
+            ChargerDcDetection = ChargerDcDetection ?? settings.ChargerDcDetection,
             Regime = Regime ?? settings.Regime,
             Ev = Ev ?? settings.Ev,
             Circuit = Circuit ?? settings.Circuit,

@@ -17,7 +17,8 @@ namespace WaveCheck.Core.Survey;
 ///   "captures": [ { "file": "c1.wav", "circuit": "...", settings }, ... ],
 ///   "upstream": [ { "name": "...", "device": "A", "rated": "100mA", "circuits": ["c2.wav", ...] }, ... ] }
 /// </code>
-/// Settings keys: <c>rated</c>, <c>device</c>, <c>sensor</c> (dc, ac, unknown), <c>regime</c> (iec, na), <c>ev</c>,
+/// Settings keys: <c>rated</c>, <c>device</c> (a type, or a type with <c>+RDC-DD</c>), <c>sensor</c> (dc, ac, unknown),
+/// <c>regime</c> (iec, na), <c>ev</c>, <c>chargerDcDetection</c> (the charging equipment detects 6 mA DC itself),
 /// <c>scale</c>, <c>sensitivity</c>, <c>range</c>, <c>rate</c>, <c>channel</c>, <c>sum</c>; a null value means "not stated".
 /// Upstream <c>circuits</c> name captures by their <c>file</c> exactly as written in <c>captures</c>.
 /// </remarks>
@@ -26,7 +27,7 @@ public static class SiteConfigReader
     private static readonly string[] TopKeys = ["site", "defaults", "captures", "upstream"];
 
     private static readonly string[] SettingKeys =
-        ["rated", "device", "sensor", "regime", "ev", "scale", "sensitivity", "range", "rate", "channel", "sum"];
+        ["rated", "device", "sensor", "regime", "ev", "chargerDcDetection", "scale", "sensitivity", "range", "rate", "channel", "sum"];
 
     private static readonly string[] CaptureKeys = ["file", "circuit", .. SettingKeys];
 
@@ -319,7 +320,7 @@ public static class SiteConfigReader
 
                 names.Add(name, nameNode);
                 var deviceNode = Member(item, "device") ?? throw Error(item, $"upstream device \"{name}\" has no \"device\": expected a type AC, A, F, B or B+");
-                var device = DeviceOf(deviceNode) ?? throw Error(deviceNode, "\"device\" of an upstream device cannot be null: expected AC, A, F, B or B+");
+                var device = DeviceOf(deviceNode)?.Type ?? throw Error(deviceNode, "\"device\" of an upstream device cannot be null: expected AC, A, F, B or B+");
                 var ratedNode = Member(item, "rated") ?? throw Error(item, $"upstream device \"{name}\" has no \"rated\": expected a current such as \"100mA\"");
                 var rated = CurrentOf(ratedNode, "rated") ?? throw Error(ratedNode, "\"rated\" of an upstream device cannot be null: expected a current such as \"100mA\"");
                 var circuitsNode = Member(item, "circuits") ?? throw Error(item, $"upstream device \"{name}\" has no \"circuits\": expected a list of capture files");
@@ -363,10 +364,13 @@ public static class SiteConfigReader
                     "file" => patch,
                     "circuit" => patch with { Circuit = OptionalString(value, key) },
                     "rated" => patch with { RatedResidualCurrentA = CurrentOf(value, key) },
-                    "device" => patch with { InstalledType = DeviceOf(value) },
+                    "device" => DeviceOf(value) is { } protection
+                        ? patch with { InstalledType = protection.Type, InstalledRdcDd = protection.RdcDd }
+                        : patch with { InstalledType = null },
                     "sensor" => patch with { Sensor = SensorOf(value) },
                     "regime" => patch with { Regime = RegimeOf(value) },
                     "ev" => patch with { Ev = BoolOf(value, key) },
+                    "chargerDcDetection" => patch with { ChargerDcDetection = BoolOf(value, key) },
                     "scale" => patch with { ScaleA = CurrentOf(value, key) },
                     "sensitivity" => patch with { SensitivityVPerA = QuantityOf(value, key, "a sensitivity such as \"10 mV/mA\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseSensitivityVPerA(k, t)) },
                     "range" => patch with { RangeV = QuantityOf(value, key, "a voltage such as \"1V\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseVoltageV(k, t)) },
@@ -425,20 +429,20 @@ public static class SiteConfigReader
             }
         }
 
-        private DeviceType? DeviceOf(Node value)
+        private (DeviceType Type, bool RdcDd)? DeviceOf(Node value)
         {
             if (value.Kind == JsonTokenType.Null)
             {
                 return null;
             }
 
-            if (value.Kind == JsonTokenType.String && DeviceTypeNames.TryParse(value.Text, out var type))
+            if (value.Kind == JsonTokenType.String && DeviceTypeNames.TryParseProtection(value.Text, out var type, out var rdcDd))
             {
-                return type;
+                return (type, rdcDd);
             }
 
             var found = value.Kind == JsonTokenType.String ? $"\"{value.Text}\"" : value.Describe();
-            throw Error(value, $"unknown device type {found}: expected \"AC\", \"A\", \"F\", \"B\" or \"B+\"");
+            throw Error(value, $"unknown device type {found}: expected \"AC\", \"A\", \"F\", \"B\" or \"B+\", optionally with +RDC-DD (\"A+RDC-DD\")");
         }
 
         private SensorCoupling? SensorOf(Node value)

@@ -93,6 +93,8 @@ public static class SiteSurvey
             InstalledType = settings.InstalledType,
             Regime = RegimeNames.TryParse(settings.Regime, out var regime) ? regime : Regime.Iec,
             EvChargingPoint = settings.Ev,
+            InstalledRdcDd = settings.InstalledRdcDd,
+            ChargerDcDetection = settings.Ev && settings.ChargerDcDetection,
         };
     }
 

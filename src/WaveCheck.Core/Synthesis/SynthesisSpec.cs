@@ -9,7 +9,7 @@ namespace WaveCheck.Core.Synthesis;
 /// </summary>
 /// <remarks>
 /// Kinds: <c>sine</c> (rms or peak, freq, phase), <c>halfwave</c> (peak, angle, polarity=pos|neg), <c>dc</c> (level),
-/// <c>sixpulse</c> (mean), <c>switching</c> (rms, freq, motor), <c>composite</c> (rms, motor, switch: the
+/// <c>sixpulse</c> (mean), <c>rectified</c> (mean, pulses = 2, 3 or 6), <c>switching</c> (rms, freq, motor), <c>composite</c> (rms, motor, switch: the
 /// single-phase converter's residual current as motor-frequency, mains and switching-frequency sines of equal RMS,
 /// after the 10 Hz + 50 Hz + 1 kHz make-up of the IEC 62423 type F test current; the equal split is this tool's
 /// choice, not the standard's coefficients), <c>noise</c> (rms, seed).
@@ -17,7 +17,7 @@ namespace WaveCheck.Core.Synthesis;
 public static class SynthesisSpec
 {
     /// <summary>Kinds understood, for help texts.</summary>
-    public static IReadOnlyList<string> Kinds { get; } = ["sine", "halfwave", "dc", "sixpulse", "switching", "composite", "noise"];
+    public static IReadOnlyList<string> Kinds { get; } = ["sine", "halfwave", "dc", "sixpulse", "rectified", "switching", "composite", "noise"];
 
     /// <summary>Parses one component description.</summary>
     /// <param name="text">The description.</param>
@@ -39,6 +39,8 @@ public static class SynthesisSpec
                 Number(text, values, "angle", 0), Polarity(text, values))],
             "dc" => [new SmoothDcComponent(Current(text, values, "level", 0.006))],
             "sixpulse" => [new SixPulseComponent(Current(text, values, "mean", 0.030), Frequency(text, values, "freq", mainsHz))],
+            "rectified" => [new RectifiedComponent(Current(text, values, "mean", 0.030), Frequency(text, values, "freq", mainsHz),
+                Pulses(text, values))],
             "switching" => [new SwitchingComponent(Current(text, values, "rms", 0.005), Frequency(text, values, "freq", 16_000),
                 Frequency(text, values, "motor", 0))],
             "composite" => Composite(text, values, mainsHz),
@@ -62,6 +64,7 @@ public static class SynthesisSpec
         ("sine", "rms"), ("sine", "peak"), ("sine", "freq"), ("sine", "phase"),
         ("halfwave", "peak"), ("halfwave", "freq"), ("halfwave", "angle"), ("halfwave", "polarity"),
         ("dc", "level"), ("sixpulse", "mean"), ("sixpulse", "freq"),
+        ("rectified", "mean"), ("rectified", "freq"), ("rectified", "pulses"),
         ("switching", "rms"), ("switching", "freq"), ("switching", "motor"),
         ("composite", "rms"), ("composite", "motor"), ("composite", "switch"),
         ("noise", "rms"), ("noise", "seed"),
@@ -76,6 +79,12 @@ public static class SynthesisSpec
             new SineComponent(each, mainsHz),
             new SineComponent(each, Frequency(text, values, "switch", 1000)),
         ];
+    }
+
+    private static int Pulses(string text, Dictionary<string, string> values)
+    {
+        var pulses = Number(text, values, "pulses", 6);
+        return pulses is 2 or 3 or 6 ? (int)pulses : throw new OptionValueException("synth", text, "pulses=2, 3 or 6");
     }
 
     private static Dictionary<string, string> ParseValues(string list, string kind)

@@ -123,6 +123,34 @@ public sealed class SixPulseComponent(double MeanA, double FrequencyHz) : Wavefo
 }
 
 /// <summary>
+/// Output of a p-pulse rectifier (p = 2: single-phase bridge, full-wave; 3: three-phase star; 6: three-phase bridge),
+/// the residual current of a fault behind it: the upper envelope of p sines evenly spaced over a mains period, scaled
+/// so its mean is <c>MeanA</c>. Closed forms: mean = peak · (p/π) · sin(π/p); the current falls to zero only for
+/// p = 2, and then only at instants, so none of them is pulsating DC (IEC 61008-1 definition).
+/// </summary>
+/// <param name="MeanA">Mean of the rectified current, amperes; sign gives the polarity.</param>
+/// <param name="FrequencyHz">Mains frequency, hertz.</param>
+/// <param name="Pulses">Pulses per mains period: 2, 3 or 6.</param>
+/// <param name="PhaseDeg">Phase of the first pulse's peak, degrees.</param>
+public sealed class RectifiedComponent(double MeanA, double FrequencyHz, int Pulses, double PhaseDeg = 0) : WaveformComponent
+{
+    /// <inheritdoc />
+    public override void AddTo(long startSample, double sampleRateHz, Span<double> destinationA)
+    {
+        var peak = MeanA * Math.PI / (Pulses * Math.Sin(Math.PI / Pulses));
+        var segmentRad = 2 * Math.PI / Pulses;
+        for (var i = 0; i < destinationA.Length; i++)
+        {
+            var theta = Phase(startSample + i, sampleRateHz, FrequencyHz, PhaseDeg);
+            destinationA[i] += peak * Math.Cos((theta % segmentRad) - (segmentRad / 2));
+        }
+    }
+
+    /// <inheritdoc />
+    public override string Describe() => $"{Pulses}-pulse rectified {MeanA * 1e3:0.###} mA mean at {FrequencyHz:0.###} Hz mains";
+}
+
+/// <summary>
 /// High-frequency leakage of a PWM inverter through cable and filter capacitance: a carrier at the switching
 /// frequency with its second harmonic at half the amplitude, its envelope modulated at the motor frequency.
 /// </summary>

@@ -151,6 +151,10 @@ internal sealed class AnalysisBuilder
                 Above1kHzRmsA = _above1kA,
                 Above9kHzRmsA = _above9kA,
                 Tones = _tones,
+                // As the analysis does: harmonic groups of windows that are not pulsating DC, the group at 1 kHz apart.
+                NonPulsatingHarmonicsTo1kMaxA = _pulsating ? 0 : Math.Sqrt(HarmonicsSq(2, (int)Math.Round(1000 / _mainsHz) - 1)),
+                NonPulsating1kGroupMaxA = _pulsating ? 0 : _harmonics.GetValueOrDefault((int)Math.Round(1000 / _mainsHz)),
+                PulsatingMeanMaxA = _pulsating ? _pulsatingMeanA : 0,
             },
             Harmonics = harmonics,
             Bands = _bands,
@@ -166,4 +170,16 @@ internal sealed class AnalysisBuilder
     }
 
     private static MetricStatistics Stat(double v) => new(v, v, v, 0);
+
+    private double HarmonicsSq(int from, int to)
+    {
+        double sum = 0;
+        for (var order = from; order <= to; order++)
+        {
+            var v = _harmonics.GetValueOrDefault(order);
+            sum += v * v;
+        }
+
+        return sum;
+    }
 }

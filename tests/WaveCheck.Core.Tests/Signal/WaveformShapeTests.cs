@@ -92,12 +92,50 @@ public class WaveformShapeTests
     }
 
     [Fact]
-    public void FullWavePhaseCutHasNoHalfWaveDelayAngle()
+    public void FullWavePhaseCutIsNotPulsatingDc()
     {
-        // Two conduction starts per cycle: not a phase-controlled half-wave, whatever its mean-to-peak ratio.
+        // Two conduction intervals per cycle at α = 90° leave two rests of 90°: never the single rest of at least
+        // 150° that IEC 61008-1's definition of pulsating DC asks for (from memory; REFERENCE.md). Its mean is DC
+        // that does not rest at zero: type B.
         var alpha = Math.PI / 2;
-        var (shape, _) = Measure(t => Synth.PhaseCut(t, F, 0.030, alpha) + Synth.PhaseCut(t + (0.5 / F), F, 0.030, alpha));
-        Assert.True(shape.PulsatingDc);
+        var (shape, mean) = Measure(t => Synth.PhaseCut(t, F, 0.030, alpha) + Synth.PhaseCut(t + (0.5 / F), F, 0.030, alpha));
+        Assert.False(shape.PulsatingDc);
         Assert.Null(shape.CurrentDelayAngleDeg);
+        Assert.Equal(mean, shape.SmoothDcA, 1e-12);
+    }
+
+    [Theory]
+    [InlineData(2)]
+    [InlineData(3)]
+    [InlineData(6)]
+    public void MultiPulseRectifiedCurrentIsNotPulsatingDcAndItsDcIsItsMean(int pulses)
+    {
+        // Closed form of the p-pulse rectifier: upper envelope of p sines, mean Ipk·(p/π)·sin(π/p); it never rests
+        // at zero for 150° (it touches zero only at instants for p = 2, never for p = 3 or 6), so it is rectified
+        // current from two or more phases, not pulsating DC (IEC 61008-1 definition, from memory; IEC 62423 type B).
+        // The old flaw read the rounded tops of a three-pulse current as a floor: the smooth DC must be the mean.
+        var segment = 2 * Math.PI / pulses;
+        var (shape, mean) = Measure(t => 0.010 * Math.Cos((2 * Math.PI * F * t % segment) - (segment / 2)));
+        Assert.False(shape.PulsatingDc);
+        Assert.Equal(0.010 * (pulses / Math.PI) * Math.Sin(Math.PI / pulses), mean, 1e-5);
+        Assert.Equal(mean, shape.SmoothDcA, 1e-12);
+    }
+
+    [Theory]
+    [InlineData(148, false)]
+    [InlineData(152, true)]
+    public void RestOfOneHundredFiftyDegreesDecides(double restDeg, bool pulsating)
+    {
+        // IEC 61008-1 definition (from memory): at rest for a single interval of at least 150° each cycle. A pulse
+        // that steps to 5 mA and rounds to 10 mA (a half-sine on a step, so no flat top to mistake for a floor)
+        // lasting 360° − rest, resting at zero for the rest: 148° fails, 152° passes (1000 samples per cycle: 0.36°
+        // per sample).
+        var conductDeg = 360 - restDeg;
+        var (shape, _) = Measure(t =>
+        {
+            var deg = t * F % 1 * 360;
+            return deg < conductDeg ? 0.005 * (1 + Math.Sin(Math.PI * deg / conductDeg)) : 0;
+        });
+        Assert.Equal(pulsating, shape.PulsatingDc);
     }
 }
