@@ -16,7 +16,7 @@ internal static class VerdictPrinter
         if (a.InstalledType is { } installed)
         {
             console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"Installed type {installed}, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}: {Adequacy(a.InstalledAdequate)}"));
+                $"Installed {a.InstalledProtection ?? "type " + installed}, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}: {Adequacy(a.InstalledAdequate)}"));
         }
 
         if (a.Blinding.Blinded == true)

@@ -67,6 +67,47 @@ public sealed class AnalyzeCommandTests : IDisposable
     }
 
     [Fact]
+    public void Charging_point_protection_is_declared_with_its_dc_detection()
+    {
+        // IEC 60364-7-722 (REFERENCE.md): type B, or type A with a 6 mA DC detection device (IEC 62955). A plain
+        // type A fails --fail-on upgrade; A+RDC-DD passes; --charger-dc-detection only makes sense with --ev.
+        var wav = Synth("ev.wav", "sine:rms=3mA", "dc:level=2.5mA");
+        Assert.Equal(1, CliHarness.Run("analyze", wav, "--ev", "--device", "A", "--fail-on", "upgrade", "-q").Exit);
+        var json = FilePath("ev.json");
+        var (exit, _, error) = CliHarness.Run("analyze", wav, "--ev", "--device", "A+RDC-DD", "--fail-on", "upgrade", "--json", json, "-q");
+        Assert.True(exit == 0, error);
+        using var doc = JsonDocument.Parse(File.ReadAllText(json));
+        Assert.Equal("A+RDC-DD", doc.RootElement.GetProperty("assessment").GetProperty("installedProtection").GetString());
+        var misuse = CliHarness.Run("analyze", wav, "--charger-dc-detection");
+        Assert.Equal(2, misuse.Exit);
+        Assert.Contains("--charger-dc-detection", misuse.Error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_mains_frequency_the_capture_contradicts_is_refused_in_one_line()
+    {
+        // A 60 Hz capture declared 50 Hz: exit 2, one line naming the file and the frequency found (IEC 61000-4-7
+        // windows would be the wrong length); --mains-as-given keeps the declaration.
+        var wav = Synth("sixty.wav", "sine:rms=10mA", "--mains", "60");
+        var (exit, _, error) = CliHarness.Run("analyze", wav, "--mains", "50");
+        Assert.Equal(2, exit);
+        Assert.Contains("sixty.wav: mains given as 50 Hz", error, StringComparison.Ordinal);
+        Assert.Single(error.Trim().Split('\n'));
+        Assert.Equal(0, CliHarness.Run("analyze", wav, "--mains", "50", "--mains-as-given", "-q").Exit);
+    }
+
+    [Theory]
+    [InlineData("2 percent")]
+    [InlineData("80%")]
+    public void Accuracy_that_cannot_be_used_is_refused_with_the_option(string text)
+    {
+        var wav = Synth("acc.wav", "sine:rms=10mA");
+        var (exit, _, error) = CliHarness.Run("analyze", wav, "--accuracy", text);
+        Assert.Equal(2, exit);
+        Assert.Contains("--accuracy", error, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Fail_on_upgrade_turns_an_inadequate_device_into_exit_code_1()
     {
         // IEC 60364-5-53 §531.3.3: type AC does not detect pulsating DC; a dimmer's half-wave needs type A.

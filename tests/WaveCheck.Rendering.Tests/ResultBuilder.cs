@@ -161,6 +161,13 @@ internal static class ResultBuilder
         InstalledType = "AC",
         InstalledAdequate = false,
         Regime = "iec",
+        Accuracy = "2%+0.1mA",
+        Classes =
+        [
+            new ClassResult("mainsAc", "sinusoidal AC at mains frequency", "present", 0.005, 0.001, "AC", false, "mains-frequency component 5.00 mA"),
+            new ClassResult("pulsatingDc", "pulsating DC", "present", 0.0024, 0.001, "A", false, "pulsating DC: pulses with a mean of 2.40 mA"),
+            new ClassResult("smoothDc", "smooth DC or multi-phase rectified current", "at limit", 0.00095, 0.001, "B", true, "smooth DC 0.950 mA at the limit"),
+        ],
         Types =
         [
             new TypeVerdict("AC", false, ["pulsating DC 98 % of windows; type AC is not specified for it (IEC 61008-1)"]),

@@ -72,6 +72,7 @@ public static class ReportWriter
         else
         {
             Verdict(html, assessment);
+            ClassTable(html, assessment);
             TypeTable(html, assessment);
             DeviceMargins(html, analysis, assessment);
         }
@@ -148,9 +149,13 @@ public static class ReportWriter
         }
 
         html.Raw("</p>\n<p class=\"headline\">").Text(a.Headline).Raw("</p>\n");
+        if (a.AcceptedProtection is { } accepted && accepted != $"type {a.RequiredType}")
+        {
+            html.Raw("<p>").Text($"Accepted protection: {accepted}.").Raw("</p>\n");
+        }
         if (a.InstalledType is { } installed)
         {
-            html.Raw("<p><strong>").Text($"Installed type {installed}: {AdequacyText(a.InstalledAdequate)}").Raw("</strong></p>\n");
+            html.Raw("<p><strong>").Text($"Installed {a.InstalledProtection ?? "type " + installed}: {AdequacyText(a.InstalledAdequate)}").Raw("</strong></p>\n");
         }
 
         html.Raw("<p class=\"muted\">").Text($"Rated residual operating current assessed: IΔn = {CurrentText.WithUnit(a.RatedResidualCurrentA)}; rules: {RegimeText(a.Regime)}.").Raw("</p>\n");
@@ -161,6 +166,29 @@ public static class ReportWriter
         }
 
         html.Raw("</section>\n");
+    }
+
+    /// <summary>The classes of residual current the verdict rests on: figure, threshold, presence, least type.</summary>
+    private static void ClassTable(HtmlWriter html, AssessmentResult a)
+    {
+        if (a.Classes.Count == 0)
+        {
+            return;
+        }
+
+        html.Raw("<section id=\"classes\">\n<h2>Classes of residual current</h2>\n<p>").Text(
+            $"The required type is the least type that detects every class present. Each figure is compared with its threshold allowing for the measurement uncertainty ({a.Accuracy}); a figure within it counts as present (the safe side).")
+            .Raw("</p>\n<table class=\"wide\">\n<thead><tr><th>Class</th><th>Found</th><th class=\"num\">Figure</th><th class=\"num\">Threshold</th><th>Least type</th><th>Evidence</th></tr></thead>\n<tbody>\n");
+        foreach (var c in a.Classes)
+        {
+            html.Raw("<tr><td>").Text(c.Name).Raw("</td><td>").Text(c.Presence).Raw("</td><td class=\"num\">")
+                .Text(c.FigureA is { } f ? CurrentText.WithUnit(f) : "rule").Raw("</td><td class=\"num\">")
+                .Text(c.ThresholdA is { } t ? CurrentText.WithUnit(t) : "–").Raw("</td><td>")
+                .Text(c.CoveredByDcDetection ? $"{c.LeastType} (or A + 6 mA DC detection)" : c.LeastType).Raw("</td><td>")
+                .Text(c.Text).Raw("</td></tr>\n");
+        }
+
+        html.Raw("</tbody>\n</table>\n</section>\n");
     }
 
     private static void TypeTable(HtmlWriter html, AssessmentResult a)
@@ -182,7 +210,8 @@ public static class ReportWriter
         html.Raw("<section id=\"device\">\n<h2>").Text($"Margins for a type {trip.DeviceType} device, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}").Raw("</h2>\n");
         html.Raw("<h3>Nuisance tripping</h3>\n<table><tbody>\n");
         Row(html, "Risk", RiskText(trip.Risk));
-        Row(html, "Standing residual current (frequency-weighted, worst window)", CurrentText.WithUnit(trip.StandingA));
+        Row(html, "Standing residual current (unweighted, each range's worst window)", CurrentText.WithUnit(trip.StandingA));
+        Row(html, "As a typical device responds (frequency-weighted, second figure)", CurrentText.WithUnit(trip.TypicalStandingA));
         Row(html, $"Non-operating limit {a.NonOperatingLimitText()}", CurrentText.WithUnit(trip.NonOperatingLimitA));
         Row(html, "Margin to the limit", $"{CurrentText.WithUnit(trip.MarginA)} ({Percent(trip.MarginPercent)} of the limit){(trip.MarginA < 0 ? " — above the limit" : string.Empty)}");
         Row(html, $"Leakage budget {a.LeakageBudgetText()}", $"{CurrentText.WithUnit(trip.LeakageBudgetA)}: {(trip.WithinLeakageBudget ? "✔ within" : "✘ exceeded")}");

@@ -68,6 +68,11 @@ public sealed partial class ReportWriterTests : IDisposable
         Assert.Contains("✔ suitable", dom, StringComparison.Ordinal);
         Assert.Contains("? cannot be determined", dom, StringComparison.Ordinal);
         Assert.Contains("Installed type AC: ✘ not adequate", dom, StringComparison.Ordinal);
+        // The class table the verdict rests on: each class with its presence, figure and threshold.
+        Assert.Contains("<section id=\"classes\">", dom, StringComparison.Ordinal);
+        Assert.Contains("<td>at limit</td>", dom, StringComparison.Ordinal);
+        Assert.Contains("B (or A + 6 mA DC detection)", dom, StringComparison.Ordinal);
+        Assert.Contains("(2%+0.1mA)", dom, StringComparison.Ordinal);
         Assert.Equal(PlotRenderer.Applicable(analysis).Count, Regex.Count(dom, "<svg\\b"));
         foreach (var standard in new[] { "IEC 61000-4-7", "IEC 60990", "IEC 61008-1", "IEC 61009-1", "IEC 62423", "IEC 62955", "IEC 60364-5-53", "IEC 60364-7-722", "UL 943" })
         {
