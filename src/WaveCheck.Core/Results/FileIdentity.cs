@@ -102,20 +102,35 @@ internal readonly record struct FileIdentity(ulong Device, ulong Inode, string? 
 
     private static string CanonicalFallback(string path)
     {
-        var full = Path.GetFullPath(path);
-        try
+        var canonical = Resolve(Path.GetFullPath(path), 0);
+        return OperatingSystem.IsWindows() || OperatingSystem.IsMacOS() ? canonical.ToUpperInvariant() : canonical;
+    }
+
+    /// <summary>The full path with every symbolic link along it replaced by its target, as far as 40 links deep
+    /// (Linux's limit, MAXSYMLINKS).</summary>
+    private static string Resolve(string full, int depth)
+    {
+        var root = Path.GetPathRoot(full) ?? "";
+        var current = root;
+        foreach (var part in full[root.Length..].Split([Path.DirectorySeparatorChar, Path.AltDirectorySeparatorChar], StringSplitOptions.RemoveEmptyEntries))
         {
-            if (File.ResolveLinkTarget(full, returnFinalTarget: true) is { } target)
+            var next = Path.Combine(current, part);
+            string? target = null;
+            try
             {
-                full = target.FullName;
+                target = new FileInfo(next).LinkTarget;
             }
-        }
-        catch (IOException)
-        {
-            // Not a link, or unreadable: the full path stands.
+            catch (IOException)
+            {
+                // Unreadable: taken as it is.
+            }
+
+            current = target is not null && depth < 40
+                ? Resolve(Path.GetFullPath(target, current), depth + 1)
+                : next;
         }
 
-        return OperatingSystem.IsWindows() || OperatingSystem.IsMacOS() ? full.ToUpperInvariant() : full;
+        return current;
     }
 
     /// <summary>The few system calls .NET does not wrap. Each returns null when the call is missing or fails, so the
