@@ -100,10 +100,19 @@ internal static class SurveyCommand
                     new ReportContext(site, job.Settings.Circuit, null, DateTimeOffset.Now, evaluation.Analysis.ToolVersion)),
             WriteIndex = (document, path) => SurveyIndexWriter.Write(path, document),
         };
-        var document = ProgressDisplay.Run(quiet, $"surveying {jobs.Count} captures", progress =>
-            SiteSurvey.Run(jobs, upstream, options,
-                progress is null ? null : new SurveyProgress(done => progress.Report(done.Done / (double)Math.Max(1, done.Total))),
-                run.Token));
+        SurveyDocument document;
+        try
+        {
+            document = ProgressDisplay.Run(quiet, $"surveying {jobs.Count} captures", progress =>
+                SiteSurvey.Run(jobs, upstream, options,
+                    progress is null ? null : new SurveyProgress(done => progress.Report(done.Done / (double)Math.Max(1, done.Total))),
+                    run.Token));
+        }
+        catch (OutputWriteException e)
+        {
+            throw new OutputWriteException(e.TargetPath, $"{e.Reason}; the survey was not written, --output {outputDirectory} is as it was", e);
+        }
+
         run.Describe = () => $"every output written (--output {outputDirectory})";
         Print(ConsoleOutput.Create(), document, outputDirectory);
         return document;
