@@ -2,7 +2,8 @@ using Spectre.Console;
 
 namespace WaveCheck.Cli;
 
-/// <summary>The console the commands print to: plain text (no ANSI, no colour) when NO_COLOR is set or output is not a terminal.</summary>
+/// <summary>The console the commands print to: plain text (no ANSI, no colour) when NO_COLOR is set or output is not a
+/// terminal; control characters in what is printed are made visible (<see cref="TerminalText"/>).</summary>
 internal static class ConsoleOutput
 {
     /// <summary>True when output should carry no ANSI codes.</summary>
@@ -25,6 +26,8 @@ internal static class ConsoleOutput
             console.Profile.Width = 160;
         }
 
+        // Everything printed here may carry names and text from the files read.
+        console.Pipeline.Attach(TerminalText.Hook);
         return console;
     }
 

@@ -19,7 +19,7 @@ internal static class ProgressDisplay
             .Columns(new TaskDescriptionColumn(), new ProgressBarColumn(), new PercentageColumn(), new RemainingTimeColumn())
             .Start(context =>
             {
-                var task = context.AddTask(Markup.Escape(description), maxValue: 1.0);
+                var task = context.AddTask(Markup.Escape(TerminalText.Clean(description)), maxValue: 1.0);
                 result = work(new ImmediateProgress(share => task.Value = share));
                 task.Value = 1.0;
             });

@@ -20,14 +20,15 @@ public static class WaveCheckCommand
         return root;
     }
 
-    /// <summary>Parses and runs; returns the process exit code (0 ok, 1 finding asked to fail on, 2 bad input or usage).</summary>
+    /// <summary>Parses and runs; returns the process exit code (0 ok, 1 finding asked to fail on, 2 bad input or usage,
+    /// 130 interrupted by SIGINT, 143 by SIGTERM).</summary>
     public static int Run(string[] args)
     {
         var root = Build();
         var parse = root.Parse(args);
         if (!AsksForHelp(args) && UnknownOption(parse, args) is { } unknown)
         {
-            Console.Error.WriteLine(UsageLine(parse, unknown));
+            Console.Error.WriteLine(TerminalText.Clean(UsageLine(parse, unknown)));
             return CliRun.BadInput;
         }
 
@@ -39,11 +40,12 @@ public static class WaveCheckCommand
                 return CliRun.BadInput;
             }
 
-            Console.Error.WriteLine(UsageLine(parse));
+            Console.Error.WriteLine(TerminalText.Clean(UsageLine(parse)));
             return CliRun.BadInput;
         }
 
-        return parse.Invoke(new InvocationConfiguration { EnableDefaultExceptionHandler = false });
+        // Signals are handled by CliRun.Guard (exit 130/143 after cleaning up), not by System.CommandLine.
+        return parse.Invoke(new InvocationConfiguration { EnableDefaultExceptionHandler = false, ProcessTerminationTimeout = null });
     }
 
     private static bool AsksForHelp(string[] args) => args.Any(a => a is "--help" or "-h" or "-?");

@@ -21,9 +21,11 @@ public sealed record Evaluation(AnalysisResult Analysis, AssessmentResult Assess
     /// <param name="analysisOptions">Measurement settings.</param>
     /// <param name="assessmentOptions">The device and thresholds to judge against.</param>
     /// <param name="progress">Receives the share read, 0..1.</param>
+    /// <param name="cancellationToken">Stops the reading between blocks.</param>
     /// <exception cref="UserInputException">Malformed data, or an option out of range.</exception>
+    /// <exception cref="OperationCanceledException">Cancelled.</exception>
     public static Evaluation Run(ICaptureSource source, AnalysisOptions analysisOptions, AssessmentOptions assessmentOptions,
-        IProgress<double>? progress = null)
+        IProgress<double>? progress = null, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(source);
         ArgumentNullException.ThrowIfNull(analysisOptions);
@@ -31,7 +33,7 @@ public sealed record Evaluation(AnalysisResult Analysis, AssessmentResult Assess
         analysisOptions.Validate();
         assessmentOptions.Validate();
         var meter = new TouchCurrentMeter(source.Info.SampleRateHz);
-        var analysis = Analyzer.Analyze(source, analysisOptions with { Sinks = [.. analysisOptions.Sinks, meter] }, progress);
+        var analysis = Analyzer.Analyze(source, analysisOptions with { Sinks = [.. analysisOptions.Sinks, meter] }, progress, cancellationToken);
         analysis = analysis with { TouchCurrent = meter.Result };
         if (analysis.Summary.PeakPositiveA - analysis.Summary.PeakNegativeA <= FlatSpanA)
         {
@@ -50,12 +52,12 @@ public sealed record Evaluation(AnalysisResult Analysis, AssessmentResult Assess
         return new Evaluation(analysis with { Assessment = assessment }, assessment);
     }
 
-    /// <summary>Opens <paramref name="path"/> and runs <see cref="Run(ICaptureSource, AnalysisOptions, AssessmentOptions, IProgress{double}?)"/>.</summary>
+    /// <summary>Opens <paramref name="path"/> and runs <see cref="Run(ICaptureSource, AnalysisOptions, AssessmentOptions, IProgress{double}?, CancellationToken)"/>.</summary>
     /// <exception cref="CaptureFormatException">The file cannot be read as a capture.</exception>
     public static Evaluation Run(string path, ImportOptions importOptions, AnalysisOptions analysisOptions,
-        AssessmentOptions assessmentOptions, IProgress<double>? progress = null)
+        AssessmentOptions assessmentOptions, IProgress<double>? progress = null, CancellationToken cancellationToken = default)
     {
         using var source = CaptureOpener.Open(path, importOptions);
-        return Run(source, analysisOptions, assessmentOptions, progress);
+        return Run(source, analysisOptions, assessmentOptions, progress, cancellationToken);
     }
 }

@@ -52,7 +52,7 @@ internal static class AnalyzeCommand
         command.Options.Add(windowsCsv);
         command.Options.Add(touch);
         outputs.AddTo(command);
-        command.SetAction(parse => CliRun.Guard(() =>
+        command.SetAction(parse => CliRun.Guard(run =>
         {
             var import = imports.Read(parse);
             var assessmentOptions = assessment.Read(parse);
@@ -70,28 +70,67 @@ internal static class AnalyzeCommand
             var failOn = outputs.ReadFailOn(parse);
             var jsonPath = parse.GetValue(json);
             var csvPath = parse.GetValue(windowsCsv);
+            var plotsDir = parse.GetValue(outputs.Plots);
+            var reportPath = parse.GetValue(outputs.Report);
             var path = parse.GetValue(file)!;
+
+            var plan = new OutputPlan();
+            plan.AddCapture(path);
+            if (jsonPath is not null and not "-")
+            {
+                plan.AddOutputFile(jsonPath, "--json");
+            }
+
+            if (csvPath is not null)
+            {
+                plan.AddOutputFile(csvPath, "--windows-csv");
+            }
+
+            if (plotsDir is not null)
+            {
+                plan.AddOutputFolder(plotsDir, "--plots", Enum.GetValues<PlotKind>().Select(k => PlotRenderer.FileName(k, plotFormat)));
+            }
+
+            if (reportPath is not null)
+            {
+                plan.AddOutputFile(reportPath, "--report");
+            }
+
+            plan.Check();
+            run.Plan = plan;
+            var token = run.Token;
+
             using var source = CaptureOpener.Open(path, import);
             var evaluation = ProgressDisplay.Run(parse.GetValue(outputs.Quiet), $"analysing {Path.GetFileName(path)}", progress =>
                 csvPath is null
-                    ? Evaluation.Run(source, options, assessmentOptions, progress)
-                    : EvaluateWithCsv(source, options, assessmentOptions, csvPath, progress));
+                    ? Evaluation.Run(source, options, assessmentOptions, progress, token)
+                    : EvaluateWithCsv(source, options, assessmentOptions, csvPath, progress, token));
+            if (csvPath is not null)
+            {
+                plan.MarkWritten("--windows-csv");
+            }
+
             var result = evaluation.Analysis;
             if (jsonPath is not null)
             {
-                ResultJson.Write(jsonPath, result);
+                ResultJson.Write(jsonPath, result, token);
+                plan.MarkWritten("--json");
             }
 
-            if (parse.GetValue(outputs.Plots) is { } plotsDir)
+            if (plotsDir is not null)
             {
+                token.ThrowIfCancellationRequested();
                 PlotRenderer.WriteAll(result, evaluation.Assessment, plotsDir, plotFormat);
+                plan.MarkWritten("--plots");
             }
 
-            if (parse.GetValue(outputs.Report) is { } reportPath)
+            if (reportPath is not null)
             {
+                token.ThrowIfCancellationRequested();
                 ReportWriter.Write(reportPath, result, evaluation.Assessment, new ReportContext(
                     parse.GetValue(outputs.Site), parse.GetValue(outputs.Circuit), parse.GetValue(outputs.Note),
                     DateTimeOffset.Now, result.ToolVersion));
+                plan.MarkWritten("--report");
             }
 
             if (jsonPath != "-")
@@ -119,7 +158,7 @@ internal static class AnalyzeCommand
 
     /// <summary>Streams each window's row into the CSV as it completes; the file appears only when the run succeeds.</summary>
     private static Evaluation EvaluateWithCsv(ICaptureSource source, AnalysisOptions options,
-        AssessmentOptions assessmentOptions, string path, IProgress<double>? progress)
+        AssessmentOptions assessmentOptions, string path, IProgress<double>? progress, CancellationToken token)
     {
         Evaluation? result = null;
         AtomicFile.Write(path, stream =>
@@ -129,8 +168,8 @@ internal static class AnalyzeCommand
             result = Evaluation.Run(source, options with
             {
                 WindowCompleted = w => writer.WriteLine(WindowTable.CsvLine(w)),
-            }, assessmentOptions, progress);
-        });
+            }, assessmentOptions, progress, token);
+        }, token);
         return result!;
     }
 

@@ -16,13 +16,16 @@ internal static class DemoCommand
         {
             output, quiet,
         };
-        command.SetAction(parse => CliRun.Guard(() =>
+        command.SetAction(parse => CliRun.Guard(run =>
         {
             var samples = FindSamples();
-            var site = SiteConfigReader.Read(Path.Combine(samples, "site.json"));
+            var siteFile = Path.Combine(samples, "site.json");
+            var site = SiteConfigReader.Read(siteFile);
             var outputDirectory = parse.GetValue(output)!;
-            var document = SurveyCommand.Run(site.Jobs(), site.Upstream, site.Site, outputDirectory, parquet: false, parse.GetValue(quiet));
-            Console.Out.WriteLine($"Open {Path.GetFullPath(Path.Combine(outputDirectory, "index.html"))} in a browser; each circuit links its report.");
+            var document = SurveyCommand.Run(site.Jobs(), site.Upstream, site.Site, siteFile, outputDirectory, parquet: false,
+                parse.GetValue(quiet), run);
+            Console.Out.WriteLine(TerminalText.Clean(
+                $"Open {Path.GetFullPath(Path.Combine(outputDirectory, "index.html"))} in a browser; each circuit links its report."));
             return SurveyCommand.Exit(document, (false, false, false));
         }));
         return command;

@@ -21,18 +21,28 @@ internal static class InfoCommand
         command.Arguments.Add(file);
         command.Options.Add(json);
         import.AddTo(command);
-        command.SetAction(parse => CliRun.Guard(() =>
+        command.SetAction(parse => CliRun.Guard(run =>
         {
             var options = import.Read(parse);
             var path = parse.GetValue(file)!;
             var jsonPath = parse.GetValue(json);
+            var plan = new OutputPlan();
+            plan.AddCapture(path);
+            if (jsonPath is not null and not "-")
+            {
+                plan.AddOutputFile(jsonPath, "--json");
+            }
+
+            plan.Check();
+            run.Plan = plan;
             using var source = CaptureOpener.Open(path, options);
             var scan = CaptureScan.Run(source, options.BandOfInterestHz);
             var info = source.Info;
             List<CaptureWarning> warnings = [.. source.Warnings, .. scan.Warnings];
             if (jsonPath is not null)
             {
-                ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings));
+                ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings), run.Token);
+                plan.MarkWritten("--json");
                 if (jsonPath == "-")
                 {
                     return CliRun.Ok;

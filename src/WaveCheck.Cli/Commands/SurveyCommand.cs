@@ -38,7 +38,7 @@ internal static class SurveyCommand
         {
             paths, config, output, parquet, quiet, failOn, rated, device, sensor, scale, regime,
         };
-        command.SetAction(parse => CliRun.Guard(() =>
+        command.SetAction(parse => CliRun.Guard(run =>
         {
             var overrides = new CaptureSettingsPatch
             {
@@ -78,7 +78,7 @@ internal static class SurveyCommand
                 jobs = [.. files.Select(f => new SurveyJob(f, settings with { Circuit = Path.GetFileNameWithoutExtension(f) }))];
             }
 
-            var document = Run(jobs, upstream, site, parse.GetValue(output)!, parse.GetValue(parquet), parse.GetValue(quiet));
+            var document = Run(jobs, upstream, site, configPath, parse.GetValue(output)!, parse.GetValue(parquet), parse.GetValue(quiet), run);
             return Exit(document, fail);
         }));
         return command;
@@ -86,27 +86,35 @@ internal static class SurveyCommand
 
     /// <summary>Runs the survey with reports and the index; prints the summary. Shared with <c>demo</c>.</summary>
     internal static SurveyDocument Run(IReadOnlyList<SurveyJob> jobs, IReadOnlyList<UpstreamGroup> upstream, string site,
-        string outputDirectory, bool parquet, bool quiet)
+        string? siteFile, string outputDirectory, bool parquet, bool quiet, RunContext run)
     {
-        var reports = Path.Combine(outputDirectory, "reports");
+        run.Describe = () => $"nothing written: --output {outputDirectory} is as it was, and no temporary or staging files are left";
         var options = new SiteSurveyOptions
         {
             OutputDirectory = outputDirectory,
+            OutputOption = "--output",
+            SiteFile = siteFile,
             Site = site,
             Parquet = parquet,
-            WriteReport = (job, evaluation, stem) =>
-            {
-                var relative = $"reports/{stem}.html";
-                ReportWriter.Write(Path.Combine(reports, stem + ".html"), evaluation.Analysis, evaluation.Assessment,
-                    new ReportContext(site, job.Settings.Circuit, null, DateTimeOffset.Now, evaluation.Analysis.ToolVersion));
-                return relative;
-            },
+            WriteReport = (job, evaluation, path) =>
+                ReportWriter.Write(path, evaluation.Analysis, evaluation.Assessment,
+                    new ReportContext(site, job.Settings.Circuit, null, DateTimeOffset.Now, evaluation.Analysis.ToolVersion)),
+            WriteIndex = (document, path) => SurveyIndexWriter.Write(path, document),
         };
-        var document = ProgressDisplay.Run(quiet, $"surveying {jobs.Count} captures", progress =>
-            SiteSurvey.Run(jobs, upstream, options,
-                progress is null ? null : new SurveyProgress(done => progress.Report(done.Done / (double)Math.Max(1, done.Total)))));
-        var index = Path.Combine(outputDirectory, "index.html");
-        SurveyIndexWriter.Write(index, document);
+        SurveyDocument document;
+        try
+        {
+            document = ProgressDisplay.Run(quiet, $"surveying {jobs.Count} captures", progress =>
+                SiteSurvey.Run(jobs, upstream, options,
+                    progress is null ? null : new SurveyProgress(done => progress.Report(done.Done / (double)Math.Max(1, done.Total))),
+                    run.Token));
+        }
+        catch (OutputWriteException e)
+        {
+            throw new OutputWriteException(e.TargetPath, $"{e.Reason}; the survey was not written, --output {outputDirectory} is as it was", e);
+        }
+
+        run.Describe = () => $"every output written (--output {outputDirectory})";
         Print(ConsoleOutput.Create(), document, outputDirectory);
         return document;
     }
@@ -115,7 +123,7 @@ internal static class SurveyCommand
     {
         if (document.Rows.Count > 0 && document.Rows.All(r => r.Verdict == SurveyRow.VerdictError))
         {
-            Console.Error.WriteLine($"wavecheck: survey: none of the {document.Rows.Count} captures could be read; first: {document.Rows[0].Error}");
+            CliRun.PrintError($"survey: none of the {document.Rows.Count} captures could be read; first: {document.Rows[0].Error}");
             return CliRun.BadInput;
         }
 

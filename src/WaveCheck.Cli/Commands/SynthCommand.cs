@@ -38,7 +38,7 @@ internal static class SynthCommand
         {
             parts, output, rate, duration, mains, fullScale, format, sensor,
         };
-        command.SetAction(parse => CliRun.Guard(() =>
+        command.SetAction(parse => CliRun.Guard(run =>
         {
             var rateHz = Quantity.ParseFrequencyHz("--rate", parse.GetValue(rate)!);
             var durationS = Quantity.ParseDurationS("--duration", parse.GetValue(duration)!);
@@ -56,6 +56,10 @@ internal static class SynthCommand
             var sensorCoupling = SensorCouplingNames.Parse("--sensor", parse.GetValue(sensor)!);
             var components = parse.GetValue(parts)!.SelectMany(p => SynthesisSpec.Parse(p, mainsHz)).ToList();
             var path = parse.GetValue(output)!;
+            var plan = new OutputPlan();
+            plan.AddOutputFile(path, "--output");
+            plan.Check();
+            run.Plan = plan;
             var extension = Path.GetExtension(path).ToLowerInvariant();
             SynthCaptureSource Source() => new(components, rateHz, durationS, sensorCoupling, description: path);
 
@@ -64,7 +68,7 @@ internal static class SynthCommand
             if (extension == ".csv")
             {
                 using var source = Source();
-                written = CaptureWriter.WriteCsv(path, source);
+                written = CaptureWriter.WriteCsv(path, source, run.Token);
             }
             else if (extension == ".wav")
             {
@@ -84,11 +88,11 @@ internal static class SynthCommand
                 else
                 {
                     using var scan = Source();
-                    fullScaleA = NiceFullScale(PeakA(scan));
+                    fullScaleA = NiceFullScale(PeakA(scan, run.Token));
                 }
 
                 using var source = Source();
-                written = CaptureWriter.WriteWav(path, source, fullScaleA, encoding);
+                written = CaptureWriter.WriteWav(path, source, fullScaleA, encoding, run.Token);
                 scaleNote = $", full scale {CurrentText.WithUnit(fullScaleA)}";
             }
             else
@@ -96,19 +100,21 @@ internal static class SynthCommand
                 throw new OptionValueException("--output", path, "a file name ending in .wav or .csv");
             }
 
-            Console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"wrote {path}: {written:N0} samples at {rateHz:G6} Hz ({durationS:G6} s){scaleNote}; {string.Join(" + ", components.Select(c => c.Describe()))}"));
+            plan.MarkWritten("--output");
+            Console.Out.WriteLine(TerminalText.Clean(string.Create(CultureInfo.InvariantCulture,
+                $"wrote {path}: {written:N0} samples at {rateHz:G6} Hz ({durationS:G6} s){scaleNote}; {string.Join(" + ", components.Select(c => c.Describe()))}")));
             return CliRun.Ok;
         }));
         return command;
     }
 
-    private static double PeakA(ICaptureSource source)
+    private static double PeakA(ICaptureSource source, CancellationToken token)
     {
         var block = source.CreateBlock();
         var peak = 0.0;
         while (source.Read(block))
         {
+            token.ThrowIfCancellationRequested();
             foreach (var v in block.ResidualA)
             {
                 peak = Math.Max(peak, Math.Abs(v));

@@ -123,11 +123,14 @@ public static class CaptureWriter
     /// <param name="source">Capture to copy; read to its end.</param>
     /// <param name="fullScaleA">Amperes stored as full scale.</param>
     /// <param name="format">Sample encoding.</param>
+    /// <param name="cancellationToken">Checked before each block; a cancelled write leaves no file.</param>
     /// <returns>Frames written.</returns>
-    public static long WriteWav(string path, ICaptureSource source, double fullScaleA, WavSampleFormat format)
+    public static long WriteWav(string path, ICaptureSource source, double fullScaleA, WavSampleFormat format,
+        CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(source);
-        return WriteWav(path, ResidualBlocks(source), source.Info.SampleRateHz, fullScaleA, format, source.Info.SensorCoupling);
+        return WriteWav(path, ResidualBlocks(source, cancellationToken), source.Info.SampleRateHz, fullScaleA, format,
+            source.Info.SensorCoupling);
     }
 
     /// <summary>Writes a CSV file with a <c>time [s]</c> column and an <c>I [mA]</c> column (invariant culture, round-trip precision).</summary>
@@ -163,11 +166,12 @@ public static class CaptureWriter
     /// <summary>Writes the residual current of <paramref name="source"/> as CSV.</summary>
     /// <param name="path">Target file.</param>
     /// <param name="source">Capture to copy; read to its end.</param>
+    /// <param name="cancellationToken">Checked before each block; a cancelled write leaves no file.</param>
     /// <returns>Rows written.</returns>
-    public static long WriteCsv(string path, ICaptureSource source)
+    public static long WriteCsv(string path, ICaptureSource source, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(source);
-        return WriteCsv(path, ResidualBlocks(source), source.Info.SampleRateHz);
+        return WriteCsv(path, ResidualBlocks(source, cancellationToken), source.Info.SampleRateHz);
     }
 
     private static void WriteNumber(StreamWriter writer, double value, Span<char> buffer)
@@ -177,11 +181,12 @@ public static class CaptureWriter
     }
 
     /// <summary>Copies each block's residual current, since the source reuses its block.</summary>
-    private static IEnumerable<double[]> ResidualBlocks(ICaptureSource source)
+    private static IEnumerable<double[]> ResidualBlocks(ICaptureSource source, CancellationToken cancellationToken)
     {
         var block = source.CreateBlock();
         while (source.Read(block))
         {
+            cancellationToken.ThrowIfCancellationRequested();
             yield return block.ResidualA.ToArray();
         }
     }

@@ -31,7 +31,7 @@ public static class ParquetTables
         }));
     }
 
-    /// <summary>Starts the per-window table: a temporary file beside <paramref name="path"/> that
+    /// <summary>Starts the per-window table: a temporary file (named as <see cref="AtomicFile"/> names them) beside <paramref name="path"/> that
     /// <see cref="ParquetWindowTable.Complete"/> renames over it.</summary>
     /// <param name="path">Target file; its folder is created if missing.</param>
     /// <param name="rowGroupSize">Windows per row group (the most held in memory).</param>
@@ -77,6 +77,7 @@ public sealed class ParquetWindowTable : IDisposable
     ];
 
     private readonly object _gate = new();
+    private readonly string _given;
     private readonly string _path;
     private readonly string _temp;
     private readonly int _rowGroupSize;
@@ -89,18 +90,20 @@ public sealed class ParquetWindowTable : IDisposable
     {
         ArgumentException.ThrowIfNullOrEmpty(path);
         ArgumentOutOfRangeException.ThrowIfLessThan(rowGroupSize, 1);
+        _given = path;
         _path = Path.GetFullPath(path);
         var folder = Path.GetDirectoryName(_path)!;
-        Directory.CreateDirectory(folder);
-        _temp = Path.Combine(folder, $".{Path.GetFileName(_path)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp");
+        AtomicFile.CheckTarget(path, _path);
+        AtomicFile.CreateFolder(path, folder);
         _rowGroupSize = rowGroupSize;
         _buffer = new List<WindowRow>(Math.Min(rowGroupSize, 4096));
-        _stream = new FileStream(_temp, FileMode.CreateNew, FileAccess.ReadWrite, FileShare.None, 1 << 16);
+        (_temp, _stream) = AtomicFile.CreateTemp(path, folder);
         try
         {
             var stream = _stream;
             ParquetWriter? writer = null;
-            ParquetTables.Block(async () => writer = await ParquetWriter.CreateAsync(ParquetTables.Schema(Columns), stream).ConfigureAwait(false));
+            NamingTarget(() => ParquetTables.Block(async () =>
+                writer = await ParquetWriter.CreateAsync(ParquetTables.Schema(Columns), stream).ConfigureAwait(false)));
             _writer = writer;
         }
         catch
@@ -147,16 +150,19 @@ public sealed class ParquetWindowTable : IDisposable
             }
 
             var writer = _writer;
-            ParquetTables.Block(async () => await writer.DisposeAsync().ConfigureAwait(false));
-            _writer = null;
-            if (_stream!.CanWrite)
+            NamingTarget(() =>
             {
-                _stream.Flush(flushToDisk: true);
-            }
+                ParquetTables.Block(async () => await writer.DisposeAsync().ConfigureAwait(false));
+                _writer = null;
+                if (_stream!.CanWrite)
+                {
+                    _stream.Flush(flushToDisk: true);
+                }
 
-            _stream.Dispose();
-            _stream = null;
-            File.Move(_temp, _path, overwrite: true);
+                _stream.Dispose();
+                _stream = null;
+                File.Move(_temp, _path, overwrite: true);
+            });
             _completed = true;
         }
     }
@@ -180,19 +186,13 @@ public sealed class ParquetWindowTable : IDisposable
                 }
             }
 
+            if (_stream is not null && !_completed)
+            {
+                AtomicFile.Abandon(_stream, _temp);
+            }
+
             _stream?.Dispose();
             _stream = null;
-            if (!_completed)
-            {
-                try
-                {
-                    File.Delete(_temp);
-                }
-                catch (IOException)
-                {
-                    // Left behind; the target was not touched.
-                }
-            }
         }
     }
 
@@ -200,8 +200,21 @@ public sealed class ParquetWindowTable : IDisposable
     {
         var writer = _writer!;
         var rows = _buffer.ToArray();
-        ParquetTables.Block(() => ParquetTables.WriteGroupAsync(writer, Columns, rows));
+        NamingTarget(() => ParquetTables.Block(() => ParquetTables.WriteGroupAsync(writer, Columns, rows)));
         _buffer.Clear();
         RowGroupCount++;
+    }
+
+    /// <summary>Runs a step on the temporary file; a failure is reported against the target, not the temporary name.</summary>
+    private void NamingTarget(Action step)
+    {
+        try
+        {
+            step();
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException && e is not OutputWriteException)
+        {
+            throw new OutputWriteException(_given, AtomicFile.Reason(e, _temp, _path), e);
+        }
     }
 }

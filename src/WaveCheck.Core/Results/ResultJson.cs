@@ -13,7 +13,10 @@ public static class ResultJson
     public static string Serialize<T>(T value) => JsonSerializer.Serialize(value, Options);
 
     /// <summary>Writes JSON to <paramref name="path"/> (whole or not at all), or to stdout when the path is <c>-</c>.</summary>
-    public static void Write<T>(string path, T value)
+    /// <param name="path">Target file, or <c>-</c>.</param>
+    /// <param name="value">What to write.</param>
+    /// <param name="cancellationToken">As for <see cref="AtomicFile.Write"/>.</param>
+    public static void Write<T>(string path, T value, CancellationToken cancellationToken = default)
     {
         if (path == "-")
         {
@@ -21,7 +24,7 @@ public static class ResultJson
             return;
         }
 
-        AtomicFile.Write(path, s => JsonSerializer.Serialize(s, value, Options));
+        AtomicFile.Write(path, s => JsonSerializer.Serialize(s, value, Options), cancellationToken);
     }
 
     private static JsonSerializerOptions Create()

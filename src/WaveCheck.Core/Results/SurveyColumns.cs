@@ -13,7 +13,8 @@ internal abstract class TableColumn<TRow>(string name)
 
     public abstract DataField Field { get; }
 
-    /// <summary>Invariant-culture text; empty for null. Doubles round-trip ("R"); non-finite values are empty.</summary>
+    /// <summary>The CSV cell: invariant-culture text; empty for null. Doubles round-trip ("R"); non-finite values are
+    /// empty; text is neutralised for spreadsheets (<see cref="SpreadsheetText"/>).</summary>
     public abstract string Text(TRow row);
 
     public abstract Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<TRow> rows);
@@ -23,7 +24,7 @@ internal sealed class TextColumn<TRow>(string name, Func<TRow, string?> value, b
 {
     public override DataField Field { get; } = new DataField<string>(name, nullable);
 
-    public override string Text(TRow row) => value(row) ?? string.Empty;
+    public override string Text(TRow row) => SpreadsheetText.Neutralise(value(row) ?? string.Empty);
 
     public override Task WriteAsync(ParquetRowGroupWriter writer, IReadOnlyList<TRow> rows)
     {

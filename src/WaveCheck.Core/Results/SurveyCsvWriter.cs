@@ -6,6 +6,7 @@ namespace WaveCheck.Core.Results;
 /// <summary>
 /// Writes the survey as CSV, one row per capture: header names carry their SI unit (<c>rmsA</c>, <c>durationS</c>),
 /// numbers in invariant culture with full precision, empty fields for nulls, quoting per RFC 4180 (CRLF line ends).
+/// Text cells that a spreadsheet would run as a formula get a leading single quote (<see cref="SpreadsheetText"/>).
 /// </summary>
 public static class SurveyCsvWriter
 {

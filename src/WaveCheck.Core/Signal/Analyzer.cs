@@ -13,16 +13,19 @@ public static class Analyzer
     /// <param name="source">An opened capture; read to its end, not disposed.</param>
     /// <param name="options">Settings.</param>
     /// <param name="progress">Receives the share read, 0..1, after each block (when the length is known).</param>
+    /// <param name="cancellationToken">Checked before each block is read.</param>
     /// <exception cref="CaptureFormatException">The reader found malformed data.</exception>
     /// <exception cref="OptionValueException">An option is out of range.</exception>
-    public static AnalysisResult Analyze(ICaptureSource source, AnalysisOptions options, IProgress<double>? progress = null)
+    /// <exception cref="OperationCanceledException">Cancelled.</exception>
+    public static AnalysisResult Analyze(ICaptureSource source, AnalysisOptions options, IProgress<double>? progress = null,
+        CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(source);
         ArgumentNullException.ThrowIfNull(options);
         var analysis = new CaptureAnalysis(source.Info, options);
         var block = source.CreateBlock(BlockSamples);
         var expected = source.Info.SampleCount;
-        while (source.Read(block))
+        while (!cancellationToken.IsCancellationRequested && source.Read(block))
         {
             analysis.Push(block.ResidualA);
             if (progress is not null && expected > 0)
@@ -31,6 +34,7 @@ public static class Analyzer
             }
         }
 
+        cancellationToken.ThrowIfCancellationRequested();
         return analysis.Complete(source.Info, source.Warnings);
     }
 }

@@ -7,8 +7,14 @@ namespace WaveCheck.Core.Survey;
 /// <summary>What a survey writes besides its rows, and how.</summary>
 public sealed record SiteSurveyOptions
 {
-    /// <summary>Folder the survey's files go into; created if missing.</summary>
+    /// <summary>Folder the survey's files go into; created if missing, replaced as a whole (see <see cref="SiteSurvey"/>).</summary>
     public required string OutputDirectory { get; init; }
+
+    /// <summary>The option that named <see cref="OutputDirectory"/>, for messages.</summary>
+    public string OutputOption { get; init; } = "--output";
+
+    /// <summary>The site file the jobs came from, if any: an input, so never inside the output folder.</summary>
+    public string? SiteFile { get; init; }
 
     /// <summary>Site name for the summary.</summary>
     public string Site { get; init; } = "unnamed site";
@@ -23,10 +29,14 @@ public sealed record SiteSurveyOptions
     public int? MaxParallel { get; init; }
 
     /// <summary>
-    /// Writes one capture's report and returns its path relative to <see cref="OutputDirectory"/>; null to write none.
-    /// Called from worker threads, once per capture, with its job, its evaluation and a file stem unique within the survey.
+    /// Writes one capture's report to the path it is given (<c>reports/STEM.html</c> in the folder being written, the
+    /// stem unique within the survey); null to write none. Called from worker threads, once per capture.
     /// </summary>
-    public Func<SurveyJob, Evaluation, string, string?>? WriteReport { get; init; }
+    public Action<SurveyJob, Evaluation, string>? WriteReport { get; init; }
+
+    /// <summary>Writes the index page to the path it is given (<c>index.html</c> in the folder being written), after
+    /// the rows and upstream checks are known; null to write none.</summary>
+    public Action<SurveyDocument, string>? WriteIndex { get; init; }
 }
 
 /// <summary>
@@ -34,35 +44,91 @@ public sealed record SiteSurveyOptions
 /// worker), a bad capture isolated in its row, upstream devices checked against the sum of their circuits, and the
 /// summary written as CSV, JSON and (optionally) Parquet.
 /// </summary>
+/// <remarks>
+/// The output folder is replaced as one set (<see cref="OutputNames"/>): everything is written into a staging folder
+/// beside it and switched in at the end (<see cref="OutputFolderSwitch"/>), so the folder holds either the previous
+/// survey's complete set or this one's, never a mix, whatever interrupts the run. Before any work,
+/// <see cref="OutputPlan"/> refuses an output folder that holds anything but those names, or any capture or site file
+/// the survey reads (<c>survey D -o D</c> with a capture named <c>survey.csv</c> is refused, never overwritten).
+/// </remarks>
 public static class SiteSurvey
 {
-    /// <summary>Runs the survey and writes <c>survey.csv</c>, <c>survey.json</c> (and Parquet tables) into the output folder.</summary>
+    /// <summary>The entries a survey writes in its output folder; the folder may hold nothing else.</summary>
+    public static IReadOnlyList<string> OutputNames { get; } =
+        ["survey.csv", "survey.json", "index.html", "reports", "captures.parquet", "windows.parquet"];
+
+    /// <summary>Runs the survey and writes <c>survey.csv</c>, <c>survey.json</c> (and Parquet tables, reports, the
+    /// index) into the output folder, as one set.</summary>
     /// <param name="jobs">One per capture.</param>
     /// <param name="upstream">Upstream devices and the captures behind them.</param>
     /// <param name="options">Output and measurement settings.</param>
     /// <param name="progress">Captures done and total.</param>
+    /// <param name="cancellationToken">Stops the survey between blocks of every capture; the output folder is then
+    /// left as it was and the staging folder deleted.</param>
     /// <returns>The summary, as written to <c>survey.json</c>.</returns>
+    /// <exception cref="OutputPathException">The output folder may not be replaced (see remarks).</exception>
+    /// <exception cref="OutputWriteException">An output could not be written (the message names it as it would have been
+    /// in the output folder); the output folder is as it was.</exception>
+    /// <exception cref="OperationCanceledException">Cancelled; the output folder is as it was.</exception>
     public static SurveyDocument Run(IReadOnlyList<SurveyJob> jobs, IReadOnlyList<UpstreamGroup> upstream,
-        SiteSurveyOptions options, IProgress<(int Done, int Total)>? progress = null)
+        SiteSurveyOptions options, IProgress<(int Done, int Total)>? progress = null, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(jobs);
         ArgumentNullException.ThrowIfNull(upstream);
         ArgumentNullException.ThrowIfNull(options);
-        Directory.CreateDirectory(options.OutputDirectory);
+        var plan = new OutputPlan();
+        foreach (var job in jobs)
+        {
+            plan.AddCapture(job.File);
+        }
+
+        if (options.SiteFile is { } siteFile)
+        {
+            plan.AddInput(siteFile, "the site file");
+        }
+
+        plan.AddReplacedFolder(options.OutputDirectory, options.OutputOption, [.. OutputNames]);
+        plan.Check();
+        cancellationToken.ThrowIfCancellationRequested();
+        using var folder = OutputFolderSwitch.Begin(options.OutputDirectory);
+        try
+        {
+            var document = Write(jobs, upstream, options, folder.StagingPath, progress, cancellationToken);
+            cancellationToken.ThrowIfCancellationRequested();
+            folder.Commit();
+            return document;
+        }
+        catch (OutputWriteException e)
+        {
+            throw folder.ToTarget(e);
+        }
+    }
+
+    private static SurveyDocument Write(IReadOnlyList<SurveyJob> jobs, IReadOnlyList<UpstreamGroup> upstream,
+        SiteSurveyOptions options, string folder, IProgress<(int Done, int Total)>? progress, CancellationToken cancellationToken)
+    {
         var stems = UniqueStems(jobs);
         using var windows = options.Parquet
-            ? ParquetTables.OpenWindows(Path.Combine(options.OutputDirectory, "windows.parquet"))
+            ? ParquetTables.OpenWindows(Path.Combine(folder, "windows.parquet"))
             : null;
 
-        var outcomes = SurveyRunner.Run(jobs, (job, _) =>
+        var outcomes = SurveyRunner.Run(jobs, (job, token) =>
         {
             var analysisOptions = windows is null
                 ? options.Analysis
                 : options.Analysis with { WindowCompleted = w => windows.Add(job.File, w) };
-            var evaluation = Evaluation.Run(job.File, job.Settings.Import, analysisOptions, ToAssessmentOptions(job.Settings));
-            var report = options.WriteReport?.Invoke(job, evaluation, stems[job]);
+            var evaluation = Evaluation.Run(job.File, job.Settings.Import, analysisOptions, ToAssessmentOptions(job.Settings),
+                cancellationToken: token);
+            string? report = null;
+            if (options.WriteReport is { } writeReport)
+            {
+                report = $"reports/{stems[job]}.html";
+                token.ThrowIfCancellationRequested();
+                writeReport(job, evaluation, Path.Combine(folder, "reports", stems[job] + ".html"));
+            }
+
             return new SurveyOutcome(SurveyRow.From(job.File, job.Settings, evaluation.Analysis, evaluation.Assessment, report));
-        }, progress, options.MaxParallel);
+        }, progress, options.MaxParallel, cancellationToken);
 
         var rows = outcomes.Select(o => o.Row).ToList();
         var document = new SurveyDocument
@@ -72,14 +138,16 @@ public static class SiteSurvey
             Rows = rows,
             Upstream = UpstreamCheck.EvaluateAll(upstream, rows),
         };
-        SurveyCsvWriter.Write(Path.Combine(options.OutputDirectory, "survey.csv"), rows);
-        SurveyJson.Write(Path.Combine(options.OutputDirectory, "survey.json"), document);
+        SurveyCsvWriter.Write(Path.Combine(folder, "survey.csv"), rows);
+        SurveyJson.Write(Path.Combine(folder, "survey.json"), document);
         if (windows is not null)
         {
-            ParquetTables.WriteCaptures(Path.Combine(options.OutputDirectory, "captures.parquet"), rows);
+            ParquetTables.WriteCaptures(Path.Combine(folder, "captures.parquet"), rows);
             windows.Complete();
         }
 
+        cancellationToken.ThrowIfCancellationRequested();
+        options.WriteIndex?.Invoke(document, Path.Combine(folder, "index.html"));
         return document;
     }
 

@@ -1,4 +1,6 @@
+using System.Runtime.ExceptionServices;
 using WaveCheck.Core.Capture;
+using WaveCheck.Core.Results;
 
 namespace WaveCheck.Core.Survey;
 
@@ -14,7 +16,8 @@ public static class SurveyRunner
     /// capture. A <see cref="UserInputException"/>, <see cref="IOException"/> or <see cref="UnauthorizedAccessException"/>
     /// from a job becomes that job's error row with the exception's message; any other exception also becomes an
     /// error row, its message prefixed <c>internal error:</c>. Cancellation stops the survey with
-    /// <see cref="OperationCanceledException"/>. <paramref name="run"/> is called from several threads at once.
+    /// <see cref="OperationCanceledException"/>; a failure to write an output (<see cref="OutputWriteException"/>,
+    /// <see cref="OutputPathException"/>) stops it with that exception, unwrapped. <paramref name="run"/> is called from several threads at once.
     /// </remarks>
     /// <param name="jobs">The captures, in the order the rows are wanted.</param>
     /// <param name="run">Analyses, assesses and reports one capture.</param>
@@ -40,11 +43,28 @@ public static class SurveyRunner
             MaxDegreeOfParallelism = maxParallel ?? Environment.ProcessorCount,
             CancellationToken = cancellationToken,
         };
-        Parallel.For(0, jobs.Count, options, i =>
+        try
         {
-            outcomes[i] = RunOne(jobs[i], run, cancellationToken);
-            progress?.Report((Interlocked.Increment(ref done), jobs.Count));
-        });
+            Parallel.For(0, jobs.Count, options, i =>
+            {
+                outcomes[i] = RunOne(jobs[i], run, cancellationToken);
+                progress?.Report((Interlocked.Increment(ref done), jobs.Count));
+            });
+        }
+        catch (AggregateException e)
+        {
+            // One job's output failure or a cancellation stops the survey: rethrow it as itself, not wrapped.
+            var inner = e.Flatten().InnerExceptions;
+            var first = inner.FirstOrDefault(x => x is OutputWriteException or OutputPathException)
+                ?? (inner.All(x => x is OperationCanceledException) ? inner[0] : null);
+            if (first is not null)
+            {
+                ExceptionDispatchInfo.Capture(first).Throw();
+            }
+
+            throw;
+        }
+
         return outcomes;
     }
 
@@ -58,6 +78,12 @@ public static class SurveyRunner
         }
         catch (OperationCanceledException) when (cancellationToken.IsCancellationRequested)
         {
+            throw;
+        }
+        catch (Exception e) when (e is OutputWriteException or OutputPathException)
+        {
+            // Writing an output failed (a full disk, a folder made read-only): not this capture's fault, and every
+            // other capture would fail the same way, so the survey stops and says so.
             throw;
         }
         catch (Exception e) when (e is UserInputException or IOException or UnauthorizedAccessException)

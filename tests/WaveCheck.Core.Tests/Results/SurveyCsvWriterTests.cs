@@ -60,4 +60,44 @@ public class SurveyCsvWriterTests
             Directory.Delete(folder, recursive: true);
         }
     }
+
+    [Theory]
+    [InlineData("=HYPERLINK(\"http://x.invalid\",\"open\")")]
+    [InlineData("@SUM(A1:A9)")]
+    [InlineData("+1+1")]
+    [InlineData("-2+3")]
+    [InlineData("\tC3 tab-led")]
+    [InlineData("\rC4 CR-led")]
+    public void Text_cells_a_spreadsheet_would_run_as_formulas_get_a_leading_quote(string circuit)
+    {
+        // OWASP "CSV Injection": cells beginning with = + - @ tab or CR are prefixed with a single quote.
+        var rows = new[] { new ResultBuilder { RmsA = 0.0042, SmoothDcMaxA = -0.0012 }.Row("=cmd.wav", circuit) };
+        var text = new StringWriter();
+        SurveyCsvWriter.Write(text, rows);
+
+        // Reference: Sylvan.Data.Csv reads the fields back; each text cell begins with the quote, then the text as given.
+        using var reader = CsvDataReader.Create(new StringReader(text.ToString()));
+        Assert.True(reader.Read());
+        Assert.Equal("'" + circuit, reader.GetString(reader.GetOrdinal("circuit")));
+        Assert.Equal("'=cmd.wav", reader.GetString(reader.GetOrdinal("file")));
+        Assert.All(Enumerable.Range(0, reader.FieldCount), i =>
+            Assert.False(reader.GetString(i) is { Length: > 0 } cell && SpreadsheetText.StartsFormula(cell[0]) && !IsNumber(cell),
+                $"cell {reader.GetName(i)} = '{reader.GetString(i)}' starts like a formula"));
+
+        // Numbers stay numbers: a negative figure is not text and keeps its sign.
+        Assert.Equal("-0.0012", reader.GetString(reader.GetOrdinal("smoothDcA")));
+    }
+
+    [Theory]
+    [InlineData("C1 saw", "C1 saw")]
+    [InlineData("", "")]
+    [InlineData("'=already", "'=already")]
+    [InlineData("a=b", "a=b")]
+    [InlineData("=", "'=")]
+    public void Neutralise_prefixes_only_formula_starts(string cell, string expected) =>
+        // OWASP "CSV Injection": only a leading = + - @ tab or CR is dangerous; anything else passes unchanged.
+        Assert.Equal(expected, SpreadsheetText.Neutralise(cell));
+
+    private static bool IsNumber(string cell) =>
+        double.TryParse(cell, System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out _);
 }

@@ -1,4 +1,5 @@
 using WaveCheck.Core.Capture;
+using WaveCheck.Core.Results;
 using WaveCheck.Core.Survey;
 
 namespace WaveCheck.Core.Tests.Survey;
@@ -28,6 +29,17 @@ public class SurveyRunnerTests
         Assert.StartsWith("internal error:", outcomes[3].Row.Error, StringComparison.Ordinal);
         Assert.Contains("window buffer overrun", outcomes[3].Row.Error, StringComparison.Ordinal);
         Assert.Equal("circuit bad.wav", outcomes[1].Row.Circuit);
+    }
+
+    [Fact]
+    public void An_output_failure_stops_the_survey_as_itself_not_as_error_rows()
+    {
+        // A full disk is not the captures' fault: it must not become "none of the captures could be read".
+        var jobs = new[] { Job("a.wav"), Job("b.wav"), Job("c.wav"), Job("d.wav") };
+        var e = Assert.Throws<OutputWriteException>(() => SurveyRunner.Run(jobs, (job, _) => job.File == "c.wav"
+            ? throw new OutputWriteException("out/reports/c.html", "No space left on device")
+            : Ok(job), maxParallel: 2));
+        Assert.Equal("cannot write out/reports/c.html: No space left on device", e.Message);
     }
 
     [Fact]
