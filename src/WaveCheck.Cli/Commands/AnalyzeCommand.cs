@@ -30,6 +30,10 @@ internal static class AnalyzeCommand
         {
             Description = "Keep the --mains frequency even where the capture's own mains content contradicts it (otherwise that stops with an error).",
         };
+        var restBand = new Option<string?>("--rest-band")
+        {
+            Description = "Band above its floor within which the current counts as at rest, for the 150° test of pulsating DC (default 2mA; IEC 61008-1 allows 6 mA).",
+        };
         var alarm = new Option<string?>("--alarm")
         {
             Description = "Record windows whose RMS exceeds this current as alarm events, e.g. 15mA (with --fail-on alarm: exit code 1).",
@@ -47,6 +51,7 @@ internal static class AnalyzeCommand
         assessment.AddTo(command);
         command.Options.Add(mains);
         command.Options.Add(mainsAsGiven);
+        command.Options.Add(restBand);
         command.Options.Add(alarm);
         command.Options.Add(json);
         command.Options.Add(windowsCsv);
@@ -63,6 +68,7 @@ internal static class AnalyzeCommand
                     ? null
                     : Quantity.ParseFrequencyHz("--mains", mainsText),
                 KeepGivenMains = parse.GetValue(mainsAsGiven),
+                RestBandA = parse.GetValue(restBand) is { } rb ? Quantity.ParsePositiveCurrentA("--rest-band", rb, bareUnit: "mA") : WaveformShape.DefaultRestBandA,
                 AlarmA = parse.GetValue(alarm) is { } alarmText ? Quantity.ParseCurrentA("--alarm", alarmText, bareUnit: "mA") : null,
             };
             options.Validate();

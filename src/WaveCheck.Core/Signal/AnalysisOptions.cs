@@ -13,6 +13,11 @@ public sealed record AnalysisOptions
     /// "non-harmonic tone" and misjudges the device type, so the analysis stops with an error instead.</summary>
     public bool KeepGivenMains { get; init; }
 
+    /// <summary>Width of the band above its floor within which a window counts as at rest, amperes (CLI
+    /// <c>--rest-band</c>): pulsating DC rests there for 150° each cycle (<see cref="WaveformShape"/>). Default 2 mA
+    /// (engineering choice; IEC 61008-1's definition allows 6 mA, this is stricter).</summary>
+    public double RestBandA { get; init; } = WaveformShape.DefaultRestBandA;
+
     /// <summary>Window RMS above which an alarm event is recorded, amperes; null for none.</summary>
     public double? AlarmA { get; init; }
 
@@ -55,6 +60,12 @@ public sealed record AnalysisOptions
         {
             throw new OptionValueException("--mains", mains.ToString(System.Globalization.CultureInfo.InvariantCulture),
                 "auto, 50, 60 or a frequency between 1 and 1000 Hz");
+        }
+
+        if (!(RestBandA > 0 && RestBandA <= 1))
+        {
+            throw new OptionValueException("--rest-band", RestBandA.ToString(System.Globalization.CultureInfo.InvariantCulture) + " A",
+                "a current above 0 and up to 1 A, such as 2mA");
         }
 
         if (AlarmA is { } alarm && !(alarm > 0))

@@ -302,7 +302,7 @@ public sealed class CaptureAnalysis
             _flying[i] = new WindowSlot(maxLength);
         }
 
-        _workers = new WindowWorkers(Math.Min(_options.WorkerCount, BatchWindows + 1), _cycles);
+        _workers = new WindowWorkers(Math.Min(_options.WorkerCount, BatchWindows + 1), _cycles, _options.RestBandA);
         _worst = new double[maxLength];
         _windowLength = NextLength();
         _trend = new TrendTable(nominal);

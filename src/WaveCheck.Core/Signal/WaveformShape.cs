@@ -15,13 +15,14 @@ public readonly record struct ShapeFigures(double SmoothDcA, bool PulsatingDc, d
 /// </summary>
 /// <remarks>
 /// <para>Definitions (engineering choices, stated so they can be checked):</para>
-/// <para>Let P2 and P98 be the window's 2nd and 98th percentiles and R = P98 − P2. The <b>floor band</b> is the samples
-/// within <see cref="FloorBandShare"/> (5 %) of R of P2 (or of P98 for negative pulses). A window is <b>pulsating
+/// <para>Let P2 and P98 be the window's 2nd and 98th percentiles. The <b>floor band</b> is the samples within the rest
+/// band W (<see cref="DefaultRestBandA"/>, 2 mA) above P2 (or below P98 for negative pulses). A window is <b>pulsating
 /// DC</b> when, in every mains cycle of the window, its samples rest in one floor band for a single interval of at
-/// least <see cref="MinRestDeg"/> (150°, the IEC 61008-1 definition), short excursions of noise bridged. A sine rests
-/// within 5 % of its range of an extreme for about 52° a cycle, a full-wave (two-pulse) rectified sine for about 12°,
-/// a three- or six-pulse rectified current only at its cusps; a half-wave rests for 180° or more. A current resting
-/// that long at both extremes (a square wave) is bipolar, not pulsating.</para>
+/// least <see cref="MinRestDeg"/> (150°, the IEC 61008-1 definition), short excursions of noise bridged. A half-wave
+/// rests for 180° or more; a two-pulse rectified current of more than 2.3 mA peak rests less than 150° in one piece
+/// (|sin θ| ≤ W/Ipk about each zero), a three- or six-pulse current only when its ripple is within W, and then its
+/// floor is its smooth DC. A current resting that long at both extremes (a square wave, or anything whose whole range
+/// is within W) is not pulsating.</para>
 /// <para><b>Smooth DC</b> of a pulsating window is the median of the floor-band samples (so 30 mA half-wave pulses on
 /// 8 mA give 8 mA, not the mean of 17.5 mA); of any other window (AC with an offset, DC with ripple, pure DC) it is
 /// the mean. A full-wave rectified sine without phase control has no resting floor and so is reported as AC on a
@@ -34,14 +35,34 @@ public readonly record struct ShapeFigures(double SmoothDcA, bool PulsatingDc, d
 /// </remarks>
 public sealed class WaveformShape
 {
-    /// <summary>Floor band width as a share of P98 − P2 (engineering choice, see remarks).</summary>
-    public const double FloorBandShare = 0.05;
+    /// <summary>Default width of the floor band, amperes: 0.002 A (see remarks).</summary>
+    /// <remarks>Engineering choice: twice the 1 mA DC significance, so other current of up to about ±1 mA on the rest
+    /// (a little capacitive leakage, noise) still lets a half-wave read as pulsating DC, while a rectified current from
+    /// several phases, whose ripple is larger, never rests. An absolute width, not a share of the window's range, so
+    /// that adding content to a waveform cannot widen the band and hide what rides on the rest (the verdict stays
+    /// monotone). IEC 61008-1's definition allows up to 6 mA; this is stricter, the safe side.</remarks>
+    public const double DefaultRestBandA = 0.002;
+
+    private readonly double _restBandA;
+
+    /// <summary>Creates the measure with its scratch histograms.</summary>
+    /// <param name="restBandA">Width of the floor band, amperes (&gt; 0).</param>
+    public WaveformShape(double restBandA = DefaultRestBandA)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(restBandA);
+        _restBandA = restBandA;
+    }
 
     /// <summary>Least rest at the floor, in one piece, in every mains cycle for a pulsating window: 150°.</summary>
     /// <remarks>IEC 61008-1 definition of pulsating direct current (a current that in each period of the rated
     /// frequency is zero, or does not exceed 6 mA DC, for a single interval of at least 150°), from memory. A two-,
     /// three- or six-pulse rectified current never rests so long and is not pulsating DC.</remarks>
     public const double MinRestDeg = 150;
+
+    /// <summary>How much longer, in degrees per cycle, the floor side must dwell in its band than the opposite extreme
+    /// does in its own: 30°. Engineering choice: a sine rests equally long at both extremes; a half-wave rests at its
+    /// floor 180° or more and near its peak well under 150°.</summary>
+    public const double RestContrastDeg = 30;
 
     /// <summary>Longest excursion out of the floor band, as a share of the cycle, that still counts as part of one rest
     /// (noise on the floor must not split it): 1 % (3.6°). Engineering choice.</summary>
@@ -133,21 +154,24 @@ public sealed class WaveformShape
             return new ShapeFigures(meanA, false, null);
         }
 
-        var lowLimit = p2 + (FloorBandShare * spread);
-        var highLimit = p98 - (FloorBandShare * spread);
+        var lowLimit = p2 + _restBandA;
+        var highLimit = p98 - _restBandA;
         var dwellLow = CountBelow(lowLimit, minA, scale) / (double)n;
         var dwellHigh = (n - CountBelow(highLimit, minA, scale)) / (double)n;
 
         // Pulsating DC rests at its floor for a single interval of at least 150° in each cycle (IEC 61008-1
         // definition): a floor side holding less than that share of the samples cannot qualify. A current that rests
         // that long at both extremes (a square wave) is bipolar AC, not pulsating DC.
+        // The floor side must also hold clearly more than the other (by RestContrastDeg): a sine whose peak is near
+        // the band width rests about equally long at both extremes, and noise must not pick one of them as a floor.
         var restShare = MinRestDeg / 360.0;
+        var contrast = RestContrastDeg / 360.0;
         bool positive;
-        if (dwellLow >= restShare && dwellHigh < restShare)
+        if (dwellLow >= restShare && dwellHigh < restShare && dwellLow - dwellHigh >= contrast)
         {
             positive = true;
         }
-        else if (dwellHigh >= restShare && dwellLow < restShare)
+        else if (dwellHigh >= restShare && dwellLow < restShare && dwellHigh - dwellLow >= contrast)
         {
             positive = false;
         }

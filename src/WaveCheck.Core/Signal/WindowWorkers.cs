@@ -56,13 +56,13 @@ internal sealed class WindowWorkers
 
     /// <summary>Creates the tools of <paramref name="workers"/> participants: the caller and workers − 1 threads
     /// (1: all the work runs on the calling thread in <see cref="Start"/>).</summary>
-    public WindowWorkers(int workers, int cycles)
+    public WindowWorkers(int workers, int cycles, double restBandA = WaveformShape.DefaultRestBandA)
     {
         _cycles = cycles;
         _tools = new (SpectrumPlans, WaveformShape)[workers];
         for (var i = 0; i < workers; i++)
         {
-            _tools[i] = (new SpectrumPlans(), new WaveformShape());
+            _tools[i] = (new SpectrumPlans(), new WaveformShape(restBandA));
         }
 
         _tasks = new Task[workers - 1];

@@ -82,6 +82,21 @@ public class RequiredTypeTests
     }
 
     [Fact]
+    public void A_larger_half_wave_added_to_a_dimmer_with_leakage_does_not_lower_the_verdict()
+    {
+        // Shrunk counterexample of the adding property (VerdictPropertyTests): a 10.2 mA half-wave at 45° with
+        // 0.66 mA of mains leakage read B (a relative rest band was too narrow for the leakage's ripple), and adding
+        // a 25.6 mA half-wave at 90° widened the band and read A. The rest band is now absolute (2 mA, engineering
+        // choice), so ±0.93 mA of leakage on the rest is at rest either way: pulsating DC, type A, both times
+        // (IEC 61008-1 definition, from memory).
+        List<WaveformComponent> dimmer = [new SineComponent(0.000661, 50, 0), new HalfWaveComponent(0.010204, 50, 45)];
+        var before = Evaluate(dimmer);
+        var after = Evaluate([.. dimmer, new HalfWaveComponent(0.025641, 50, 90)]);
+        Assert.Equal("A", before.Assessment.RequiredType);
+        Assert.Equal("A", after.Assessment.RequiredType);
+    }
+
+    [Fact]
     public void Type_f_composite_test_current_is_type_f()
     {
         // IEC 62423: type F's composite test current, 10 Hz + 50 Hz + 1 kHz; its 1 kHz part is credited to F.

@@ -127,14 +127,14 @@ public class WaveformShapeTests
     public void RestOfOneHundredFiftyDegreesDecides(double restDeg, bool pulsating)
     {
         // IEC 61008-1 definition (from memory): at rest for a single interval of at least 150° each cycle. A pulse
-        // that steps to 5 mA and rounds to 10 mA (a half-sine on a step, so no flat top to mistake for a floor)
+        // that steps to 5 mA and rounds to 20 mA (a half-sine on a step, so no flat top to mistake for a floor)
         // lasting 360° − rest, resting at zero for the rest: 148° fails, 152° passes (1000 samples per cycle: 0.36°
         // per sample).
         var conductDeg = 360 - restDeg;
         var (shape, _) = Measure(t =>
         {
             var deg = t * F % 1 * 360;
-            return deg < conductDeg ? 0.005 * (1 + Math.Sin(Math.PI * deg / conductDeg)) : 0;
+            return deg < conductDeg ? 0.005 + (0.015 * Math.Sin(Math.PI * deg / conductDeg)) : 0;
         });
         Assert.Equal(pulsating, shape.PulsatingDc);
     }
