@@ -60,7 +60,18 @@ public static class CaptureLimits
     public static string? RateProblem(double rateHz) =>
         rateHz is >= MinSampleRateHz and <= MaxSampleRateHz
             ? null
-            : $"sample rate {Text(rateHz)} Hz is outside {Text(MinSampleRateHz)} Hz to {Text(MaxSampleRateHz)} Hz (10 MS/s)";
+            : $"sample rate {Hz(rateHz)} is outside {RateRange}";
+
+    /// <summary>The accepted sample rates, for messages: <c>1 Hz to 10 MHz</c>.</summary>
+    public static string RateRange => $"{Hz(MinSampleRateHz)} to {Hz(MaxSampleRateHz)}";
+
+    /// <summary>A frequency for a message, with a prefix: <c>50 Hz</c>, <c>20 kHz</c>, <c>1E+15 Hz</c>.</summary>
+    public static string Hz(double hz) => Math.Abs(hz) switch
+    {
+        >= 1e3 and < 1e6 => Text(hz / 1e3) + " kHz",
+        >= 1e6 and < 1e9 => Text(hz / 1e6) + " MHz",
+        _ => Text(hz) + " Hz",
+    };
 
     /// <summary>The problem with a scale factor (its magnitude), or null when it is finite, non-zero and within the bounds.</summary>
     /// <param name="what">What the factor is, for the message, e.g. <c>full scale</c>.</param>

@@ -199,7 +199,7 @@ public sealed class CaptureAnalysis
         {
             // A verdict from no window at all would read as "type AC sufficient" on a capture that says nothing.
             throw new CaptureFormatException(_info.FilePath, string.Create(CultureInfo.InvariantCulture,
-                $"the capture holds {_count} samples ({_count / _fs:0.######} s at {_fs:G6} Hz): too short to analyse; one window needs {_windowLength} samples ({_windowLength / _fs:0.###} s, {_cycles} cycles of {_mains.NominalHz:0.##} Hz)"));
+                $"the capture holds {_count} sample{(_count == 1 ? "" : "s")} ({_count / _fs:0.######} s at {_fs:G6} Hz): too short to analyse; one window needs {_windowLength} samples ({_windowLength / _fs:0.###} s, {_cycles} cycles of {_mains.NominalHz:0.##} Hz)"));
         }
 
         var tail = partial.Samples.AsSpan(0, _windowFill);
