@@ -91,6 +91,31 @@ public static class CaptureLimits
             : $"{what} {Text(value)}{u} is outside ±{Text(MinScaleFactor)} to ±{Text(MaxScaleFactor)}{u}";
     }
 
+    /// <summary>What an import setting must be when its value is out of bounds, or null when it is fine.</summary>
+    /// <param name="key">The setting without dashes: <c>scale</c> (A), <c>sensitivity</c> (V/A), <c>range</c> (V)
+    /// or <c>rate</c> (Hz).</param>
+    /// <param name="value">The value in SI units.</param>
+    /// <returns>The form expected, e.g. <c>a current from 1E-12 A to 1E+09 A</c>.</returns>
+    public static string? SettingProblem(string key, double value)
+    {
+        var (unit, noun) = key switch
+        {
+            "scale" => ("A", "a full-scale current"),
+            "sensitivity" => ("V/A", "a sensitivity"),
+            "range" => ("V", "an input range"),
+            "rate" => ("Hz", "a sample rate"),
+            _ => throw new ArgumentOutOfRangeException(nameof(key), key, "scale, sensitivity, range or rate"),
+        };
+        if (key == "rate")
+        {
+            return RateProblem(value) is null ? null : $"{noun} from {RateRange}";
+        }
+
+        return value > 0 && ScaleProblem(key, value, unit) is null
+            ? null
+            : $"{noun} from {Text(MinScaleFactor)} {unit} to {Text(MaxScaleFactor)} {unit}";
+    }
+
     /// <summary>Index of the first value that is not finite or whose magnitude exceeds <see cref="MaxSampleMagnitude"/>;
     /// -1 when all are good. Vectorised: one compare per vector, so it costs little beside the decoding.</summary>
     /// <param name="values">Calibrated samples.</param>

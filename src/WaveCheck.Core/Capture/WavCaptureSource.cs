@@ -51,6 +51,7 @@ public sealed class WavCaptureSource : ICaptureSource
     {
         ArgumentNullException.ThrowIfNull(path);
         ArgumentNullException.ThrowIfNull(options);
+        options.Validate();
         _path = path;
         _stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
         try
@@ -397,10 +398,6 @@ public sealed class WavCaptureSource : ICaptureSource
             : null;
         if (options.ScaleA is { } scale)
         {
-            if (CaptureLimits.ScaleProblem("--scale", scale, "A") is { } scaleProblem)
-            {
-                throw new OptionValueException("--scale", Text(scale) + " A", $"a full scale from {Text(CaptureLimits.MinScaleFactor)} A to {Text(CaptureLimits.MaxScaleFactor)} A ({scaleProblem})");
-            }
 
             var source = string.Create(CultureInfo.InvariantCulture, $"--scale {scale:G6} A full scale");
             return new Calibration(scale, 0, fromFile is null ? source : $"{source} (overrides the file's {fromFile})");
@@ -435,8 +432,6 @@ public sealed class WavCaptureSource : ICaptureSource
         throw new CaptureFormatException(path,
             "WAV samples are fractions of full scale and the file states no scale: give --scale (amperes at full scale) or --sensitivity with --range");
     }
-
-    private static string Text(double value) => value.ToString("G6", CultureInfo.InvariantCulture);
 
     /// <summary>Where the RIFF chunks lie, walked by hand so that problems carry a byte offset.</summary>
     private sealed record RiffLayout(long FormatOffset, int FormatBytes, long DataOffset, long DataClaimedBytes,
