@@ -456,6 +456,7 @@ public sealed class WavCaptureSource : ICaptureSource
             }
 
             var length = stream.Length;
+            var riffSize = BinaryPrimitives.ReadUInt32LittleEndian(header[4..]);
             long? fmt = null;
             var fmtBytes = 0;
             long? data = null;
@@ -540,6 +541,15 @@ public sealed class WavCaptureSource : ICaptureSource
             if (data is null)
             {
                 throw new CaptureFormatException(path, "WAV file has no 'data' chunk", byteOffset: length);
+            }
+
+            // A RIFF size past the end of the file is a recording cut short (read as far as it goes); one that ends
+            // before the chunks' headers leaves them outside the file's own account of itself.
+            if (riffSize + 8L < Math.Max(fmt.Value + 8, data.Value))
+            {
+                throw new CaptureFormatException(path, string.Create(CultureInfo.InvariantCulture,
+                    $"RIFF size {riffSize} ends the file at byte {riffSize + 8L}, before the '{(fmt.Value + 8 > data.Value ? "fmt " : "data")}' chunk at byte {Math.Max(fmt.Value, data.Value - 8)}"),
+                    byteOffset: 4);
             }
 
             return new RiffLayout(fmt.Value, fmtBytes, data.Value, dataBytes, own, ownLength);
