@@ -72,6 +72,24 @@ internal static class BadInputCorpus
             s.FmtSize = 40;
             s.FmtExtra = [22, 0, 32, 0, 4, 0, 0, 0, .. new byte[16]];
         }, _ => [Byte(20 + 24), "sub-format"]);
+        yield return WavCase("wav-extensible-cbsize", Bad, s =>
+        {
+            s.Tag = 0xFFFE;
+            s.FmtSize = 40;
+            s.FmtExtra = [2, 0, 32, 0, 4, 0, 0, 0, .. new Guid("00000003-0000-0010-8000-00aa00389b71").ToByteArray()];
+        }, _ => [Byte(20 + 16), "extension size 2"]);
+        yield return WavCase("wav-extensible-valid-bits", Bad, s =>
+        {
+            s.Tag = 0xFFFE;
+            s.FmtSize = 40;
+            s.FmtExtra = [22, 0, 48, 0, 4, 0, 0, 0, .. new Guid("00000003-0000-0010-8000-00aa00389b71").ToByteArray()];
+        }, _ => [Byte(20 + 18), "48 valid bits"]);
+        yield return WavCase("wav-extensible-float", Ok, s =>
+        {
+            s.Tag = 0xFFFE;
+            s.FmtSize = 40;
+            s.FmtExtra = [22, 0, 32, 0, 4, 0, 0, 0, .. new Guid("00000003-0000-0010-8000-00aa00389b71").ToByteArray()];
+        }, _ => []);
         yield return WavCase("wav-second-fmt", Bad, s => s.After = [.. "fmt "u8, 16, 0, 0, 0, .. new byte[16]],
             s => [Byte(s.DataOffset + 8 + (InputFiles.Samples * 4)), "second 'fmt '"]);
 

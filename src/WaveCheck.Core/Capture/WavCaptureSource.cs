@@ -614,6 +614,20 @@ public sealed class WavCaptureSource : ICaptureSource
                         $"the 'fmt ' chunk of a WAVE_FORMAT_EXTENSIBLE file is {chunkBytes} bytes: expected at least 40", byteOffset: chunkOffset + 4);
                 }
 
+                var extraSize = BinaryPrimitives.ReadUInt16LittleEndian(f[16..]);
+                if (extraSize < 22)
+                {
+                    throw new CaptureFormatException(path,
+                        $"fmt chunk: extension size {extraSize} bytes: WAVE_FORMAT_EXTENSIBLE needs 22", byteOffset: at + 16);
+                }
+
+                var validBits = BinaryPrimitives.ReadUInt16LittleEndian(f[18..]);
+                if (validBits > bits)
+                {
+                    throw new CaptureFormatException(path,
+                        $"fmt chunk: {validBits} valid bits in a {bits}-bit sample", byteOffset: at + 18);
+                }
+
                 // The SubFormat GUID sits 24 bytes into the fmt data; its first two bytes are the plain format tag.
                 var subFormat = new Guid(f.Slice(24, 16));
                 effective = subFormat == PcmSubFormat ? TagPcm : subFormat == FloatSubFormat ? TagFloat : (ushort)0;
