@@ -92,9 +92,12 @@ internal sealed class ImportOptionSet
             throw new OptionValueException("--range", rangeText!, "a positive voltage");
         }
 
-        if (rate is <= 0)
+        foreach (var (key, value, text) in new[] { ("scale", scale, scaleText), ("sensitivity", sensitivity, sensitivityText), ("range", range, rangeText), ("rate", rate, rateText) })
         {
-            throw new OptionValueException("--rate", rateText!, "a positive frequency");
+            if (value is { } v && CaptureLimits.SettingProblem(key, v) is { } expected)
+            {
+                throw new OptionValueException("--" + key, text!, expected);
+            }
         }
 
         if (channel is not null && sumText is not null)

@@ -124,9 +124,11 @@ public sealed record AssessmentOptions
 
         if ((PossibleRiskFraction ?? Limits.PossibleRiskFraction) > (LikelyRiskFraction ?? Limits.LikelyRiskFraction))
         {
-            throw new OptionValueException("--risk-possible",
-                Text(PossibleRiskFraction ?? Limits.PossibleRiskFraction),
-                $"a fraction of IΔn no greater than the 'likely' boundary {Text(LikelyRiskFraction ?? Limits.LikelyRiskFraction)}");
+            throw PossibleRiskFraction is null
+                ? new OptionValueException("--risk-likely", Text(LikelyRiskFraction!.Value),
+                    $"a fraction of IΔn no smaller than the 'possible' boundary {Text(Limits.PossibleRiskFraction)}")
+                : new OptionValueException("--risk-possible", Text(PossibleRiskFraction.Value),
+                    $"a fraction of IΔn no greater than the 'likely' boundary {Text(LikelyRiskFraction ?? Limits.LikelyRiskFraction)}");
         }
     }
 

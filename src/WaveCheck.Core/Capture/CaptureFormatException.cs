@@ -67,6 +67,7 @@ public sealed class CaptureFormatException : UserInputException
             extra.Add($"sample {sample}");
         }
 
-        return extra.Count == 0 ? $"{place}: {problem}" : $"{place}: {string.Join(", ", extra)}: {problem}";
+        // One line whatever the file name or a quoted cell holds: control characters are shown escaped.
+        return ShownText.Escape(extra.Count == 0 ? $"{place}: {problem}" : $"{place}: {string.Join(", ", extra)}: {problem}");
     }
 }

@@ -8,10 +8,12 @@ public static class CaptureOpener
     /// <param name="options">Calibration, channel choice, sensor coupling.</param>
     /// <returns>A source positioned at the first sample; the caller disposes it.</returns>
     /// <exception cref="CaptureFormatException">Missing, empty, a directory, unknown format, or malformed at a stated place.</exception>
+    /// <exception cref="OptionValueException">An option is out of the bounds of <see cref="CaptureLimits"/>.</exception>
     public static ICaptureSource Open(string path, ImportOptions options)
     {
         ArgumentNullException.ThrowIfNull(path);
         ArgumentNullException.ThrowIfNull(options);
+        options.Validate();
         if (Directory.Exists(path))
         {
             throw new CaptureFormatException(path, "is a directory, not a capture file");

@@ -16,8 +16,11 @@ namespace WaveCheck.Core.Capture;
 /// </remarks>
 public sealed class CsvCaptureSource : ICaptureSource
 {
-    /// <summary>Lines read up front to find the dialect, header and rate.</summary>
+    /// <summary>Lines read up front (after any leading comment lines) to find the dialect, header and rate.</summary>
     private const int PrescanLines = 400;
+
+    /// <summary>Characters read up front at most, whatever the line count (bounds the memory of the first pass).</summary>
+    private const int PrescanChars = 4 << 20;
 
     /// <summary>Engineering choice: a step longer than 1.5 median steps is a gap (at least one sample missing would be 2×).</summary>
     private const double GapFactor = 1.5;
@@ -35,6 +38,9 @@ public sealed class CsvCaptureSource : ICaptureSource
     private readonly CsvColumn? _time;
     private readonly CsvColumn[] _dataColumns;
     private readonly int _fieldCount;
+    private readonly int[] _ignoredColumns;
+    private long[] _rowLines = [];
+    private long _commentLines;
     private readonly long _headerLine;
     private readonly ChannelSelection _selection;
     private readonly double[] _toAmperes;
@@ -73,6 +79,11 @@ public sealed class CsvCaptureSource : ICaptureSource
             : NumberFormatInfo.InvariantInfo;
         _headerLine = dialect.HeaderLine;
         _fieldCount = dialect.Header.Length;
+        if (_fieldCount > CaptureLimits.MaxCsvColumns)
+        {
+            throw new CaptureFormatException(path,
+                $"the header has {_fieldCount} columns: at most {CaptureLimits.MaxCsvColumns} are read", _headerLine, 1);
+        }
 
         var columns = new List<CsvColumn>(dialect.Header.Length);
         var ignored = new List<string>();
@@ -104,7 +115,15 @@ public sealed class CsvCaptureSource : ICaptureSource
                 $"Columns without a current, voltage or time unit were skipped: {string.Join(", ", ignored)}."));
         }
 
+        if (columns.Count > CaptureLimits.MaxChannels)
+        {
+            throw new CaptureFormatException(path,
+                $"the header has {columns.Count} current and voltage columns: at most {CaptureLimits.MaxChannels} channels are read",
+                _headerLine, columns[CaptureLimits.MaxChannels].FileColumn);
+        }
+
         _dataColumns = [.. columns];
+        _ignoredColumns = [.. Enumerable.Range(1, _fieldCount).Where(c => c != _time?.FileColumn && !columns.Any(d => d.FileColumn == c))];
         var channels = new ChannelInfo[_dataColumns.Length];
         var currents = new List<int>();
         var voltages = new List<int>();
@@ -154,10 +173,15 @@ public sealed class CsvCaptureSource : ICaptureSource
                 "--scale and --range apply to WAV full scale; a CSV states its units in the header, so they were not used."));
         }
 
-        _medianStepS = MedianStep(dialect, path);
+        if (options.RateHz is { } givenRate && CaptureLimits.RateProblem(givenRate) is { } givenProblem)
+        {
+            throw new OptionValueException("--rate", CaptureLimits.Hz(givenRate), $"a sample rate from {CaptureLimits.RateRange} ({givenProblem})");
+        }
+
+        _medianStepS = MedianStep(dialect, path, options.RateHz is not null);
         double rateHz;
         double? measuredHz = null;
-        if (_time is not null)
+        if (_time is not null && !double.IsNaN(_medianStepS))
         {
             measuredHz = 1.0 / _medianStepS;
             rateHz = options.RateHz ?? measuredHz.Value;
@@ -196,9 +220,9 @@ public sealed class CsvCaptureSource : ICaptureSource
         };
 
         _text = new StreamReader(path, detectEncodingFromByteOrderMarks: true);
-        for (var line = 1; line <= _headerLine; line++)
+        var skip = new BoundedLineReader(_text, path);
+        while (skip.LineNumber < _headerLine && skip.TryRead(out _))
         {
-            _text.ReadLine();
         }
 
         _csv = CsvDataReader.Create(_text, new CsvDataReaderOptions
@@ -207,6 +231,10 @@ public sealed class CsvCaptureSource : ICaptureSource
             Delimiter = dialect.Delimiter,
             OwnsReader = false,
             BufferSize = 1 << 16,
+            // A record may grow to the line limit; beyond it (a huge cell, or a quote never closed) it is refused.
+            MaxBufferSize = CaptureLimits.MaxLineLength,
+            // Comment lines are skipped by the parser; counted here so that line numbers stay those of the file.
+            CommentHandler = (Action<string>)(_ => _commentLines++),
         });
     }
 
@@ -224,16 +252,21 @@ public sealed class CsvCaptureSource : ICaptureSource
     {
         ArgumentNullException.ThrowIfNull(block);
         block.StartSample = _row;
+        if (_rowLines.Length < block.Capacity)
+        {
+            _rowLines = new long[block.Capacity];
+        }
+
         var n = 0;
         while (n < block.Capacity && !_finished)
         {
-            if (!_csv.Read())
+            if (!NextRecord())
             {
                 Finish();
                 break;
             }
 
-            var line = _headerLine + _csv.RowNumber;
+            var line = _headerLine + _commentLines + _csv.RowNumber;
             var fields = _csv.RowFieldCount;
             if (fields <= 1 && _csv.GetFieldSpan(0).IsWhiteSpace())
             {
@@ -245,6 +278,7 @@ public sealed class CsvCaptureSource : ICaptureSource
                 throw new CaptureFormatException(_path, $"row has {fields} fields, the header has {_fieldCount}", line, fields + 1);
             }
 
+            CheckOneLine(line, fields);
             if (_time is not null)
             {
                 Step(line);
@@ -253,9 +287,17 @@ public sealed class CsvCaptureSource : ICaptureSource
             for (var c = 0; c < _dataColumns.Length; c++)
             {
                 var column = _dataColumns[c];
-                block.ChannelBuffer(c)[n] = ParseNumber(column.FileColumn, line) * column.Factor;
+                var value = ParseNumber(column.FileColumn, line) * column.Factor;
+                if (!(Math.Abs(value) <= CaptureLimits.MaxSampleMagnitude))
+                {
+                    throw new CaptureFormatException(_path, CaptureLimits.SampleProblem(column.Name, value,
+                        _row / Info.SampleRateHz, column.Kind == CsvColumnKind.Voltage ? "V" : "A"), line, column.FileColumn);
+                }
+
+                block.ChannelBuffer(c)[n] = value;
             }
 
+            _rowLines[n] = line;
             n++;
             _row++;
         }
@@ -263,6 +305,13 @@ public sealed class CsvCaptureSource : ICaptureSource
         if (n > 0)
         {
             _selection.FormResidual(block, n, _toAmperes);
+            var bad = CaptureLimits.IndexOfInvalid(block.ResidualBuffer[..n]);
+            if (bad >= 0)
+            {
+                // Only a voltage divided by a tiny sensitivity gets here: every column was checked above.
+                throw new CaptureFormatException(_path, CaptureLimits.SampleProblem($"residual ({Info.ResidualSource})",
+                    block.ResidualBuffer[bad], (block.StartSample + bad) / Info.SampleRateHz, "A"), _rowLines[bad], 1);
+            }
         }
 
         block.Length = n;
@@ -276,16 +325,68 @@ public sealed class CsvCaptureSource : ICaptureSource
         _text.Dispose();
     }
 
+    /// <summary>The next record from the parser, its faults turned into placed messages.</summary>
+    private bool NextRecord()
+    {
+        try
+        {
+            return _csv.Read();
+        }
+        catch (CsvFormatException e)
+        {
+            // The record that failed starts on the line after the last one read (comment lines counted).
+            var line = _headerLine + _commentLines + e.RowNumber;
+            var problem = e is CsvRecordTooLargeException
+                ? string.Create(CultureInfo.InvariantCulture,
+                    $"the row is longer than {CaptureLimits.MaxLineLength} characters (1 MiB), the limit for a line of a capture; a quote opened and never closed also makes a row run on")
+                : e is CsvInvalidCharacterException { InvalidCharacter: '"' } || e.Message.Contains("quote", StringComparison.OrdinalIgnoreCase)
+                    ? "a quoted field is not closed before the end of the file: unbalanced quote"
+                    : $"the row cannot be read as delimited text: {e.Message}";
+            throw new CaptureFormatException(_path, problem, line, e.FieldOrdinal + 1);
+        }
+    }
+
+    /// <summary>A record must be one line: a quoted line break would shift every line number after it. Parsed cells
+    /// fail as numbers anyway; the others are looked at here.</summary>
+    private void CheckOneLine(long line, int fields)
+    {
+        foreach (var c in _ignoredColumns)
+        {
+            RefuseLineBreak(c, line);
+        }
+
+        for (var c = _fieldCount + 1; c <= fields; c++)
+        {
+            RefuseLineBreak(c, line);
+        }
+    }
+
+    private void RefuseLineBreak(int fileColumn, long line)
+    {
+        var cell = _csv.GetFieldSpan(fileColumn - 1);
+        if (cell.IndexOfAny('\n', '\r') >= 0)
+        {
+            throw new CaptureFormatException(_path,
+                $"quoted field '{ShownText.Of(cell)}' holds a line break: a capture row must be one line", line, fileColumn);
+        }
+    }
+
     private double ParseNumber(int fileColumn, long line)
     {
         var cell = _csv.GetFieldSpan(fileColumn - 1).Trim();
-        if (double.TryParse(cell, NumberStyles.Float, _number, out var value) && double.IsFinite(value))
+        if (double.TryParse(cell, NumberStyles.Float, _number, out var value))
         {
-            return value;
+            if (double.IsFinite(value))
+            {
+                return value;
+            }
+
+            throw new CaptureFormatException(_path,
+                $"'{ShownText.Of(cell)}' is not a finite number: NaN and infinities are not measurements", line, fileColumn);
         }
 
         throw new CaptureFormatException(_path,
-            cell.IsEmpty ? "empty cell: expected a number" : $"'{cell}' is not a number{(_number.NumberDecimalSeparator == "," ? " (decimal comma expected)" : "")}",
+            cell.IsEmpty ? "empty cell: expected a number" : $"'{ShownText.Of(cell)}' is not a number{(_number.NumberDecimalSeparator == "," ? " (decimal comma expected)" : "")}",
             line, fileColumn);
     }
 
@@ -298,7 +399,7 @@ public sealed class CsvCaptureSource : ICaptureSource
             if (!DateTimeOffset.TryParse(cell, CultureInfo.InvariantCulture,
                     DateTimeStyles.AssumeUniversal | DateTimeStyles.AllowWhiteSpaces, out var stamp))
             {
-                throw new CaptureFormatException(_path, $"'{cell}' is not an ISO 8601 time stamp", line, _time.FileColumn);
+                throw new CaptureFormatException(_path, $"'{ShownText.Of(cell)}' is not an ISO 8601 time stamp", line, _time.FileColumn);
             }
 
             if (_row == 0)
@@ -402,11 +503,23 @@ public sealed class CsvCaptureSource : ICaptureSource
         Info = Info with { SampleCount = _row, SampleCountExact = true, MeasuredSampleRateHz = measured };
     }
 
-    private static double MedianStep(Dialect dialect, string path)
+    private static double MedianStep(Dialect dialect, string path, bool rateGiven)
     {
-        if (dialect.TimeValues.Count < 2)
+        if (dialect.TimeColumn < 0)
         {
             return double.NaN;
+        }
+
+        if (dialect.TimeValues.Count < 2)
+        {
+            if (rateGiven)
+            {
+                return double.NaN;
+            }
+
+            throw new CaptureFormatException(path,
+                "only one data row: the sample rate needs at least two time values (or give --rate)",
+                dialect.FirstDataLine, dialect.TimeColumn + 1);
         }
 
         var steps = new double[dialect.TimeValues.Count - 1];
@@ -420,7 +533,14 @@ public sealed class CsvCaptureSource : ICaptureSource
         if (!(median > 0))
         {
             throw new CaptureFormatException(path, "the time column does not increase: the median step is not positive",
-                dialect.HeaderLine + 1, dialect.TimeColumn + 1);
+                dialect.FirstDataLine, dialect.TimeColumn + 1);
+        }
+
+        if (!rateGiven && CaptureLimits.RateProblem(1 / median) is { } problem)
+        {
+            throw new CaptureFormatException(path, string.Create(CultureInfo.InvariantCulture,
+                $"the time column's median step is {median:G6} s: {problem}; check the time unit in the header, or give --rate"),
+                dialect.FirstDataLine, dialect.TimeColumn + 1);
         }
 
         return median;
@@ -441,6 +561,9 @@ public sealed class CsvCaptureSource : ICaptureSource
 
         public long HeaderLine { get; private init; }
 
+        /// <summary>1-based line of the first data row.</summary>
+        public long FirstDataLine { get; private init; }
+
         public string[] Header { get; private init; } = [];
 
         public string[]? FirstRow { get; private init; }
@@ -459,19 +582,41 @@ public sealed class CsvCaptureSource : ICaptureSource
 
         public static Dialect Detect(string path)
         {
+            // Leading comment and blank lines are counted, not kept: a preamble of any length is passed over with
+            // bounded memory. From the first other line, up to PrescanLines lines are kept. lines[i] is line first + i.
             var lines = new List<string>(PrescanLines);
+            long first;
             bool reachedEnd;
             using (var reader = new StreamReader(path, detectEncodingFromByteOrderMarks: true))
             {
-                string? line;
-                while (lines.Count < PrescanLines && (line = reader.ReadLine()) is not null)
+                var source = new BoundedLineReader(reader, path);
+                string line;
+                long leading = 0;
+                while (source.TryRead(out line) && IsCommentOrBlank(line))
                 {
-                    lines.Add(line);
+                    leading++;
                 }
 
-                reachedEnd = reader.ReadLine() is null;
+                if (source.LineNumber == leading)
+                {
+                    throw new CaptureFormatException(path, leading == 0
+                        ? "empty file: no header and no data"
+                        : $"no header: the file holds only {leading} comment or blank lines", Math.Max(1, leading), 1);
+                }
+
+                first = leading + 1;
+                lines.Add(line);
+                long chars = line.Length;
+                while (lines.Count < PrescanLines && chars < PrescanChars && source.TryRead(out line))
+                {
+                    lines.Add(line);
+                    chars += line.Length;
+                }
+
+                reachedEnd = !source.TryRead(out _);
             }
 
+            long LineOf(int i) => first + i;
             var content = new List<int>();
             for (var i = 0; i < lines.Count; i++)
             {
@@ -479,11 +624,6 @@ public sealed class CsvCaptureSource : ICaptureSource
                 {
                     content.Add(i);
                 }
-            }
-
-            if (content.Count == 0)
-            {
-                throw new CaptureFormatException(path, "empty file: no header and no data", lines.Count == 0 ? 1 : lines.Count, 1);
             }
 
             var (delimiter, fieldCount) = ChooseDelimiter(lines, content);
@@ -500,14 +640,24 @@ public sealed class CsvCaptureSource : ICaptureSource
                 if (LooksLikeData(fields, delimiter != ',', out _))
                 {
                     throw new CaptureFormatException(path,
-                        "no header line: expected column names with units before the data, e.g. 'time [s],I [mA]'", i + 1, 1);
+                        "no header line: expected column names with units before the data, e.g. 'time [s],I [mA]'", LineOf(i), 1);
                 }
             }
 
             if (headerIndex < 0)
             {
                 throw new CaptureFormatException(path,
-                    $"no header line with {fieldCount} fields (delimiter {DelimiterName(delimiter)}) found", content[0] + 1, 1);
+                    $"no header line with {fieldCount} fields (delimiter {DelimiterName(delimiter)}) found", LineOf(content[0]), 1);
+            }
+
+            for (var i = headerIndex; i < lines.Count; i++)
+            {
+                if (UnclosedQuoteColumn(lines[i], delimiter) is { } column)
+                {
+                    throw new CaptureFormatException(path,
+                        "unbalanced quote: the field opens a quote that the line does not close (a capture row must be one line)",
+                        LineOf(i), column);
+                }
             }
 
             var header = Split(lines[headerIndex], delimiter);
@@ -525,10 +675,10 @@ public sealed class CsvCaptureSource : ICaptureSource
             {
                 if (reachedEnd)
                 {
-                    throw new CaptureFormatException(path, "the header is followed by no data rows", headerIndex + 2, 1);
+                    throw new CaptureFormatException(path, "the header is followed by no data rows", LineOf(headerIndex) + 1, 1);
                 }
 
-                throw new CaptureFormatException(path, $"no data row within the first {PrescanLines} lines", headerIndex + 2, 1);
+                throw new CaptureFormatException(path, $"no data row within the first {lines.Count} lines after line {first - 1}", LineOf(headerIndex) + 1, 1);
             }
 
             var decimalComma = false;
@@ -559,25 +709,52 @@ public sealed class CsvCaptureSource : ICaptureSource
             if (firstRow!.Length < header.Length)
             {
                 throw new CaptureFormatException(path,
-                    $"row has {firstRow.Length} fields, the header has {header.Length}", firstData + 1, firstRow.Length + 1);
+                    $"row has {firstRow.Length} fields, the header has {header.Length}", LineOf(firstData), firstRow.Length + 1);
             }
 
             var dialect = new Dialect
             {
                 Delimiter = delimiter,
                 DecimalComma = decimalComma,
-                HeaderLine = headerIndex + 1,
+                HeaderLine = LineOf(headerIndex),
+                FirstDataLine = LineOf(firstData),
                 Header = header,
                 FirstRow = firstRow,
                 DataRows = dataRows,
                 ReachedEnd = reachedEnd,
                 BytesPerDataRow = dataRows > 0 ? dataChars / (double)dataRows : 1,
             };
-            dialect.CollectTimes(lines, firstData, path);
+            if (header.Length <= CaptureLimits.MaxCsvColumns)
+            {
+                dialect.CollectTimes(lines, firstData, path, first);
+            }
+
             return dialect;
         }
 
-        private void CollectTimes(List<string> lines, int firstData, string path)
+        /// <summary>1-based field of a quote the line opens and never closes; null when every quote is closed.</summary>
+        private static int? UnclosedQuoteColumn(string line, char delimiter)
+        {
+            var quoted = false;
+            var field = 1;
+            var openedIn = 0;
+            foreach (var c in line)
+            {
+                if (c == '"')
+                {
+                    quoted = !quoted;
+                    openedIn = field;
+                }
+                else if (c == delimiter && !quoted)
+                {
+                    field++;
+                }
+            }
+
+            return quoted ? openedIn : null;
+        }
+
+        private void CollectTimes(List<string> lines, int firstData, string path, long first)
         {
             for (var c = 0; c < Header.Length; c++)
             {
@@ -608,19 +785,19 @@ public sealed class CsvCaptureSource : ICaptureSource
                         if (!DateTimeOffset.TryParse(fields[c], CultureInfo.InvariantCulture,
                                 DateTimeStyles.AssumeUniversal | DateTimeStyles.AllowWhiteSpaces, out var stamp))
                         {
-                            throw new CaptureFormatException(path, $"'{fields[c]}' is not an ISO 8601 time stamp", i + 1, c + 1);
+                            throw new CaptureFormatException(path, $"'{ShownText.Of(fields[c])}' is not an ISO 8601 time stamp", first + i, c + 1);
                         }
 
                         origin ??= stamp;
                         TimeValues.Add((stamp - origin.Value).TotalSeconds);
                     }
-                    else if (double.TryParse(fields[c], NumberStyles.Float, number, out var t))
+                    else if (double.TryParse(fields[c], NumberStyles.Float, number, out var t) && double.IsFinite(t))
                     {
                         TimeValues.Add(t * column.Factor);
                     }
                     else
                     {
-                        throw new CaptureFormatException(path, $"'{fields[c]}' is not a number", i + 1, c + 1);
+                        throw new CaptureFormatException(path, $"'{ShownText.Of(fields[c])}' is not a finite number", first + i, c + 1);
                     }
                 }
 

@@ -32,4 +32,23 @@ public sealed record ImportOptions
 
     /// <summary>COMTRADE: deliver primary values (<c>--primary</c>) instead of secondary.</summary>
     public bool Primary { get; init; }
+
+    /// <summary>Checks each stated value against <see cref="CaptureLimits"/>; the message names the CLI option.</summary>
+    /// <exception cref="OptionValueException">A value is out of bounds.</exception>
+    public void Validate()
+    {
+        Check("scale", ScaleA, "A");
+        Check("sensitivity", SensitivityVPerA, "V/A");
+        Check("range", RangeV, "V");
+        Check("rate", RateHz, "Hz");
+    }
+
+    private static void Check(string key, double? value, string unit)
+    {
+        if (value is { } v && CaptureLimits.SettingProblem(key, v) is { } expected)
+        {
+            throw new OptionValueException("--" + key,
+                v.ToString("G6", System.Globalization.CultureInfo.InvariantCulture) + " " + unit, expected);
+        }
+    }
 }

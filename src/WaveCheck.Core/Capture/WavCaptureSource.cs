@@ -31,6 +31,7 @@ public sealed class WavCaptureSource : ICaptureSource
     private readonly double _scaleA;
     private readonly ChannelSelection _selection;
     private readonly double[] _toAmperes;
+    private readonly long _dataOffset;
     private readonly List<CaptureWarning> _warnings = [];
     private long _frame;
     private byte[] _bytes = [];
@@ -50,36 +51,40 @@ public sealed class WavCaptureSource : ICaptureSource
     {
         ArgumentNullException.ThrowIfNull(path);
         ArgumentNullException.ThrowIfNull(options);
+        options.Validate();
         _path = path;
         _stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
         try
         {
             var layout = RiffLayout.Scan(_stream, path);
+            var format = FormatChunk.Read(_stream, path, layout.FormatOffset, layout.FormatBytes);
             _stream.Position = 0;
             try
             {
                 _reader = new WaveFileReader(_stream);
             }
-            catch (Exception ex) when (ex is FormatException or InvalidDataException or EndOfStreamException or ArgumentException)
+            catch (Exception ex) when (ex is FormatException or InvalidDataException or EndOfStreamException or ArgumentException
+                                           or OverflowException or IndexOutOfRangeException)
             {
                 throw new CaptureFormatException(path, $"not a readable WAV file: {ex.Message}", byteOffset: _stream.Position);
             }
 
-            var format = _reader.WaveFormat;
-            (_kind, var encodingName) = Classify(format, layout.FormatOffset);
+            _kind = format.Kind;
+            var encodingName = format.Name;
             _bytesPerSample = format.BitsPerSample / 8;
             _channelCount = format.Channels;
             _blockAlign = format.BlockAlign;
-            if (_channelCount < 1 || _blockAlign != _bytesPerSample * _channelCount || format.SampleRate <= 0)
-            {
-                throw new CaptureFormatException(path,
-                    $"inconsistent fmt chunk: {_channelCount} channels, {format.BitsPerSample} bits, block align {_blockAlign}, rate {format.SampleRate} Hz",
-                    byteOffset: layout.FormatOffset);
-            }
 
             var claimedBytes = layout.DataClaimedBytes;
             var presentBytes = Math.Min(claimedBytes, _stream.Length - layout.DataOffset);
             var frames = presentBytes / _blockAlign;
+            if (frames == 0)
+            {
+                throw new CaptureFormatException(path, string.Create(CultureInfo.InvariantCulture,
+                    $"the data chunk holds {presentBytes} bytes{(presentBytes < claimedBytes ? $" (its header claims {claimedBytes})" : "")}, less than one sample frame of {_blockAlign} bytes: the capture has no samples"),
+                    byteOffset: layout.DataOffset - 8);
+            }
+
             if (presentBytes < claimedBytes)
             {
                 var missingBytes = claimedBytes - presentBytes;
@@ -87,7 +92,7 @@ public sealed class WavCaptureSource : ICaptureSource
                 _warnings.Add(new CaptureWarning("truncated",
                     string.Create(CultureInfo.InvariantCulture,
                         $"The header claims {claimedBytes} data bytes but the file holds {presentBytes}: {missingFrames} frames ({missingBytes} bytes) missing; analysing the {frames} frames present."),
-                    frames / (double)format.SampleRate));
+                    frames / (double)format.SampleRateHz));
             }
 
             var (fileScaleA, fileSensor) = ReadOwnChunk(layout);
@@ -120,12 +125,13 @@ public sealed class WavCaptureSource : ICaptureSource
                 Channels = channels,
                 ResidualSource = _selection.Source,
                 ResidualChannels = _selection.Indices,
-                SampleRateHz = format.SampleRate,
+                SampleRateHz = format.SampleRateHz,
                 SampleCount = frames,
                 Calibration = calibration,
                 SensorCoupling = sensor,
                 FullScaleA = _selection.Indices.Count == 1 ? _scaleA : null,
             };
+            _dataOffset = layout.DataOffset;
             _stream.Position = layout.DataOffset;
         }
         catch
@@ -188,6 +194,12 @@ public sealed class WavCaptureSource : ICaptureSource
         }
 
         Decode(_bytes.AsSpan(0, frames * _blockAlign), block, frames);
+        if (_kind == SampleKind.Float)
+        {
+            // Integer samples scaled by a bounded full scale are always finite; floats may hold NaN or infinities.
+            CheckSamples(block, frames);
+        }
+
         _selection.FormResidual(block, frames, _toAmperes);
         block.Length = frames;
         _frame += frames;
@@ -203,6 +215,22 @@ public sealed class WavCaptureSource : ICaptureSource
         {
             ArrayPool<byte>.Shared.Return(_bytes);
             _bytes = [];
+        }
+    }
+
+    private void CheckSamples(CaptureBlock block, int frames)
+    {
+        for (var c = 0; c < _channelCount; c++)
+        {
+            var values = block.ChannelBuffer(c)[..frames];
+            var bad = CaptureLimits.IndexOfInvalid(values);
+            if (bad >= 0)
+            {
+                var sample = _frame + bad;
+                throw new CaptureFormatException(_path,
+                    CaptureLimits.SampleProblem(Info.Channels[c].Name, values[bad], sample / Info.SampleRateHz, "A"),
+                    byteOffset: _dataOffset + (sample * _blockAlign) + (c * _bytesPerSample), sampleIndex: sample);
+            }
         }
     }
 
@@ -350,47 +378,9 @@ public sealed class WavCaptureSource : ICaptureSource
     private static int LittleEndian(int value) =>
         BitConverter.IsLittleEndian ? value : BinaryPrimitives.ReverseEndianness(value);
 
-    private (SampleKind Kind, string Name) Classify(WaveFormat format, long formatOffset)
-    {
-        var encoding = format.Encoding;
-        var extensible = false;
-        if (encoding == WaveFormatEncoding.Extensible)
-        {
-            // The SubFormat GUID sits 24 bytes into the fmt data; its first two bytes are the plain format tag.
-            extensible = true;
-            var subFormat = ReadSubFormat(formatOffset);
-            encoding = subFormat == PcmSubFormat ? WaveFormatEncoding.Pcm
-                : subFormat == FloatSubFormat ? WaveFormatEncoding.IeeeFloat
-                : WaveFormatEncoding.Unknown;
-        }
-
-        var bits = format.BitsPerSample;
-        var suffix = extensible ? " (extensible)" : "";
-        if (encoding == WaveFormatEncoding.Pcm && bits is 8 or 16 or 24 or 32)
-        {
-            return (SampleKind.Pcm, $"PCM {bits}-bit{suffix}");
-        }
-
-        if (encoding == WaveFormatEncoding.IeeeFloat && bits is 32 or 64)
-        {
-            return (SampleKind.Float, $"IEEE float {bits}-bit{suffix}");
-        }
-
-        throw new CaptureFormatException(_path,
-            $"WAV encoding {format.Encoding} with {bits} bits is not supported: expected PCM 8/16/24/32-bit or IEEE float 32/64-bit",
-            byteOffset: formatOffset);
-    }
-
-    private Guid? ReadSubFormat(long formatOffset)
-    {
-        Span<byte> guid = stackalloc byte[16];
-        _stream.Position = formatOffset + 8 + 24;
-        return _stream.ReadAtLeast(guid, 16, throwOnEndOfStream: false) == 16 ? new Guid(guid) : null;
-    }
-
     private (double? FullScaleA, SensorCoupling? Sensor) ReadOwnChunk(RiffLayout layout)
     {
-        if (layout.OwnChunkOffset is not { } offset || layout.OwnChunkLength is <= 0 or > 4096)
+        if (layout.OwnChunkOffset is not { } offset)
         {
             return (null, null);
         }
@@ -398,7 +388,7 @@ public sealed class WavCaptureSource : ICaptureSource
         var payload = new byte[layout.OwnChunkLength];
         _stream.Position = offset;
         _stream.ReadExactly(payload);
-        return WaveCheckChunk.Parse(payload);
+        return WaveCheckChunk.Parse(_path, offset - 8, payload);
     }
 
     private static Calibration Calibrate(string path, ImportOptions options, double? fileScaleA)
@@ -408,6 +398,7 @@ public sealed class WavCaptureSource : ICaptureSource
             : null;
         if (options.ScaleA is { } scale)
         {
+
             var source = string.Create(CultureInfo.InvariantCulture, $"--scale {scale:G6} A full scale");
             return new Calibration(scale, 0, fromFile is null ? source : $"{source} (overrides the file's {fromFile})");
         }
@@ -415,6 +406,11 @@ public sealed class WavCaptureSource : ICaptureSource
         if (options.RangeV is { } range && options.SensitivityVPerA is { } sensitivity)
         {
             var fullScale = range / sensitivity;
+            if (CaptureLimits.ScaleProblem("full scale (range / sensitivity)", fullScale, "A") is { } fullScaleProblem)
+            {
+                throw new CaptureFormatException(path, $"--range and --sensitivity: {fullScaleProblem}");
+            }
+
             var source = string.Create(CultureInfo.InvariantCulture,
                 $"range {range:G6} V / sensitivity {sensitivity:G6} mV/mA = {fullScale:G6} A full scale");
             return new Calibration(fullScale, 0, fromFile is null ? source : $"{source} (overrides the file's {fromFile})");
@@ -438,8 +434,12 @@ public sealed class WavCaptureSource : ICaptureSource
     }
 
     /// <summary>Where the RIFF chunks lie, walked by hand so that problems carry a byte offset.</summary>
-    private sealed record RiffLayout(long FormatOffset, long DataOffset, long DataClaimedBytes, long? OwnChunkOffset, int OwnChunkLength)
+    private sealed record RiffLayout(long FormatOffset, int FormatBytes, long DataOffset, long DataClaimedBytes,
+        long? OwnChunkOffset, int OwnChunkLength)
     {
+        /// <summary>Largest calibration chunk read (ours holds some 40 bytes of text).</summary>
+        private const int MaxOwnChunkBytes = 4096;
+
         public static RiffLayout Scan(FileStream stream, string path)
         {
             Span<byte> header = stackalloc byte[12];
@@ -455,14 +455,17 @@ public sealed class WavCaptureSource : ICaptureSource
                 throw new CaptureFormatException(path, "not a WAV file: expected 'WAVE' after the RIFF header", byteOffset: 8);
             }
 
+            var length = stream.Length;
+            var riffSize = BinaryPrimitives.ReadUInt32LittleEndian(header[4..]);
             long? fmt = null;
+            var fmtBytes = 0;
             long? data = null;
             long dataBytes = 0;
             long? own = null;
             var ownLength = 0;
             var position = 12L;
             Span<byte> chunk = stackalloc byte[8];
-            while (position + 8 <= stream.Length)
+            while (position + 8 <= length)
             {
                 stream.Position = position;
                 stream.ReadExactly(chunk);
@@ -478,22 +481,56 @@ public sealed class WavCaptureSource : ICaptureSource
                     throw new CaptureFormatException(path, "not a WAV chunk header: expected a four-letter chunk id", byteOffset: position);
                 }
 
-                if (id.SequenceEqual("fmt "u8))
+                var name = System.Text.Encoding.ASCII.GetString(id);
+                var end = position + 8 + size;
+                if (id.SequenceEqual("data"u8))
                 {
-                    fmt = position;
-                }
-                else if (id.SequenceEqual("data"u8))
-                {
+                    if (data is { } first)
+                    {
+                        throw new CaptureFormatException(path,
+                            $"a second 'data' chunk (the first at byte {first - 8}): a WAV file holds its samples in one", byteOffset: position);
+                    }
+
+                    // A data chunk may claim more than the file holds: a recording cut short, read as far as it goes.
                     data = position + 8;
                     dataBytes = size;
                 }
+                else if (end > length)
+                {
+                    throw new CaptureFormatException(path, string.Create(CultureInfo.InvariantCulture,
+                        $"the '{ShownText.Of(name)}' chunk claims {size} bytes but the file ends {length - position - 8} bytes after its header"),
+                        byteOffset: position + 4);
+                }
+                else if (id.SequenceEqual("fmt "u8))
+                {
+                    if (fmt is { } first)
+                    {
+                        throw new CaptureFormatException(path,
+                            $"a second 'fmt ' chunk (the first at byte {first}): a WAV file has one format", byteOffset: position);
+                    }
+
+                    fmt = position;
+                    fmtBytes = (int)size;
+                }
                 else if (id.SequenceEqual("wvck"u8))
                 {
+                    if (own is { } first)
+                    {
+                        throw new CaptureFormatException(path,
+                            $"a second calibration chunk 'wvck' (the first at byte {first - 8})", byteOffset: position);
+                    }
+
+                    if (size is 0 or > MaxOwnChunkBytes)
+                    {
+                        throw new CaptureFormatException(path, string.Create(CultureInfo.InvariantCulture,
+                            $"calibration chunk 'wvck' claims {size} bytes: expected 1 to {MaxOwnChunkBytes}"), byteOffset: position + 4);
+                    }
+
                     own = position + 8;
-                    ownLength = (int)Math.Min(size, int.MaxValue);
+                    ownLength = (int)size;
                 }
 
-                position += 8 + size + (size & 1);
+                position = end + (size & 1);
             }
 
             if (fmt is null)
@@ -503,10 +540,19 @@ public sealed class WavCaptureSource : ICaptureSource
 
             if (data is null)
             {
-                throw new CaptureFormatException(path, "WAV file has no 'data' chunk", byteOffset: stream.Length);
+                throw new CaptureFormatException(path, "WAV file has no 'data' chunk", byteOffset: length);
             }
 
-            return new RiffLayout(fmt.Value, data.Value, dataBytes, own, ownLength);
+            // A RIFF size past the end of the file is a recording cut short (read as far as it goes); one that ends
+            // before the chunks' headers leaves them outside the file's own account of itself.
+            if (riffSize + 8L < Math.Max(fmt.Value + 8, data.Value))
+            {
+                throw new CaptureFormatException(path, string.Create(CultureInfo.InvariantCulture,
+                    $"RIFF size {riffSize} ends the file at byte {riffSize + 8L}, before the '{(fmt.Value + 8 > data.Value ? "fmt " : "data")}' chunk at byte {Math.Max(fmt.Value, data.Value - 8)}"),
+                    byteOffset: 4);
+            }
+
+            return new RiffLayout(fmt.Value, fmtBytes, data.Value, dataBytes, own, ownLength);
         }
 
         private static bool IsChunkId(ReadOnlySpan<byte> id)
@@ -520,6 +566,106 @@ public sealed class WavCaptureSource : ICaptureSource
             }
 
             return true;
+        }
+    }
+
+    /// <summary>The fmt chunk's fields, each checked where it lies so that a message names its byte.</summary>
+    private sealed record FormatChunk(SampleKind Kind, string Name, int Channels, int SampleRateHz, int BlockAlign, int BitsPerSample)
+    {
+        private const ushort TagPcm = 1;
+        private const ushort TagFloat = 3;
+        private const ushort TagExtensible = 0xFFFE;
+
+        public static FormatChunk Read(FileStream stream, string path, long chunkOffset, int chunkBytes)
+        {
+            var at = chunkOffset + 8;
+            if (chunkBytes < 16)
+            {
+                throw new CaptureFormatException(path, $"the 'fmt ' chunk is {chunkBytes} bytes: expected at least 16", byteOffset: chunkOffset + 4);
+            }
+
+            Span<byte> f = stackalloc byte[40];
+            stream.Position = at;
+            stream.ReadExactly(f[..Math.Min(40, chunkBytes)]);
+            var tag = BinaryPrimitives.ReadUInt16LittleEndian(f);
+            var channels = BinaryPrimitives.ReadUInt16LittleEndian(f[2..]);
+            var rate = BinaryPrimitives.ReadUInt32LittleEndian(f[4..]);
+            var byteRate = BinaryPrimitives.ReadUInt32LittleEndian(f[8..]);
+            var blockAlign = BinaryPrimitives.ReadUInt16LittleEndian(f[12..]);
+            var bits = BinaryPrimitives.ReadUInt16LittleEndian(f[14..]);
+            if (channels is < 1 or > CaptureLimits.MaxChannels)
+            {
+                throw new CaptureFormatException(path,
+                    $"fmt chunk: channel count {channels}: expected 1 to {CaptureLimits.MaxChannels}", byteOffset: at + 2);
+            }
+
+            if (CaptureLimits.RateProblem(rate) is { } rateProblem)
+            {
+                throw new CaptureFormatException(path, $"fmt chunk: {rateProblem}", byteOffset: at + 4);
+            }
+
+            var effective = tag;
+            var suffix = string.Empty;
+            if (tag == TagExtensible)
+            {
+                if (chunkBytes < 40)
+                {
+                    throw new CaptureFormatException(path,
+                        $"the 'fmt ' chunk of a WAVE_FORMAT_EXTENSIBLE file is {chunkBytes} bytes: expected at least 40", byteOffset: chunkOffset + 4);
+                }
+
+                var extraSize = BinaryPrimitives.ReadUInt16LittleEndian(f[16..]);
+                if (extraSize < 22)
+                {
+                    throw new CaptureFormatException(path,
+                        $"fmt chunk: extension size {extraSize} bytes: WAVE_FORMAT_EXTENSIBLE needs 22", byteOffset: at + 16);
+                }
+
+                var validBits = BinaryPrimitives.ReadUInt16LittleEndian(f[18..]);
+                if (validBits > bits)
+                {
+                    throw new CaptureFormatException(path,
+                        $"fmt chunk: {validBits} valid bits in a {bits}-bit sample", byteOffset: at + 18);
+                }
+
+                // The SubFormat GUID sits 24 bytes into the fmt data; its first two bytes are the plain format tag.
+                var subFormat = new Guid(f.Slice(24, 16));
+                effective = subFormat == PcmSubFormat ? TagPcm : subFormat == FloatSubFormat ? TagFloat : (ushort)0;
+                if (effective == 0)
+                {
+                    throw new CaptureFormatException(path,
+                        $"fmt chunk: extensible sub-format {subFormat} is not supported: expected PCM or IEEE float", byteOffset: at + 24);
+                }
+
+                suffix = " (extensible)";
+            }
+
+            (SampleKind Kind, string Name) kind = (effective, bits) switch
+            {
+                (TagPcm, 8 or 16 or 24 or 32) => (SampleKind.Pcm, $"PCM {bits}-bit{suffix}"),
+                (TagFloat, 32 or 64) => (SampleKind.Float, $"IEEE float {bits}-bit{suffix}"),
+                (TagPcm or TagFloat, _) => throw new CaptureFormatException(path,
+                    $"fmt chunk: {bits} bits per sample is not supported for {(effective == TagPcm ? "PCM" : "IEEE float")}: expected PCM 8/16/24/32-bit or IEEE float 32/64-bit",
+                    byteOffset: at + 14),
+                _ => throw new CaptureFormatException(path,
+                    $"WAV encoding tag {tag} (0x{tag:X4}) is not supported: expected PCM (1), IEEE float (3) or extensible (0xFFFE)",
+                    byteOffset: at),
+            };
+
+            var expectedAlign = channels * (bits / 8);
+            if (blockAlign != expectedAlign)
+            {
+                throw new CaptureFormatException(path,
+                    $"fmt chunk: block align {blockAlign} bytes does not match {channels} channel{(channels == 1 ? "" : "s")} of {bits} bits ({expectedAlign} bytes)", byteOffset: at + 12);
+            }
+
+            if (byteRate != (long)rate * blockAlign)
+            {
+                throw new CaptureFormatException(path, string.Create(CultureInfo.InvariantCulture,
+                    $"fmt chunk: byte rate {byteRate} does not match {rate} Hz × {blockAlign} bytes ({(long)rate * blockAlign})"), byteOffset: at + 8);
+            }
+
+            return new FormatChunk(kind.Kind, kind.Name, channels, (int)rate, blockAlign, bits);
         }
     }
 }

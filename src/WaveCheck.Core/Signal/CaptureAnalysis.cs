@@ -16,8 +16,8 @@ namespace WaveCheck.Core.Signal;
 /// nominal frequencies the count nearest 200 ms), each round(N·fs/f) samples long with f the frequency tracked in the
 /// window before, rectangular. A trailing part shorter than a window is not analysed as a window (a warning says
 /// so); it is in the whole-capture summary and the envelope.</para>
-/// <para>Edge cases: a capture shorter than one window yields no window figures (zeros, a warning), its samples still
-/// form the summary; NaN samples are not expected from the readers and make the figures they touch NaN.</para>
+/// <para>Edge cases: a capture shorter than one window, or sampled too slowly to hold the mains frequency, is refused
+/// (<see cref="CaptureFormatException"/>); the readers refuse NaN and infinite samples, so none reach the figures.</para>
 /// </remarks>
 public sealed class CaptureAnalysis
 {
@@ -116,6 +116,17 @@ public sealed class CaptureAnalysis
         _info = info;
         _options = options;
         _fs = info.SampleRateHz;
+        var least = MinimumSampleRateHz(options.MainsHz);
+        if (!(_fs > least && _fs <= CaptureLimits.MaxSampleRateHz))
+        {
+            // A window of N cycles needs the fundamental below the Nyquist frequency; the upper bound keeps the
+            // windows' buffers (16 windows of 200 ms) within memory for any caller, not only the file readers.
+            throw new CaptureFormatException(info.FilePath, _fs <= least
+                ? string.Create(CultureInfo.InvariantCulture,
+                    $"sample rate {_fs:G6} Hz is too low to analyse: the mains frequency (up to {least / 2:0.##} Hz) must lie below half the sample rate, so more than {least:0.##} Hz is needed")
+                : CaptureLimits.RateProblem(_fs)!);
+        }
+
         _envelope = new EnvelopeBuilder(_fs, info.SampleCount);
         _detectBuffer = new double[(int)Math.Clamp(Math.Round(DetectionS * _fs), 16, 1 << 22)];
         _metrics =
@@ -188,6 +199,13 @@ public sealed class CaptureAnalysis
         _workers!.Wait();
         Fold(_flying, _flyCount);
         _flyCount = 0;
+        if (_windows == 0)
+        {
+            // A verdict from no window at all would read as "type AC sufficient" on a capture that says nothing.
+            throw new CaptureFormatException(_info.FilePath, string.Create(CultureInfo.InvariantCulture,
+                $"the capture holds {_count} sample{(_count == 1 ? "" : "s")} ({_count / _fs:0.######} s at {_fs:G6} Hz): too short to analyse; one window needs {_windowLength} samples ({_windowLength / _fs:0.###} s, {_cycles} cycles of {_mains.NominalHz:0.##} Hz)"));
+        }
+
         var tail = partial.Samples.AsSpan(0, _windowFill);
         AddToSummary(SampleMath.Moments(tail));
         foreach (var sink in _options.Sinks)
@@ -258,14 +276,16 @@ public sealed class CaptureAnalysis
             Warnings = warnings,
             Spectrum = spectrum,
             Envelope = _envelope.Result(),
-            WorstWindow = _worstLength > 0
-                ? new WaveformExcerpt(_worstStart / _fs, _fs, _worst.AsSpan(0, _worstLength).ToArray(),
-                    "window with the highest RMS")
-                : new WaveformExcerpt(_windowStart / _fs, _fs, partial.Samples.AsSpan(0, _windowFill).ToArray(),
-                    "the whole capture (shorter than one window)"),
+            WorstWindow = new WaveformExcerpt(_worstStart / _fs, _fs, _worst.AsSpan(0, _worstLength).ToArray(),
+                "window with the highest RMS"),
             Trend = _trend!.Result(),
         };
     }
+
+    /// <summary>The sample rate the analysis needs more than: twice the highest mains frequency it may find (60 Hz when
+    /// it detects 50 or 60 Hz, else the one given), so that the fundamental lies below the Nyquist frequency.</summary>
+    /// <param name="mainsHz">The nominal mains frequency given, hertz; null when it is detected.</param>
+    public static double MinimumSampleRateHz(double? mainsHz) => 2 * (mainsHz ?? 60.0);
 
     /// <summary>Cycles per window for a nominal frequency: 10 at 50 Hz, 12 at 60 Hz, else the count nearest 200 ms.</summary>
     public static int CyclesFor(double nominalHz) =>
@@ -746,12 +766,7 @@ public sealed class CaptureAnalysis
                 $"{_transients} transients found; the first {MaxTransients} are listed"));
         }
 
-        if (_windows == 0)
-        {
-            warnings.Add(new CaptureWarning("no-window", string.Create(CultureInfo.InvariantCulture,
-                $"the capture ({_count / _fs:0.###} s) is shorter than one window of {_cycles} cycles ({_windowLength / _fs:0.###} s): only the whole-capture summary is measured")));
-        }
-        else if (_windowFill > 0)
+        if (_windowFill > 0)
         {
             warnings.Add(new CaptureWarning("partial-window", string.Create(CultureInfo.InvariantCulture,
                 $"the last {_windowFill / _fs:0.###} s ({_windowFill} samples) after the last complete window are not analysed as a window; they are in the summary and the envelope"),

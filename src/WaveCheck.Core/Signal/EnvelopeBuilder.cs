@@ -26,7 +26,8 @@ public sealed class EnvelopeBuilder
     {
         _sampleRateHz = sampleRateHz;
         _bucketSamples = 1;
-        while (_bucketSamples * MaxBuckets < expectedSamples)
+        // Bounded: an absurd expected length (a header's claim) must not double the bucket into an overflow.
+        while (_bucketSamples * MaxBuckets < expectedSamples && _bucketSamples < (1L << 40))
         {
             _bucketSamples *= 2;
         }

@@ -24,6 +24,13 @@ namespace WaveCheck.Core.Survey;
 /// </remarks>
 public static class SiteConfigReader
 {
+    /// <summary>Largest site file read, bytes: 4 MiB (engineering choice: some 20 000 capture entries; a larger file
+    /// is no site file, and refusing it keeps the reader's memory bounded).</summary>
+    public const int MaxFileBytes = 4 << 20;
+
+    /// <summary>Longest text (a value or a key), UTF-8 bytes: 4096, the longest path Linux accepts.</summary>
+    public const int MaxTextBytes = 4096;
+
     private static readonly string[] TopKeys = ["site", "defaults", "captures", "upstream"];
 
     private static readonly string[] SettingKeys =
@@ -40,7 +47,21 @@ public static class SiteConfigReader
     public static SiteConfig Read(string path)
     {
         ArgumentException.ThrowIfNullOrEmpty(path);
-        return Parse(path, File.ReadAllBytes(path));
+        if (Directory.Exists(path))
+        {
+            throw new CaptureFormatException(path, "is a directory, not a site file");
+        }
+
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
+        if (stream.Length > MaxFileBytes)
+        {
+            throw new CaptureFormatException(path, string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"the site file is {stream.Length} bytes: at most {MaxFileBytes} bytes (4 MiB) are read"));
+        }
+
+        var bytes = new byte[stream.Length];
+        stream.ReadExactly(bytes);
+        return Parse(path, bytes);
     }
 
     /// <summary>Parses site-file content already in memory.</summary>
@@ -54,8 +75,34 @@ public static class SiteConfigReader
             utf8 = utf8[3..];
         }
 
+        if (utf8.Length > MaxFileBytes)
+        {
+            throw new CaptureFormatException(path, $"the site file is {utf8.Length} bytes: at most {MaxFileBytes} bytes (4 MiB) are read");
+        }
+
+        RequireUtf8(path, utf8);
         var tree = new Parser(path, utf8).ParseDocument();
         return new Interpreter(path).Read(tree);
+    }
+
+    /// <summary>Refuses bytes that are not UTF-8 with the line, the column and the byte offset of the first bad one.</summary>
+    private static void RequireUtf8(string path, ReadOnlySpan<byte> utf8)
+    {
+        var offset = 0;
+        while (offset < utf8.Length)
+        {
+            var status = System.Text.Rune.DecodeFromUtf8(utf8[offset..], out _, out var consumed);
+            if (status != System.Buffers.OperationStatus.Done)
+            {
+                var before = utf8[..offset];
+                var lineStart = before.LastIndexOf((byte)'\n') + 1;
+                throw new CaptureFormatException(path, string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                    $"byte offset {offset}: invalid UTF-8 (byte 0x{utf8[offset]:X2}): save the site file as UTF-8"),
+                    1 + before.Count((byte)'\n'), 1 + Encoding.UTF8.GetCharCount(before[lineStart..]));
+            }
+
+            offset += consumed;
+        }
     }
 
     /// <summary>A JSON value with the place it starts at (1-based line and column).</summary>
@@ -77,7 +124,7 @@ public static class SiteConfigReader
 
         public string Describe() => Kind switch
         {
-            JsonTokenType.String => $"the text \"{Text}\"",
+            JsonTokenType.String => $"the text \"{ShownText.Of(Text)}\"",
             JsonTokenType.Number => $"the number {Text}",
             JsonTokenType.True or JsonTokenType.False => $"the value {Text}",
             JsonTokenType.Null => "null",
@@ -93,6 +140,9 @@ public static class SiteConfigReader
         private readonly string _path;
         private readonly ReadOnlySpan<byte> _utf8;
         private Utf8JsonReader _reader;
+        private long _placedOffset;
+        private long _placedLine = 1;
+        private long _placedColumnChars;
 
         public Parser(string path, ReadOnlySpan<byte> utf8)
         {
@@ -143,7 +193,7 @@ public static class SiteConfigReader
                         while (Next() != JsonTokenType.EndObject)
                         {
                             var (keyLine, keyColumn) = Place(_reader.TokenStartIndex);
-                            var key = _reader.GetString()!;
+                            var key = Text(keyLine, keyColumn);
                             var keyNode = new Node { Kind = JsonTokenType.PropertyName, Line = keyLine, Column = keyColumn, Text = key };
                             if (!seen.Add(key))
                             {
@@ -169,16 +219,18 @@ public static class SiteConfigReader
                     }
 
                 case JsonTokenType.String:
-                    return new Node { Kind = JsonTokenType.String, Line = line, Column = column, Text = _reader.GetString() };
+                    return new Node { Kind = JsonTokenType.String, Line = line, Column = column, Text = Text(line, column) };
                 case JsonTokenType.Number:
-                    return new Node
                     {
-                        Kind = JsonTokenType.Number,
-                        Line = line,
-                        Column = column,
-                        Text = Encoding.UTF8.GetString(_reader.ValueSpan),
-                        Number = _reader.GetDouble(),
-                    };
+                        var text = Encoding.UTF8.GetString(_reader.ValueSpan);
+                        if (!_reader.TryGetDouble(out var number) || !double.IsFinite(number))
+                        {
+                            throw new CaptureFormatException(_path, $"the number {ShownText.Of(text)} is out of range", line, column);
+                        }
+
+                        return new Node { Kind = JsonTokenType.Number, Line = line, Column = column, Text = text, Number = number };
+                    }
+
                 case JsonTokenType.True or JsonTokenType.False:
                     return new Node
                     {
@@ -192,19 +244,56 @@ public static class SiteConfigReader
             }
         }
 
+        /// <summary>The current string token, refused beyond <see cref="MaxTextBytes"/> or when its escapes do not
+        /// make text (a lone surrogate such as <c>\ud800</c>).</summary>
+        private string Text(long line, long column)
+        {
+            if (_reader.ValueSpan.Length > MaxTextBytes)
+            {
+                throw new CaptureFormatException(_path, string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                    $"a text of {_reader.ValueSpan.Length} bytes: at most {MaxTextBytes} bytes are read"), line, column);
+            }
+
+            try
+            {
+                return _reader.GetString()!;
+            }
+            catch (InvalidOperationException)
+            {
+                throw new CaptureFormatException(_path, "the text holds an escape that is no character (a lone \\u surrogate)", line, column);
+            }
+        }
+
         private JsonTokenType Next()
         {
             _reader.Read();
             return _reader.TokenType;
         }
 
-        /// <summary>1-based line and column (in characters) of a byte offset.</summary>
-        private readonly (long Line, long Column) Place(long offset)
+        /// <summary>1-based line and column (in characters) of a byte offset. Offsets come in file order, so lines are
+        /// counted on from the last place asked for: linear in the file, not quadratic.</summary>
+        private (long Line, long Column) Place(long offset)
         {
-            var before = _utf8[..(int)offset];
-            var line = 1L + before.Count((byte)'\n');
-            var lineStart = before.LastIndexOf((byte)'\n') + 1;
-            return (line, Encoding.UTF8.GetCharCount(before[lineStart..]) + 1L);
+            if (offset < _placedOffset)
+            {
+                (_placedOffset, _placedLine, _placedColumnChars) = (0, 1, 0);
+            }
+
+            var span = _utf8[(int)_placedOffset..(int)offset];
+            var newlines = span.Count((byte)'\n');
+            if (newlines > 0)
+            {
+                _placedLine += newlines;
+                var lineStart = span.LastIndexOf((byte)'\n') + 1;
+                _placedColumnChars = Encoding.UTF8.GetCharCount(span[lineStart..]);
+            }
+            else
+            {
+                _placedColumnChars += Encoding.UTF8.GetCharCount(span);
+            }
+
+            _placedOffset = offset;
+            return (_placedLine, _placedColumnChars + 1L);
         }
 
         /// <summary>The reader's message without its own (0-based) position, which the caller states 1-based.</summary>
@@ -322,7 +411,7 @@ public static class SiteConfigReader
                 var deviceNode = Member(item, "device") ?? throw Error(item, $"upstream device \"{name}\" has no \"device\": expected a type AC, A, F, B or B+");
                 var device = DeviceOf(deviceNode)?.Type ?? throw Error(deviceNode, "\"device\" of an upstream device cannot be null: expected AC, A, F, B or B+");
                 var ratedNode = Member(item, "rated") ?? throw Error(item, $"upstream device \"{name}\" has no \"rated\": expected a current such as \"100mA\"");
-                var rated = CurrentOf(ratedNode, "rated") ?? throw Error(ratedNode, "\"rated\" of an upstream device cannot be null: expected a current such as \"100mA\"");
+                var rated = RatedOf(ratedNode) ?? throw Error(ratedNode, "\"rated\" of an upstream device cannot be null: expected a current such as \"100mA\"");
                 var circuitsNode = Member(item, "circuits") ?? throw Error(item, $"upstream device \"{name}\" has no \"circuits\": expected a list of capture files");
                 RequireKind(circuitsNode, JsonTokenType.StartArray, "a list of capture files [\"c2.wav\", ...] as written under \"captures\"");
                 var members = new List<string>(circuitsNode.Items!.Count);
@@ -363,7 +452,7 @@ public static class SiteConfigReader
                 {
                     "file" => patch,
                     "circuit" => patch with { Circuit = OptionalString(value, key) },
-                    "rated" => patch with { RatedResidualCurrentA = CurrentOf(value, key) },
+                    "rated" => patch with { RatedResidualCurrentA = RatedOf(value) },
                     "device" => DeviceOf(value) is { } protection
                         ? patch with { InstalledType = protection.Type, InstalledRdcDd = protection.RdcDd }
                         : patch with { InstalledType = null },
@@ -371,10 +460,10 @@ public static class SiteConfigReader
                     "regime" => patch with { Regime = RegimeOf(value) },
                     "ev" => patch with { Ev = BoolOf(value, key) },
                     "chargerDcDetection" => patch with { ChargerDcDetection = BoolOf(value, key) },
-                    "scale" => patch with { ScaleA = CurrentOf(value, key) },
-                    "sensitivity" => patch with { SensitivityVPerA = QuantityOf(value, key, "a sensitivity such as \"10 mV/mA\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseSensitivityVPerA(k, t)) },
-                    "range" => patch with { RangeV = QuantityOf(value, key, "a voltage such as \"1V\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseVoltageV(k, t)) },
-                    "rate" => patch with { RateHz = QuantityOf(value, key, "a frequency such as \"10kHz\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseFrequencyHz(k, t)) },
+                    "scale" => patch with { ScaleA = Bounded(value, key, CurrentOf(value, key)) },
+                    "sensitivity" => patch with { SensitivityVPerA = Bounded(value, key, QuantityOf(value, key, "a sensitivity such as \"10 mV/mA\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseSensitivityVPerA(k, t))) },
+                    "range" => patch with { RangeV = Bounded(value, key, QuantityOf(value, key, "a voltage such as \"1V\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseVoltageV(k, t))) },
+                    "rate" => patch with { RateHz = Bounded(value, key, QuantityOf(value, key, "a frequency such as \"10kHz\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseFrequencyHz(k, t))) },
                     "channel" => patch with { Channel = ChannelOf(value) },
                     "sum" => patch with { Sum = SumOf(value) },
                     _ => throw UnknownKey(keyNode, allowed, where),
@@ -388,6 +477,32 @@ public static class SiteConfigReader
 
             return patch;
         }
+
+        /// <summary>IΔn, checked here against the same range as <c>--rated</c> so that a bad value is blamed on this
+        /// line of the site file, not on the capture and an option the user never typed.</summary>
+        private double? RatedOf(Node value)
+        {
+            var rated = CurrentOf(value, "rated");
+            if (rated is { } a)
+            {
+                try
+                {
+                    new AssessmentOptions { RatedResidualCurrentA = a }.Validate();
+                }
+                catch (OptionValueException e)
+                {
+                    throw Error(value, $"\"rated\": {e.Message[(e.Option.Length + 2)..]}");
+                }
+            }
+
+            return rated;
+        }
+
+        /// <summary>A capture setting within the bounds every reader holds it to (<see cref="CaptureLimits"/>).</summary>
+        private double? Bounded(Node value, string key, double? si) =>
+            si is { } v && CaptureLimits.SettingProblem(key, v) is { } expected
+                ? throw Error(value, $"\"{key}\": cannot use {value.Describe()}: expected {expected}")
+                : si;
 
         private double? CurrentOf(Node value, string key)
         {

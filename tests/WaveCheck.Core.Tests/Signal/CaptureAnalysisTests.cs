@@ -190,15 +190,45 @@ public class CaptureAnalysisTests
     }
 
     [Fact]
-    public void ShortCaptureGivesSummaryOnly()
+    public void ShortCaptureIsRefusedWithTheLengthFoundAndNeeded()
     {
+        // IEC 61000-4-7: one window is 10 cycles at 50 Hz = 200 ms = 10 000 samples at 50 kS/s; 50 ms holds 2 500.
         var samples = Synth.Make(Fs, 0.05, t => 0.01 * Math.Sin(2 * Math.PI * F * t));
-        var result = Analyze(samples);
-        Assert.Equal(0, result.Windows.Count);
-        Assert.Contains(result.Warnings, w => w.Code == "no-window");
-        Assert.Equal(0.01 / Math.Sqrt(2), result.Summary.RmsA, 0.002 * 0.01);
-        Assert.Equal(samples.Length, result.WorstWindow.SamplesA.Count);
+        var ex = Assert.Throws<CaptureFormatException>(() => Analyze(samples));
+        Assert.Contains("holds 2500 samples (0.05 s", ex.Message);
+        Assert.Contains("one window needs 10000 samples (0.2 s, 10 cycles of 50 Hz)", ex.Message);
     }
+
+    [Fact]
+    public void EmptyCaptureIsRefused()
+    {
+        var ex = Assert.Throws<CaptureFormatException>(() => Analyze([]));
+        Assert.Contains("holds 0 samples", ex.Message);
+    }
+
+    [Theory]
+    [InlineData(1.0, null)]
+    [InlineData(120.0, null)]
+    [InlineData(800.0, 400.0)]
+    public void RateTooLowForTheMainsIsRefusedBeforeAnyWindow(double fs, double? mainsHz)
+    {
+        // Nyquist: a fundamental at f needs a rate above 2f (60 Hz is the highest detected; 400 Hz when given).
+        var samples = new double[(int)(fs * 5)];
+        var ex = Assert.Throws<CaptureFormatException>(() =>
+            Analyzer.Analyze(new MemoryCaptureSource(samples, fs), new AnalysisOptions { MainsHz = mainsHz }));
+        Assert.Contains("too low to analyse", ex.Message);
+    }
+
+    [Fact]
+    public void RateJustAboveTwiceTheMainsIsAnalysedWithoutHanging()
+    {
+        // 121 S/s against the 120 S/s floor: windows of round(10 · 121 / 50) = 24 samples (the window rule above).
+        var result = Analyze2(Synth.Make(121, 3, t => 0.01 * Math.Sin(2 * Math.PI * F * t)), 121);
+        Assert.True(result.Windows.Count > 0);
+    }
+
+    private static AnalysisResult Analyze2(double[] samples, double fs) =>
+        Analyzer.Analyze(new MemoryCaptureSource(samples, fs), new AnalysisOptions());
 
     [Fact]
     public void WorstWindowIsTheOneWithHighestRms()

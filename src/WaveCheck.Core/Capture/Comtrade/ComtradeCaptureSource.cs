@@ -86,6 +86,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             throw new CaptureFormatException(path, "the cfg has no analog channels: there is no current to analyse");
         }
 
+        CheckDataCanHold(container, config);
         var reader = OpenReader(container, config);
         try
         {
@@ -170,6 +171,12 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             }
 
             _held[c] = held;
+            var bad = CaptureLimits.IndexOfInvalid(output[..frames]);
+            if (bad >= 0)
+            {
+                throw _reader.ValueError(bad, c, CaptureLimits.SampleProblem(Config.Analog[c].Id, output[bad],
+                    (_delivered + bad) / Info.SampleRateHz, Info.Channels[c].Quantity == ChannelQuantity.Voltage ? "V" : "A"));
+            }
         }
 
         var residual = block.ResidualBuffer[..frames];
@@ -182,6 +189,14 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             {
                 residual[i] += channel[i] * weight;
             }
+        }
+
+        var badResidual = CaptureLimits.IndexOfInvalid(residual);
+        if (badResidual >= 0)
+        {
+            // Only a voltage divided by a tiny sensitivity gets here: every channel was checked above.
+            throw _reader.ValueError(badResidual, _residual[0], CaptureLimits.SampleProblem($"residual ({Info.ResidualSource})",
+                residual[badResidual], (_delivered + badResidual) / Info.SampleRateHz, "A"));
         }
     }
 
@@ -216,6 +231,27 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         }
     }
 
+    /// <summary>Refuses a sample count ASCII data cannot hold (before any loop runs on it): a sample line is at least
+    /// <c>n,,</c>, one comma per analog value and a line end. Binary data is checked by its reader, to the byte.</summary>
+    private static void CheckDataCanHold(ComtradeContainer container, ComtradeConfig config)
+    {
+        if (config.FileType != ComtradeDataFileType.Ascii)
+        {
+            return;
+        }
+
+        var bytes = container.DataBytes ?? Math.Max(0, new FileInfo(container.DataPath).Length - container.DataOffset);
+        var least = config.Analog.Count + 3;
+        var most = bytes / least;
+        if (config.TotalSamples > most)
+        {
+            var last = config.RateSections[^1];
+            throw new CaptureFormatException(container.CfgPath, string.Create(CultureInfo.InvariantCulture,
+                $"sample rate {config.RateSections.Count}: last sample number {last.LastSample} is more than the data can hold: {bytes} bytes of ASCII data hold at most {most} sample lines of {least} or more bytes"),
+                last.Line > 0 ? last.Line : null, last.Line > 0 ? 2 : null);
+        }
+    }
+
     private static ComtradeDataReader OpenReader(ComtradeContainer container, ComtradeConfig config)
     {
         var stream = new FileStream(container.DataPath, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
@@ -247,6 +283,11 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         for (var c = 0; c < conversions.Length; c++)
         {
             conversions[c] = ChannelConversion.For(config.Analog[c], options.Primary);
+            if (CaptureLimits.ScaleProblem($"analog channel {c + 1}: multiplier × unit × transformer ratio", conversions[c].Scale, string.Empty) is { } scaleProblem)
+            {
+                throw new CaptureFormatException(path, scaleProblem, config.Analog[c].Line > 0 ? config.Analog[c].Line : null);
+            }
+
             channels[c] = conversions[c].Info(c, config.Analog[c]);
         }
 
@@ -346,7 +387,8 @@ public sealed class ComtradeCaptureSource : ICaptureSource
 
     private static double RateFromTimestamps(ComtradeContainer container, ComtradeConfig config, List<CaptureWarning> warnings)
     {
-        var frames = (int)Math.Min(config.TotalSamples, RateProbeFrames);
+        // At most 4 M values, whatever the channel count, so the probe's memory stays bounded.
+        var frames = (int)Math.Min(config.TotalSamples, Math.Max(2, Math.Min(RateProbeFrames, (1 << 22) / config.Analog.Count)));
         var raw = ArrayPool<double>.Shared.Rent(frames * config.Analog.Count);
         var stamps = ArrayPool<long>.Shared.Rent(frames);
         try
@@ -371,6 +413,12 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             }
 
             var rateHz = (last - first) / spanS;
+            if (CaptureLimits.RateProblem(rateHz) is { } rateProblem)
+            {
+                throw new CaptureFormatException(container.DataPath, string.Create(CultureInfo.InvariantCulture,
+                    $"the cfg gives no sample rate (nrates = 0) and the time stamps of samples {first + 1} to {last + 1} (time multiplier {config.TimeMultiplier}) give a {rateProblem}"));
+            }
+
             warnings.Add(new CaptureWarning("rate-from-timestamps",
                 $"the cfg gives no sample rate (nrates = 0); {rateHz.ToString("0.###", CultureInfo.InvariantCulture)} Hz is derived from the time stamps of samples {first + 1} to {last + 1} (time multiplier {config.TimeMultiplier.ToString(CultureInfo.InvariantCulture)})"));
             return rateHz;

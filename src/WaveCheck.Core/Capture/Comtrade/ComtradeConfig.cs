@@ -31,7 +31,11 @@ public enum ComtradeDataFileType
 /// <param name="Secondary">Transformer ratio, secondary factor (0 when absent: 1991).</param>
 /// <param name="PrimaryOrSecondary">'P' or 'S': which side a·x + b gives; null when absent (1991).</param>
 public sealed record ComtradeAnalogChannel(int Number, string Id, string Phase, string Circuit, string Unit, double A,
-    double B, double SkewS, double Min, double Max, double Primary, double Secondary, char? PrimaryOrSecondary);
+    double B, double SkewS, double Min, double Max, double Primary, double Secondary, char? PrimaryOrSecondary)
+{
+    /// <summary>1-based line of the channel in the cfg (for messages); 0 when not read from a file.</summary>
+    public long Line { get; init; }
+}
 
 /// <summary>One digital (status) channel line of a cfg (IEEE C37.111-2013 clause 7.4.4).</summary>
 /// <param name="Number">The channel index <c>Dn</c> as written.</param>
@@ -45,6 +49,9 @@ public sealed record ComtradeDigitalChannel(int Number, string Id, int NormalSta
 /// <param name="LastSample">1-based number of the section's last sample (<c>endsamp</c>).</param>
 public sealed record ComtradeRateSection(double RateHz, long FirstSample, long LastSample)
 {
+    /// <summary>1-based line of the <c>samp,endsamp</c> line in the cfg (for messages); 0 when not read from a file.</summary>
+    public long Line { get; init; }
+
     /// <summary>Samples in the section.</summary>
     public long SampleCount => LastSample - FirstSample + 1;
 

@@ -9,6 +9,9 @@ namespace WaveCheck.Core.Capture.Comtrade;
 /// </summary>
 public static class ComtradeConfigParser
 {
+    /// <summary>Most sample-rate sections (engineering choice: a recorder switches rate a handful of times).</summary>
+    public const int MaxRateSections = 1000;
+
     /// <summary>Parses cfg text.</summary>
     /// <param name="filePath">The file named in error messages.</param>
     /// <param name="lines">The cfg lines in order.</param>
@@ -33,7 +36,7 @@ public static class ComtradeConfigParser
                 "1991" => 1991,
                 "1999" => 1999,
                 "2013" => 2013,
-                _ => throw id.Error(3, $"revision year '{id[2]}' is not 1991, 1999 or 2013"),
+                _ => throw id.Error(3, $"revision year '{id.Shown(2)}' is not 1991, 1999 or 2013"),
             };
         }
 
@@ -43,6 +46,16 @@ public static class ComtradeConfigParser
         var total = counts.Int(1, "total channel count");
         var analogCount = CountWithSuffix(counts, 2, 'A', "analog");
         var digitalCount = CountWithSuffix(counts, 3, 'D', "digital");
+        if (analogCount > CaptureLimits.MaxChannels)
+        {
+            throw counts.Error(2, $"analog channel count {analogCount} is more than the {CaptureLimits.MaxChannels} channels read");
+        }
+
+        if (digitalCount > CaptureLimits.MaxDigitalChannels)
+        {
+            throw counts.Error(3, $"digital channel count {digitalCount} is more than the {CaptureLimits.MaxDigitalChannels} channels read");
+        }
+
         if (total != analogCount + digitalCount)
         {
             throw counts.Error(1, $"total channel count {total} is not {analogCount}A + {digitalCount}D");
@@ -63,25 +76,29 @@ public static class ComtradeConfigParser
         // 7.4.5 line frequency.
         var lf = cursor.Next("line frequency");
         var lineFrequency = lf.Number(1, "line frequency");
+        if (lineFrequency is < 0 or > 1000)
+        {
+            throw lf.Error(1, $"line frequency {lf.Shown(0)} Hz is outside 0 to 1000 Hz");
+        }
 
         // 7.4.6 nrates, then nrates lines samp,endsamp; nrates = 0 is followed by one line 0,endsamp.
         var nratesLine = cursor.Next("number of sample rates nrates");
         var nrates = nratesLine.Int(1, "number of sample rates");
-        if (nrates < 0)
+        if (nrates is < 0 or > MaxRateSections)
         {
-            throw nratesLine.Error(1, $"number of sample rates {nrates} is negative");
+            throw nratesLine.Error(1, $"number of sample rates {nrates} is outside 0 to {MaxRateSections}");
         }
 
-        var sections = new List<ComtradeRateSection>(Math.Max(nrates, 1));
+        var sections = new List<ComtradeRateSection>();
         long previousEnd = 0;
         for (var i = 1; i <= Math.Max(nrates, 1); i++)
         {
             var rateLine = cursor.Next($"sample rate {i} samp,endsamp");
             rateLine.RequireFields(2, $"sample rate {i}", "samp,endsamp");
             var rate = rateLine.Number(1, $"sample rate {i}: rate");
-            if (nrates > 0 && !(rate > 0))
+            if (nrates > 0 && CaptureLimits.RateProblem(rate) is not null)
             {
-                throw rateLine.Error(1, $"sample rate {i}: rate {rate.ToString(CultureInfo.InvariantCulture)} Hz is not positive");
+                throw rateLine.Error(1, $"sample rate {i}: rate {CaptureLimits.Hz(rate)} is outside {CaptureLimits.RateRange}");
             }
 
             var end = rateLine.Long(2, $"sample rate {i}: last sample number");
@@ -90,7 +107,12 @@ public static class ComtradeConfigParser
                 throw rateLine.Error(2, $"sample rate {i}: last sample number {end} does not follow {previousEnd}");
             }
 
-            sections.Add(new ComtradeRateSection(nrates == 0 ? 0 : rate, previousEnd + 1, end));
+            if (end > CaptureLimits.MaxSampleCount)
+            {
+                throw rateLine.Error(2, $"sample rate {i}: last sample number {end} is more than the {CaptureLimits.MaxSampleCount} samples a capture may hold");
+            }
+
+            sections.Add(new ComtradeRateSection(nrates == 0 ? 0 : rate, previousEnd + 1, end) { Line = rateLine.Line });
             previousEnd = end;
         }
 
@@ -106,7 +128,7 @@ public static class ComtradeConfigParser
             "BINARY" => ComtradeDataFileType.Binary,
             "BINARY32" => ComtradeDataFileType.Binary32,
             "FLOAT32" => ComtradeDataFileType.Float32,
-            _ => throw ftLine.Error(1, $"data file type '{ftLine[0]}' is not ASCII, BINARY, BINARY32 or FLOAT32"),
+            _ => throw ftLine.Error(1, $"data file type '{ftLine.Shown(0)}' is not ASCII, BINARY, BINARY32 or FLOAT32"),
         };
 
         // 7.4.9 timemult (1999 and later); absent in 1991.
@@ -114,9 +136,9 @@ public static class ComtradeConfigParser
         if (revision >= 1999 && cursor.TryNext(out var tm))
         {
             timeMultiplier = tm.Number(1, "time stamp multiplier");
-            if (!(timeMultiplier > 0))
+            if (!(timeMultiplier > 0) || CaptureLimits.ScaleProblem("time stamp multiplier", timeMultiplier, string.Empty) is not null)
             {
-                throw tm.Error(1, $"time stamp multiplier {tm[0]} is not positive");
+                throw tm.Error(1, $"time stamp multiplier {tm.Shown(0)} is outside {CaptureLimits.MinScaleFactor:G3} to {CaptureLimits.MaxScaleFactor:G3}");
             }
         }
 
@@ -170,21 +192,51 @@ public static class ComtradeConfigParser
         double primary = 0, secondary = 0;
         if (f.Count >= 13)
         {
-            primary = f.Number(11, $"{what}: primary factor");
-            secondary = f.Number(12, $"{what}: secondary factor");
+            primary = Ratio(f, 11, $"{what}: primary factor");
+            secondary = Ratio(f, 12, $"{what}: secondary factor");
             ps = f[12].ToUpperInvariant() switch
             {
                 "P" => 'P',
                 "S" => 'S',
-                _ => throw f.Error(13, $"{what}: primary/secondary flag '{f[12]}' is not P or S"),
+                _ => throw f.Error(13, $"{what}: primary/secondary flag '{f.Shown(12)}' is not P or S"),
             };
         }
 
+        var number = f.Int(1, $"{what}: channel number");
+        if (number is < 1 or > 999_999)
+        {
+            throw f.Error(1, $"{what}: channel number {number} is outside 1 to 999999");
+        }
+
+        var multiplier = f.Number(6, $"{what}: multiplier");
+        if (CaptureLimits.ScaleProblem($"{what}: multiplier", multiplier, f[4]) is { } multiplierProblem)
+        {
+            throw f.Error(6, multiplierProblem);
+        }
+
+        var adder = f.Number(7, $"{what}: offset");
+        if (Math.Abs(adder) > CaptureLimits.MaxSampleMagnitude)
+        {
+            throw f.Error(7, $"{what}: offset {f.Shown(6)} is beyond ±{CaptureLimits.MaxSampleMagnitude:G3}");
+        }
+
         return new ComtradeAnalogChannel(
-            f.Int(1, $"{what}: channel number"), f[1], f[2], f[3], f[4],
-            f.Number(6, $"{what}: multiplier"), f.Number(7, $"{what}: offset"),
+            number, f[1], f[2], f[3], f[4], multiplier, adder,
             f[7].Length == 0 ? 0 : f.Number(8, $"{what}: skew") * 1e-6,
-            f.Number(9, $"{what}: minimum"), f.Number(10, $"{what}: maximum"), primary, secondary, ps);
+            f.Number(9, $"{what}: minimum"), f.Number(10, $"{what}: maximum"), primary, secondary, ps)
+        { Line = f.Line };
+    }
+
+    /// <summary>A transformer ratio factor: 0 (not given) or within the scale bounds, never negative.</summary>
+    private static double Ratio(Fields f, int field, string what)
+    {
+        var value = f.Number(field, what);
+        if (value < 0 || (value != 0 && CaptureLimits.ScaleProblem(what, value, string.Empty) is not null))
+        {
+            throw f.Error(field, $"{what} {f.Shown(field - 1)} is outside 0 and {CaptureLimits.MinScaleFactor:G3} to {CaptureLimits.MaxScaleFactor:G3}");
+        }
+
+        return value;
     }
 
     private static ComtradeDigitalChannel ParseDigital(Fields f, int i, int revision)
@@ -196,7 +248,7 @@ public static class ComtradeConfigParser
         var state = f[stateField - 1].Length == 0 ? 0 : f.Int(stateField, $"{what}: normal state");
         if (state is not (0 or 1))
         {
-            throw f.Error(stateField, $"{what}: normal state '{f[stateField - 1]}' is not 0 or 1");
+            throw f.Error(stateField, $"{what}: normal state '{f.Shown(stateField - 1)}' is not 0 or 1");
         }
 
         return new ComtradeDigitalChannel(f.Int(1, $"{what}: channel number"), f[1], state);
@@ -206,12 +258,12 @@ public static class ComtradeConfigParser
     {
         var text = f[field - 1];
         if (text.Length < 2 || char.ToUpperInvariant(text[^1]) != suffix ||
-            !int.TryParse(text.AsSpan(0, text.Length - 1), NumberStyles.None, CultureInfo.InvariantCulture, out var n))
+            !long.TryParse(text.AsSpan(0, text.Length - 1), NumberStyles.None, CultureInfo.InvariantCulture, out var n))
         {
-            throw f.Error(field, $"{what} channel count '{text}' is not a number followed by {suffix}");
+            throw f.Error(field, $"{what} channel count '{ShownText.Of(text)}' is not a number followed by {suffix}");
         }
 
-        return n;
+        return (int)Math.Min(n, int.MaxValue);
     }
 
     private static DateTime? ParseStamp(Fields f, int revision, string what, ICollection<CaptureWarning> warnings,
@@ -221,9 +273,9 @@ public static class ComtradeConfigParser
         var form = revision == 1991 ? "mm/dd/yy" : "dd/mm/yyyy";
         f.RequireFields(2, $"{what} time", $"{form},hh:mm:ss.ssssss");
         var date = f[0].Split('/');
-        if (date.Length != 3 || !AllDigits(date))
+        if (date.Length != 3 || !AllDigits(date) || date[0].Length > 2 || date[1].Length > 2 || date[2].Length > 4)
         {
-            throw f.Error(1, $"{what} date '{f[0]}' is not {form}");
+            throw f.Error(1, $"{what} date '{f.Shown(0)}' is not {form}");
         }
 
         var time = f[1].Split(':');
@@ -231,9 +283,10 @@ public static class ComtradeConfigParser
         var wholeSeconds = dot < 0 ? (time.Length == 3 ? time[2] : string.Empty) : time[2][..dot];
         var fraction = dot < 0 ? string.Empty : time[2][(dot + 1)..];
         if (time.Length != 3 || !AllDigits([time[0], time[1], wholeSeconds]) ||
+            time[0].Length > 2 || time[1].Length > 2 || wholeSeconds.Length > 2 ||
             (fraction.Length > 0 && !AllDigits([fraction])) || fraction.Length > 9)
         {
-            throw f.Error(2, $"{what} time '{f[1]}' is not hh:mm:ss.ssssss");
+            throw f.Error(2, $"{what} time '{f.Shown(1)}' is not hh:mm:ss.ssssss");
         }
 
         fractionDigits = fraction.Length;
@@ -256,7 +309,7 @@ public static class ComtradeConfigParser
             hour > 23 || minute > 59 || second > 60)
         {
             warnings.Add(new CaptureWarning("bad-timestamp",
-                $"the {what} time '{f[0]},{f[1]}' on line {f.Line} is not a calendar date and time; it is left out"));
+                $"the {what} time '{f.Shown(0)},{f.Shown(1)}' on line {f.Line} is not a calendar date and time; it is left out"));
             return null;
         }
 
@@ -284,7 +337,7 @@ public static class ComtradeConfigParser
         if (!int.TryParse(hoursText, NumberStyles.None, CultureInfo.InvariantCulture, out var hours) || hours > 14 ||
             (h >= 0 && (!int.TryParse(minutesText, NumberStyles.None, CultureInfo.InvariantCulture, out minutes) || minutes > 59)))
         {
-            throw f.Error(field, $"{what} '{text}' is not an offset from UTC such as -5h30, +1 or 0");
+            throw f.Error(field, $"{what} '{ShownText.Of(text)}' is not an offset from UTC such as -5h30, +1 or 0");
         }
 
         return sign * new TimeSpan(hours, minutes, 0);
@@ -315,6 +368,9 @@ public static class ComtradeConfigParser
 
         public string this[int index] => index < values.Length ? values[index] : string.Empty;
 
+        /// <summary>A field as shown in a message: control characters escaped, cut when long.</summary>
+        public string Shown(int index) => ShownText.Of(this[index]);
+
         public CaptureFormatException Error(int field, string problem) => new(file, problem, line, field);
 
         public void RequireFields(int count, string what, string form)
@@ -331,7 +387,7 @@ public static class ComtradeConfigParser
             var text = this[field - 1];
             if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out var v) || !double.IsFinite(v))
             {
-                throw Error(field, $"{what} '{text}' is not a number");
+                throw Error(field, $"{what} '{ShownText.Of(text)}' is not a number");
             }
 
             return v;
@@ -342,7 +398,7 @@ public static class ComtradeConfigParser
             var text = this[field - 1];
             if (!long.TryParse(text, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out var v))
             {
-                throw Error(field, $"{what} '{text}' is not a whole number");
+                throw Error(field, $"{what} '{ShownText.Of(text)}' is not a whole number");
             }
 
             return v;
@@ -351,7 +407,7 @@ public static class ComtradeConfigParser
         public int Int(int field, string what)
         {
             var v = Long(field, what);
-            return v is < int.MinValue or > int.MaxValue ? throw Error(field, $"{what} '{this[field - 1]}' is out of range") : (int)v;
+            return v is < int.MinValue or > int.MaxValue ? throw Error(field, $"{what} '{Shown(field - 1)}' is out of range") : (int)v;
         }
     }
 

@@ -1,3 +1,4 @@
+using System.Runtime.InteropServices;
 using System.Text;
 using System.Text.RegularExpressions;
 
@@ -23,7 +24,23 @@ internal sealed partial record ComtradeContainer(
 
     private static ComtradeContainer ForCfg(string path)
     {
-        var lines = File.ReadAllLines(path, Encoding.UTF8);
+        var length = new FileInfo(path).Length;
+        if (length > CaptureLimits.MaxConfigBytes)
+        {
+            throw new CaptureFormatException(path, string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"the cfg is {length} bytes: a configuration of at most {CaptureLimits.MaxConfigBytes} bytes (16 MiB) is read"));
+        }
+
+        var lines = new List<string>();
+        using (var text = new StreamReader(path, Encoding.UTF8))
+        {
+            var reader = new BoundedLineReader(text, path);
+            while (reader.TryRead(out var line))
+            {
+                lines.Add(line);
+            }
+        }
+
         var dir = Path.GetDirectoryName(Path.GetFullPath(path))!;
         var stem = Path.GetFileNameWithoutExtension(path);
         var dataPath = FindBeside(dir, stem) ?? throw new CaptureFormatException(path,
@@ -64,10 +81,11 @@ internal sealed partial record ComtradeContainer(
         long? dataBytes = null;
         long dataFirstLine = 0;
         string? current = null;
-        while (ReadLine(stream, line))
+        long cfgBytes = 0;
+        while (ReadLine(stream, line, path, lineNumber + 1))
         {
             lineNumber++;
-            var text = Encoding.UTF8.GetString([.. line]).TrimEnd('\r');
+            var text = Encoding.UTF8.GetString(CollectionsMarshal.AsSpan(line)).TrimEnd('\r');
             var header = text.StartsWith("---", StringComparison.Ordinal) ? SectionHeader().Match(text) : null;
             if (header is null)
             {
@@ -79,6 +97,13 @@ internal sealed partial record ComtradeContainer(
 
                 if (current == "CFG")
                 {
+                    cfgBytes += line.Count + 1;
+                    if (cfgBytes > CaptureLimits.MaxConfigBytes)
+                    {
+                        throw new CaptureFormatException(path, string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                            $"the CFG section is longer than {CaptureLimits.MaxConfigBytes} bytes (16 MiB), the most read"), lineNumber);
+                    }
+
                     cfg!.Add(text);
                 }
 
@@ -116,8 +141,15 @@ internal sealed partial record ComtradeContainer(
                     }
 
                     dataOffset = stream.Position;
-                    dataBytes = long.Parse(header.Groups["bytes"].Value, System.Globalization.CultureInfo.InvariantCulture);
-                    stream.Seek(Math.Min(dataBytes.Value, stream.Length - stream.Position), SeekOrigin.Current);
+                    if (!long.TryParse(header.Groups["bytes"].Value, System.Globalization.NumberStyles.None,
+                            System.Globalization.CultureInfo.InvariantCulture, out var sectionBytes))
+                    {
+                        throw new CaptureFormatException(path,
+                            $"binary data section header gives {Shorten(header.Groups["bytes"].Value)} bytes, more than any file holds", lineNumber);
+                    }
+
+                    dataBytes = sectionBytes;
+                    stream.Seek(Math.Min(sectionBytes, stream.Length - stream.Position), SeekOrigin.Current);
                     current = "DAT";
                     break;
                 default:
@@ -145,7 +177,9 @@ internal sealed partial record ComtradeContainer(
         return new ComtradeContainer(path, cfg, cfgFirst, path, dataOffset.Value, dataBytes, dataFirstLine, true);
     }
 
-    private static bool ReadLine(Stream stream, List<byte> line)
+    /// <summary>The next line's bytes (without the newline); a line longer than the limit is refused as soon as it
+    /// gets there, so an INF or HDR section of one huge line costs no more memory than a short one.</summary>
+    private static bool ReadLine(Stream stream, List<byte> line, string path, long lineNumber)
     {
         line.Clear();
         int b;
@@ -156,11 +190,17 @@ internal sealed partial record ComtradeContainer(
                 return true;
             }
 
+            if (line.Count == CaptureLimits.MaxLineLength)
+            {
+                throw new CaptureFormatException(path,
+                    $"the line is longer than {CaptureLimits.MaxLineLength} bytes (1 MiB), the limit for a line of a COMTRADE file", lineNumber);
+            }
+
             line.Add((byte)b);
         }
 
         return line.Count > 0;
     }
 
-    private static string Shorten(string text) => text.Length <= 60 ? text : text[..60] + "...";
+    private static string Shorten(string text) => ShownText.Of(text);
 }

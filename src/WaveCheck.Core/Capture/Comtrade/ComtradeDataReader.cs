@@ -53,6 +53,13 @@ internal abstract class ComtradeDataReader : IDisposable
     /// <summary>Skips <paramref name="frames"/> frames (to reach a later rate section).</summary>
     public abstract void Skip(long frames);
 
+    /// <summary>An error placed at one value of the last <see cref="Read"/>: the line and field (ASCII) or the byte
+    /// (binary), and the sample.</summary>
+    /// <param name="frame">Frame index within the last read.</param>
+    /// <param name="channel">0-based analog channel.</param>
+    /// <param name="problem">What is wrong.</param>
+    public abstract CaptureFormatException ValueError(int frame, int channel, string problem);
+
     /// <inheritdoc />
     public abstract void Dispose();
 }
@@ -76,10 +83,11 @@ internal sealed class ComtradeBinaryReader : ComtradeDataReader
         _frameBytes = config.BinaryFrameBytes;
         var toEnd = stream.Length - _dataStart;
         _availableBytes = byteLength is null ? toEnd : Math.Min(byteLength.Value, toEnd);
-        var needed = config.TotalSamples * _frameBytes;
-        if (_availableBytes < needed)
+        var whole = _availableBytes / _frameBytes;
+        if (config.TotalSamples > whole)
         {
-            var whole = _availableBytes / _frameBytes;
+            // TotalSamples is bounded by the cfg parser (2^40), so the product cannot overflow.
+            var needed = config.TotalSamples * _frameBytes;
             throw new CaptureFormatException(filePath,
                 $"the data ends after {whole} whole samples ({_availableBytes} bytes); the cfg says {config.TotalSamples} samples of {_frameBytes} bytes ({needed} bytes)",
                 byteOffset: _dataStart + _availableBytes, sampleIndex: whole);
@@ -88,7 +96,16 @@ internal sealed class ComtradeBinaryReader : ComtradeDataReader
         _chunk = ArrayPool<byte>.Shared.Rent(_frameBytes * FramesPerChunk);
     }
 
+    private long _lastReadStart;
+
     public override string Place => $"byte {_dataStart + (Position * _frameBytes)}";
+
+    public override CaptureFormatException ValueError(int frame, int channel, string problem)
+    {
+        var sample = _lastReadStart + frame;
+        return new CaptureFormatException(FilePath, problem,
+            byteOffset: _dataStart + (sample * _frameBytes) + 8 + (channel * Config.AnalogValueBytes), sampleIndex: sample);
+    }
 
     public override bool HasExtraData() => _availableBytes > Config.TotalSamples * _frameBytes;
 
@@ -98,6 +115,7 @@ internal sealed class ComtradeBinaryReader : ComtradeDataReader
         var valueBytes = Config.AnalogValueBytes;
         var type = Config.FileType;
         var done = 0;
+        _lastReadStart = Position;
         while (done < maxFrames)
         {
             var frames = (int)Math.Min(Math.Min(maxFrames - done, FramesPerChunk), (_availableBytes / _frameBytes) - Position);
@@ -163,6 +181,8 @@ internal sealed class ComtradeAsciiReader : ComtradeDataReader
     private bool _eof;
     private bool _sectionEnded;
     private long _lineNumber;
+    private long _lastReadStart;
+    private long[] _frameLines = [];
 
     public ComtradeAsciiReader(string filePath, Stream stream, ComtradeConfig config, long firstLineNumber)
         : base(filePath, config)
@@ -173,15 +193,25 @@ internal sealed class ComtradeAsciiReader : ComtradeDataReader
 
     public override string Place => $"line {_lineNumber}";
 
+    public override CaptureFormatException ValueError(int frame, int channel, string problem) =>
+        new(FilePath, problem, _frameLines[frame], channel + 3, sampleIndex: _lastReadStart + frame);
+
     public override bool HasExtraData() => TryNextLine(out _);
 
     public override int Read(Span<double> raw, Span<long> stamps, int maxFrames)
     {
         var analogCount = Config.Analog.Count;
         var done = 0;
+        _lastReadStart = Position;
+        if (_frameLines.Length < maxFrames)
+        {
+            _frameLines = new long[maxFrames];
+        }
+
         while (done < maxFrames && TryNextLine(out var line))
         {
             ParseLine(line, raw.Slice(done * analogCount, analogCount), out stamps[done]);
+            _frameLines[done] = _lineNumber;
             done++;
             Position++;
         }
@@ -228,6 +258,11 @@ internal sealed class ComtradeAsciiReader : ComtradeDataReader
             {
                 throw Error($"analog channel {field - 1} value '{Text(text)}' is not a number", field + 1);
             }
+            else if (!double.IsFinite(values[field - 2]))
+            {
+                // NaN and infinities are no measurements; a missing value is an empty field (clause 8.3).
+                throw Error($"analog channel {field - 1} value '{Text(text)}' is not a finite number", field + 1);
+            }
 
             field++;
             if (comma < 0)
@@ -247,7 +282,7 @@ internal sealed class ComtradeAsciiReader : ComtradeDataReader
     private CaptureFormatException Error(string problem, int? column) =>
         new(FilePath, problem, _lineNumber, column, sampleIndex: Position);
 
-    private static string Text(ReadOnlySpan<byte> utf8) => System.Text.Encoding.UTF8.GetString(utf8);
+    private static string Text(ReadOnlySpan<byte> utf8) => ShownText.Of(utf8);
 
     /// <summary>Next non-blank line without its line end; false at the end of the data.</summary>
     private bool TryNextLine(out ReadOnlySpan<byte> line)
@@ -293,6 +328,12 @@ internal sealed class ComtradeAsciiReader : ComtradeDataReader
             _buffer.AsSpan(_start, _end - _start).CopyTo(_buffer);
             _end -= _start;
             _start = 0;
+        }
+
+        if (_end >= CaptureLimits.MaxLineLength)
+        {
+            throw new CaptureFormatException(FilePath, string.Create(CultureInfo.InvariantCulture,
+                $"the line is longer than {CaptureLimits.MaxLineLength} bytes (1 MiB), the limit for a line of a COMTRADE file"), _lineNumber + 1);
         }
 
         if (_end == _buffer.Length)

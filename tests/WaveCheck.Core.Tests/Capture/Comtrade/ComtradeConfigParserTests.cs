@@ -30,7 +30,7 @@ public sealed class ComtradeConfigParserTests
         Assert.Equal('S', config.Analog[3].PrimaryOrSecondary);
         Assert.Equal(400, config.Analog[3].Primary);
         Assert.Equal(50, config.LineFrequencyHz);
-        Assert.Equal(new ComtradeRateSection(4000, 1, 800), Assert.Single(config.RateSections));
+        Assert.Equal(new ComtradeRateSection(4000, 1, 800) { Line = 12 }, Assert.Single(config.RateSections));
         Assert.Equal(ComtradeDataFileType.Binary, config.FileType);
         // Binary frame, 2013 clause 8.4 (from memory): 4 + 4 + 5 × 2 + one status word of 2 bytes.
         Assert.Equal(20, config.BinaryFrameBytes);
@@ -67,8 +67,8 @@ public sealed class ComtradeConfigParserTests
         { 9, 0, "2,Status 2", 9, null, "digital channel 2: expected 5 fields (Dn,ch_id,ph,ccbm,y), found 2" },
         { 10, 1, "fifty", 10, 1, "line frequency 'fifty' is not a number" },
         { 11, 1, "two", 11, 1, "number of sample rates 'two' is not a whole number" },
-        { 11, 1, "-1", 11, 1, "number of sample rates -1 is negative" },
-        { 12, 1, "0", 12, 1, "sample rate 1: rate 0 Hz is not positive" },
+        { 11, 1, "-1", 11, 1, "number of sample rates -1 is outside 0 to 1000" },
+        { 12, 1, "0", 12, 1, "sample rate 1: rate 0 Hz is outside 1 Hz to 10 MHz" },
         { 12, 2, "0", 12, 2, "sample rate 1: last sample number 0 does not follow 0" },
         { 12, 0, "4000", 12, null, "sample rate 1: expected 2 fields (samp,endsamp), found 1" },
         { 13, 1, "2026-12-01", 13, 1, "start date '2026-12-01' is not dd/mm/yyyy" },
@@ -76,7 +76,7 @@ public sealed class ComtradeConfigParserTests
         { 14, 2, "08:15:30.1234567890", 14, 2, "trigger time '08:15:30.1234567890' is not hh:mm:ss.ssssss" },
         { 15, 1, "HEX", 15, 1, "data file type 'HEX' is not ASCII, BINARY, BINARY32 or FLOAT32" },
         { 16, 1, "fast", 16, 1, "time stamp multiplier 'fast' is not a number" },
-        { 16, 1, "0", 16, 1, "time stamp multiplier 0 is not positive" },
+        { 16, 1, "0", 16, 1, "time stamp multiplier 0 is outside 1E-12 to 1E+09" },
         { 17, 1, "zulu", 17, 1, "time code 'zulu' is not an offset from UTC" },
         { 17, 2, "+5h75", 17, 2, "local code '+5h75' is not an offset from UTC" },
     };
