@@ -78,8 +78,8 @@ internal sealed class ReportOptionSet
 [Flags]
 internal enum FailOnFindings
 {
-    None = 0,
-    Upgrade = 1,
-    Nuisance = 2,
-    Alarm = 4,
+    None = WaveCheck.Core.Results.Finding.None,
+    Upgrade = WaveCheck.Core.Results.Finding.Upgrade,
+    Nuisance = WaveCheck.Core.Results.Finding.Nuisance,
+    Alarm = WaveCheck.Core.Results.Finding.Alarm,
 }

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Net;
 using System.Text;
+using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Results;
 using WaveCheck.Core.Survey;
 
@@ -48,13 +49,12 @@ public static class SurveyIndexWriter
 
     /// <summary>The symbol and word shown for a verdict.</summary>
     /// <param name="verdict">A <see cref="SurveyRow.Verdict"/> value.</param>
-    public static string VerdictLabel(string verdict) => verdict switch
+    public static string VerdictLabel(SurveyVerdict verdict) => verdict switch
     {
-        SurveyRow.VerdictOk => "✔ OK",
-        SurveyRow.VerdictUpgrade => "✖ upgrade",
-        SurveyRow.VerdictCannotTell => "? cannot tell",
-        SurveyRow.VerdictError => "⚠ error",
-        _ => verdict,
+        SurveyVerdict.Ok => "✔ OK",
+        SurveyVerdict.Upgrade => "✖ upgrade",
+        SurveyVerdict.CannotTell => "? cannot tell",
+        _ => "⚠ error",
     };
 
     private static void Captures(StringBuilder html, IReadOnlyList<SurveyRow> rows)
@@ -64,7 +64,7 @@ public static class SurveyIndexWriter
             .Append("<th>Nuisance tripping</th><th>Finding</th></tr>\n");
         foreach (var row in rows)
         {
-            html.Append("<tr class=\"v-").Append(E(row.Verdict)).Append("\"><td>").Append(E(row.Circuit ?? "—")).Append("</td><td>");
+            html.Append("<tr class=\"v-").Append(E(VerdictText.Of(row.Verdict))).Append("\"><td>").Append(E(row.Circuit ?? "—")).Append("</td><td>");
             var name = Path.GetFileName(row.File);
             if (row.ReportPath is { Length: > 0 } report)
             {
@@ -75,7 +75,7 @@ public static class SurveyIndexWriter
                 html.Append(E(name));
             }
 
-            var required = row.RequiredType ?? (row.MinimumType is null ? "—" : $"at least {row.MinimumType}");
+            var required = row.RequiredType?.ToTradeName() ?? (row.MinimumType is { } minimum ? $"at least {minimum.ToTradeName()}" : "—");
             html.Append("</td><td>").Append(E(row.InstalledType ?? "not given"))
                 .Append("</td><td class=\"n\">").Append(E(CurrentText.WithUnit(row.RatedResidualCurrentA)))
                 .Append("</td><td>").Append(E(required))
@@ -83,7 +83,7 @@ public static class SurveyIndexWriter
                 .Append("</td><td class=\"n\">").Append(E(Amps(row.WorstWindowRmsA)))
                 .Append("</td><td class=\"n\">").Append(E(Amps(row.SmoothDcA) + (row.SmoothDcKnown == false ? " (sensor cannot show DC)" : string.Empty)))
                 .Append("</td><td class=\"n\">").Append(E(Amps(row.Above1kHzRmsA)))
-                .Append("</td><td>").Append(E(row.NuisanceRisk is null ? "—" : $"{row.NuisanceRisk}, margin {Amps(row.NuisanceMarginA)}"))
+                .Append("</td><td>").Append(E(row.NuisanceRisk is not { } risk ? "—" : $"{VerdictText.Of(risk)}, margin {Amps(row.NuisanceMarginA)}"))
                 .Append("</td><td>").Append(E(row.Error ?? row.Headline ?? string.Empty)).Append("</td></tr>\n");
         }
 
@@ -100,14 +100,14 @@ public static class SurveyIndexWriter
         html.Append("<h2>Upstream devices</h2>\n<table>\n<tr><th>Device</th><th>Check</th><th>Finding</th><th>Explanation</th></tr>\n");
         foreach (var group in upstream)
         {
-            var device = $"{group.Name} (type {group.DeviceType}, {CurrentText.WithUnit(group.RatedResidualCurrentA)}, {group.Members.Count} circuits)"
+            var device = $"{group.Name} (type {group.DeviceType.ToTradeName()}, {CurrentText.WithUnit(group.RatedResidualCurrentA)}, {group.Members.Count} circuits)"
                 + (group.Complete ? string.Empty : " — incomplete");
             html.Append("<tr><td rowspan=\"3\">").Append(E(device)).Append("</td>");
-            Check(html, "Standing leakage", group.LeakageRisk, group.LeakageExplanation, group.LeakageRisk == "low");
+            Check(html, "Standing leakage", VerdictText.Of(group.LeakageRisk), group.LeakageExplanation, group.LeakageRisk == RiskLevel.Low);
             html.Append("<tr>");
-            Check(html, "Smooth DC (blinding)", group.DcRisk, group.DcExplanation, group.DcBlinded == false);
+            Check(html, "Smooth DC (blinding)", VerdictText.Of(group.DcRisk), group.DcExplanation, group.DcBlinded == false);
             html.Append("<tr>");
-            Check(html, "Device type", group.TypeRisk, group.TypeExplanation, group.TypeMismatch == false);
+            Check(html, "Device type", VerdictText.Of(group.TypeRisk), group.TypeExplanation, group.TypeMismatch == false);
         }
 
         html.Append("</table>\n");
@@ -138,9 +138,9 @@ public static class SurveyIndexWriter
         {
             switch (row.Verdict)
             {
-                case SurveyRow.VerdictOk: ok++; break;
-                case SurveyRow.VerdictUpgrade: upgrade++; break;
-                case SurveyRow.VerdictError: error++; break;
+                case SurveyVerdict.Ok: ok++; break;
+                case SurveyVerdict.Upgrade: upgrade++; break;
+                case SurveyVerdict.Error: error++; break;
                 default: cannot++; break;
             }
         }

@@ -1,3 +1,4 @@
+using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Results;
 
@@ -160,7 +161,7 @@ internal static class ResultBuilder
         RatedResidualCurrentA = RatedA,
         InstalledType = "AC",
         InstalledAdequate = false,
-        Regime = "iec",
+        Regime = Regime.Iec,
         Accuracy = "2%+0.1mA",
         Classes =
         [
@@ -176,7 +177,7 @@ internal static class ResultBuilder
             new TypeVerdict("B", true, ["covers type F (IEC 62423)"]),
             new TypeVerdict("B+", null, ["content above 12.5 kHz cannot be seen at this sample rate"]),
         ],
-        NuisanceTrip = new NuisanceTripResult("low", "A", 0.0068, 0.015, 0.0082, 54.7, 0.009, true,
+        NuisanceTrip = new NuisanceTripResult(RiskLevel.Low, "A", 0.0068, 0.015, 0.0082, 54.7, 0.009, true,
             [new FrequencyContribution("mains", 45, 55, 0.005, 1, 0.005), new FrequencyContribution("1-20 kHz", 1000, 20000, 0.0006, double.PositiveInfinity, 0)],
             "standing current 6.80 mA is 45 % of the 15.0 mA non-operating limit"),
         Blinding = new BlindingResult("A", blinded ? 0.0084 : 0.0023, 0.006, blinded, blinded ? "smooth DC above the 6 mA tolerance of type A" : "smooth DC 2.30 mA within 6 mA"),

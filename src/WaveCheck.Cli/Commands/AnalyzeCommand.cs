@@ -154,12 +154,7 @@ internal static class AnalyzeCommand
     /// <summary>Exit code 1 only for the findings the user asked to fail on.</summary>
     internal static int Exit(Evaluation evaluation, FailOnFindings failOn)
     {
-        var a = evaluation.Assessment;
-        var finding =
-            (failOn.HasFlag(FailOnFindings.Upgrade) && a.InstalledAdequate == false) ||
-            (failOn.HasFlag(FailOnFindings.Nuisance) && a.NuisanceTrip.Risk is "possible" or "likely") ||
-            (failOn.HasFlag(FailOnFindings.Alarm) && evaluation.Analysis.Events.Any(e => e.Kind == "alarm"));
-        return finding ? CliRun.Finding : CliRun.Ok;
+        return (Findings.Of(evaluation.Analysis) & (Finding)failOn) != Finding.None ? CliRun.Finding : CliRun.Ok;
     }
 
     /// <summary>Streams each window's row into the CSV as it completes; the file appears only when the run succeeds.</summary>

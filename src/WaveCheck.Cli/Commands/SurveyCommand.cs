@@ -50,7 +50,7 @@ internal static class SurveyCommand
                 Sensor = parse.GetValue(sensor) is { } s ? SensorCouplingNames.Parse("--sensor", s) : null,
                 ScaleA = parse.GetValue(scale) is { } sc ? Quantity.ParsePositiveCurrentA("--scale", sc) : null,
                 Regime = parse.GetValue(regime) is { } rg
-                    ? RegimeNames.TryParse(rg, out _) ? rg.Trim().ToLowerInvariant() : throw new OptionValueException("--regime", rg, "iec or na")
+                    ? RegimeNames.TryParse(rg, out var parsedRegime) ? parsedRegime : throw new OptionValueException("--regime", rg, "iec or na")
                     : null,
             };
             var fail = ParseFailOn(parse.GetValue(failOn));
@@ -121,18 +121,15 @@ internal static class SurveyCommand
 
     internal static int Exit(SurveyDocument document, (bool Upgrade, bool Nuisance, bool Error) fail)
     {
-        if (document.Rows.Count > 0 && document.Rows.All(r => r.Verdict == SurveyRow.VerdictError))
+        if (document.Rows.Count > 0 && document.Rows.All(r => r.Verdict == SurveyVerdict.Error))
         {
             CliRun.PrintError($"survey: none of the {document.Rows.Count} captures could be read; first: {document.Rows[0].Error}");
             return CliRun.BadInput;
         }
 
-        var finding =
-            (fail.Upgrade && document.Rows.Any(r => r.Verdict == SurveyRow.VerdictUpgrade)) ||
-            (fail.Nuisance && (document.Rows.Any(r => r.NuisanceRisk is "possible" or "likely") ||
-                               document.Upstream.Any(u => u.LeakageRisk is "possible" or "likely"))) ||
-            (fail.Error && document.Rows.Any(r => r.Verdict == SurveyRow.VerdictError));
-        return finding ? CliRun.Finding : CliRun.Ok;
+        var asked = (fail.Upgrade ? Finding.Upgrade : Finding.None) | (fail.Nuisance ? Finding.Nuisance : Finding.None)
+            | (fail.Error ? Finding.Error : Finding.None);
+        return (Findings.Of(document) & asked) != Finding.None ? CliRun.Finding : CliRun.Ok;
     }
 
     private static void Print(IAnsiConsole console, SurveyDocument document, string outputDirectory)
@@ -150,19 +147,19 @@ internal static class SurveyCommand
                 new Text(Path.GetFileName(row.File)),
                 new Text(row.Circuit ?? ""),
                 new Text(row.InstalledType is { } i ? $"{i} {CurrentText.WithUnit(row.RatedResidualCurrentA)}" : "-"),
-                new Text(row.RequiredType ?? (row.MinimumType is { } m ? $"≥ {m}?" : "-")),
-                new Text(row.Verdict == SurveyRow.VerdictError ? "error: " + row.Error : SurveyIndexWriter.VerdictLabel(row.Verdict)),
+                new Text(row.RequiredType?.ToTradeName() ?? (row.MinimumType is { } m ? $"≥ {m.ToTradeName()}?" : "-")),
+                new Text(row.Verdict == SurveyVerdict.Error ? "error: " + row.Error : SurveyIndexWriter.VerdictLabel(row.Verdict)),
                 new Text(row.RmsA is { } rms ? CurrentText.WithUnit(rms) : ""),
                 new Text(row.SmoothDcA is { } dc ? CurrentText.WithUnit(dc) : ""),
                 new Text(row.Above1kHzRmsA is { } hf ? CurrentText.WithUnit(hf) : ""),
-                new Text(row.NuisanceRisk ?? ""));
+                new Text(row.NuisanceRisk is { } risk ? VerdictText.Of(risk) : ""));
         }
 
         console.Write(table);
         foreach (var u in document.Upstream)
         {
             console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"upstream {u.Name} (type {u.DeviceType}, {CurrentText.WithUnit(u.RatedResidualCurrentA)}): leakage {u.LeakageRisk}: {u.LeakageExplanation}"));
+                $"upstream {u.Name} (type {u.DeviceType.ToTradeName()}, {CurrentText.WithUnit(u.RatedResidualCurrentA)}): leakage {VerdictText.Of(u.LeakageRisk)}: {u.LeakageExplanation}"));
             console.WriteLine($"  DC {u.DcRisk}: {u.DcExplanation}");
             console.WriteLine($"  type {u.TypeRisk}: {u.TypeExplanation}");
         }

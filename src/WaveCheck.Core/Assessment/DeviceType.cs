@@ -7,18 +7,23 @@ namespace WaveCheck.Core.Assessment;
 public enum DeviceType
 {
     /// <summary>Type AC: sinusoidal AC residual current only.</summary>
+    [System.Text.Json.Serialization.JsonStringEnumMemberName("AC")]
     AC = 0,
 
     /// <summary>Type A: as AC, plus pulsating DC, with up to 6 mA smooth DC superimposed.</summary>
+    [System.Text.Json.Serialization.JsonStringEnumMemberName("A")]
     A = 1,
 
     /// <summary>Type F: as A, plus composite residual current of single-phase frequency converters; 10 mA smooth DC.</summary>
+    [System.Text.Json.Serialization.JsonStringEnumMemberName("F")]
     F = 2,
 
     /// <summary>Type B: as F, plus smooth DC, multi-phase rectified current, AC up to 1 kHz (IEC 62423).</summary>
+    [System.Text.Json.Serialization.JsonStringEnumMemberName("B")]
     B = 3,
 
     /// <summary>Extended-frequency type B (national designation B+, DIN VDE 0664-400): tripping defined up to 20 kHz.</summary>
+    [System.Text.Json.Serialization.JsonStringEnumMemberName("B+")]
     BPlus = 4,
 }
 

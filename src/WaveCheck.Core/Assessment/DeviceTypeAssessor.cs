@@ -83,7 +83,7 @@ public static class DeviceTypeAssessor
             AcceptedProtection = required is { } r ? Accepted(r, present, options.EvChargingPoint, dcReachesRdcDd) : null,
             Classes = [.. classes.Select(c => c.ToResult())],
             Accuracy = th.Accuracy.ToString(),
-            Regime = options.Regime.ToText(),
+            Regime = options.Regime,
             Types = verdicts,
             NuisanceTrip = Margins.NuisanceTrip(assessed, m, th, pulsatingForWeights),
             Blinding = blinding,

@@ -56,14 +56,14 @@ internal static class Margins
         var acc = th.Accuracy;
         var likely = acc.Compare(standing, th.LikelyFraction * rated) != LimitState.Below;
         var possible = acc.Compare(standing, th.PossibleFraction * rated) != LimitState.Below;
-        var risk = likely ? "likely" : possible ? "possible" : "low";
+        var risk = likely ? RiskLevel.Likely : possible ? RiskLevel.Possible : RiskLevel.Low;
         var withinBudget = acc.Compare(standing, budget) == LimitState.Below;
         var name = type.ToTradeName();
         var explanation =
             $"Standing residual current {Ma(standing)} (each frequency range's worst window, unweighted) against the non-operating current 0.5 IΔn = {Ma(limit)}, "
             + $"which a compliant device guarantees in every frequency range (IEC 61008-1, IEC 62423): margin {Ma(margin)} ({margin / limit * 100:0} %); "
             + $"leakage budget {th.LeakageBudgetFraction:0.##} IΔn = {Ma(budget)} (IEC 60364-5-53 §531.3.2) {(withinBudget ? "kept" : "exceeded or at its limit")}. "
-            + $"Risk {risk}: likely from {th.LikelyFraction:0.##} IΔn, possible from {th.PossibleFraction:0.##} IΔn (engineering choice), each within the measurement uncertainty ({acc}) counted as reached. "
+            + $"Risk {VerdictText.Of(risk)}: likely from {th.LikelyFraction:0.##} IΔn, possible from {th.PossibleFraction:0.##} IΔn (engineering choice), each within the measurement uncertainty ({acc}) counted as reached. "
             + $"A typical type {name} device responds as to {Ma(typical)} (each range weighted by the type's tripping factor, second figure).";
         return new NuisanceTripResult(risk, name, standing, limit, margin, margin / limit * 100, budget, withinBudget,
             parts, explanation, typical);

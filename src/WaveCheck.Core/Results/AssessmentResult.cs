@@ -50,8 +50,8 @@ public sealed record AssessmentResult
     /// <summary>Installed type adequate (true), not adequate (false), not determinable (null); null also when none given.</summary>
     public bool? InstalledAdequate { get; init; }
 
-    /// <summary><c>iec</c> or <c>na</c>.</summary>
-    public required string Regime { get; init; }
+    /// <summary>Rules judged by (JSON <c>iec</c> or <c>na</c>).</summary>
+    public required Assessment.Regime Regime { get; init; }
 
     /// <summary>A verdict for every type AC, A, F, B, B+.</summary>
     public required IReadOnlyList<TypeVerdict> Types { get; init; }
@@ -105,7 +105,7 @@ public sealed record TypeVerdict(string Type, bool? Suitable, IReadOnlyList<stri
 public sealed record ThresholdUse(string Name, double Value, string Unit, string Source);
 
 /// <summary>Nuisance tripping: standing residual current against the non-operating limit and the leakage budget.</summary>
-/// <param name="Risk"><c>low</c>, <c>possible</c> or <c>likely</c>.</param>
+/// <param name="Risk">Low, possible or likely (JSON <c>low</c>, <c>possible</c>, <c>likely</c>).</param>
 /// <param name="DeviceType">Type the margin is computed for.</param>
 /// <param name="StandingA">Standing residual current, unweighted (each range's worst window, in quadrature), amperes: compared with the guaranteed non-operating current 0.5 IΔn, which holds in every frequency range.</param>
 /// <param name="NonOperatingLimitA">0.5 IΔn, amperes.</param>
@@ -116,7 +116,7 @@ public sealed record ThresholdUse(string Name, double Value, string Unit, string
 /// <param name="Contributions">Per frequency range: measured RMS, the type's tripping factor, weighted RMS.</param>
 /// <param name="Explanation">For a person.</param>
 /// <param name="TypicalStandingA">Second figure: the standing current as a typical device of the type responds to it (each range weighted by its tripping factor), amperes.</param>
-public sealed record NuisanceTripResult(string Risk, string DeviceType, double StandingA, double NonOperatingLimitA,
+public sealed record NuisanceTripResult(RiskLevel Risk, string DeviceType, double StandingA, double NonOperatingLimitA,
     double MarginA, double MarginPercent, double LeakageBudgetA, bool WithinLeakageBudget,
     IReadOnlyList<FrequencyContribution> Contributions, string Explanation, double TypicalStandingA = 0);
 

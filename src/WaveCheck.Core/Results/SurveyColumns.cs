@@ -1,4 +1,5 @@
 using System.Globalization;
+using WaveCheck.Core.Assessment;
 using Parquet;
 using Parquet.Schema;
 using WaveCheck.Core.Survey;
@@ -85,15 +86,15 @@ internal static class SurveyColumns
         new TextColumn<SurveyRow>("circuit", r => r.Circuit, nullable: true),
         new TextColumn<SurveyRow>("installedType", r => r.InstalledType, nullable: true),
         new NumberColumn<SurveyRow>("ratedResidualCurrentA", r => r.RatedResidualCurrentA),
-        new TextColumn<SurveyRow>("requiredType", r => r.RequiredType, nullable: true),
-        new TextColumn<SurveyRow>("minimumType", r => r.MinimumType, nullable: true),
-        new TextColumn<SurveyRow>("verdict", r => r.Verdict, nullable: false),
+        new TextColumn<SurveyRow>("requiredType", r => r.RequiredType?.ToTradeName(), nullable: true),
+        new TextColumn<SurveyRow>("minimumType", r => r.MinimumType?.ToTradeName(), nullable: true),
+        new TextColumn<SurveyRow>("verdict", r => VerdictText.Of(r.Verdict), nullable: false),
         new NumberColumn<SurveyRow>("rmsA", r => r.RmsA),
         new NumberColumn<SurveyRow>("worstWindowRmsA", r => r.WorstWindowRmsA),
         new NumberColumn<SurveyRow>("smoothDcA", r => r.SmoothDcA),
         new FlagColumn<SurveyRow>("smoothDcKnown", r => r.SmoothDcKnown),
         new NumberColumn<SurveyRow>("above1kHzRmsA", r => r.Above1kHzRmsA),
-        new TextColumn<SurveyRow>("nuisanceRisk", r => r.NuisanceRisk, nullable: true),
+        new TextColumn<SurveyRow>("nuisanceRisk", r => r.NuisanceRisk is { } risk ? VerdictText.Of(risk) : null, nullable: true),
         new NumberColumn<SurveyRow>("nuisanceMarginA", r => r.NuisanceMarginA),
         new FlagColumn<SurveyRow>("blinded", r => r.Blinded),
         new TextColumn<SurveyRow>("headline", r => r.Headline, nullable: true),

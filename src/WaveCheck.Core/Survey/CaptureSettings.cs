@@ -30,7 +30,7 @@ public sealed record CaptureSettings
     public bool ChargerDcDetection { get; init; }
 
     /// <summary>Rules to judge by: <c>iec</c> or <c>na</c> (UL 943).</summary>
-    public string Regime { get; init; } = "iec";
+    public Regime Regime { get; init; } = Regime.Iec;
 
     /// <summary>The circuit feeds an EV charging point (IEC 60364-7-722 guidance applies).</summary>
     public bool Ev { get; init; }
@@ -61,7 +61,7 @@ public sealed record CaptureSettingsPatch
     public SensorCoupling? Sensor { get; init; }
 
     /// <summary><c>iec</c> or <c>na</c>.</summary>
-    public string? Regime { get; init; }
+    public Regime? Regime { get; init; }
 
     /// <summary>EV charging point.</summary>
     public bool? Ev { get; init; }

@@ -573,16 +573,12 @@ public static class SiteConfigReader
             };
         }
 
-        private string? RegimeOf(Node value)
+        private Regime? RegimeOf(Node value)
         {
             var text = OptionalString(value, "regime");
-            return text?.Trim().ToLowerInvariant() switch
-            {
-                null => null,
-                "iec" => "iec",
-                "na" => "na",
-                _ => throw Error(value, $"\"regime\": cannot use \"{text}\": expected \"iec\" or \"na\""),
-            };
+            return text is null ? null
+                : RegimeNames.TryParse(text, out var regime) ? regime
+                : throw Error(value, $"\"regime\": cannot use \"{text}\": expected \"iec\" or \"na\"");
         }
 
         private bool? BoolOf(Node value, string key) => value.Kind switch

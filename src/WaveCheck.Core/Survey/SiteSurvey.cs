@@ -159,7 +159,7 @@ public static class SiteSurvey
         {
             RatedResidualCurrentA = settings.RatedResidualCurrentA,
             InstalledType = settings.InstalledType,
-            Regime = RegimeNames.TryParse(settings.Regime, out var regime) ? regime : Regime.Iec,
+            Regime = settings.Regime,
             EvChargingPoint = settings.Ev,
             InstalledRdcDd = settings.InstalledRdcDd,
             ChargerDcDetection = settings.Ev && settings.ChargerDcDetection,

@@ -9,38 +9,28 @@ namespace WaveCheck.Core.Survey;
 /// </summary>
 public sealed record SurveyRow
 {
-    /// <summary>Verdict: the installed device is adequate.</summary>
-    public const string VerdictOk = "ok";
-
-    /// <summary>Verdict: the installed device is not adequate.</summary>
-    public const string VerdictUpgrade = "upgrade";
-
-    /// <summary>Verdict: adequacy cannot be decided (no installed type given, or the capture cannot show enough).</summary>
-    public const string VerdictCannotTell = "cannot-tell";
-
-    /// <summary>Verdict: the capture could not be analysed; see <see cref="Error"/>.</summary>
-    public const string VerdictError = "error";
-
     /// <summary>The capture (the job's path).</summary>
     public required string File { get; init; }
 
     /// <summary>Circuit name; null when not given.</summary>
     public string? Circuit { get; init; }
 
-    /// <summary>Installed device type (<c>AC</c>, <c>A</c>, <c>F</c>, <c>B</c>, <c>B+</c>); null when not given.</summary>
+    /// <summary>Installed device type (<c>AC</c>, <c>A</c>, <c>F</c>, <c>B</c>, <c>B+</c>), with its DC detection where one
+    /// is declared (<c>A+RDC-DD</c>); null when not given.</summary>
     public string? InstalledType { get; init; }
 
     /// <summary>Rated residual operating current IΔn the circuit was judged against, amperes.</summary>
     public required double RatedResidualCurrentA { get; init; }
 
     /// <summary>Least capable type that covers the waveform; null when it cannot be determined or on error.</summary>
-    public string? RequiredType { get; init; }
+    public DeviceType? RequiredType { get; init; }
 
     /// <summary>Lowest type that may be required once what the capture could not show is measured; null on error.</summary>
-    public string? MinimumType { get; init; }
+    public DeviceType? MinimumType { get; init; }
 
-    /// <summary><c>ok</c>, <c>upgrade</c>, <c>cannot-tell</c> or <c>error</c>; see <see cref="VerdictOf"/>.</summary>
-    public required string Verdict { get; init; }
+    /// <summary>Ok, upgrade, cannot tell or error (JSON <c>ok</c>, <c>upgrade</c>, <c>cannot-tell</c>, <c>error</c>);
+    /// see <see cref="VerdictOf"/>.</summary>
+    public required SurveyVerdict Verdict { get; init; }
 
     /// <summary>Whole-capture true RMS, amperes.</summary>
     public double? RmsA { get; init; }
@@ -60,7 +50,7 @@ public sealed record SurveyRow
     public double? Above1kHzRmsA { get; init; }
 
     /// <summary>Nuisance-tripping risk for the installed (or required) type: <c>low</c>, <c>possible</c>, <c>likely</c>.</summary>
-    public string? NuisanceRisk { get; init; }
+    public RiskLevel? NuisanceRisk { get; init; }
 
     /// <summary>0.5 IΔn minus the weighted standing current, amperes (negative: above the non-operating limit).</summary>
     public double? NuisanceMarginA { get; init; }
@@ -93,12 +83,12 @@ public sealed record SurveyRow
     /// </remarks>
     /// <param name="installedType">Installed type as given; null when not given.</param>
     /// <param name="installedAdequate">The assessment's finding.</param>
-    public static string VerdictOf(string? installedType, bool? installedAdequate) =>
-        installedType is null ? VerdictCannotTell : installedAdequate switch
+    public static SurveyVerdict VerdictOf(string? installedType, bool? installedAdequate) =>
+        installedType is null ? SurveyVerdict.CannotTell : installedAdequate switch
         {
-            true => VerdictOk,
-            false => VerdictUpgrade,
-            null => VerdictCannotTell,
+            true => SurveyVerdict.Ok,
+            false => SurveyVerdict.Upgrade,
+            null => SurveyVerdict.CannotTell,
         };
 
     /// <summary>The row of a capture that was analysed and assessed.</summary>
@@ -113,7 +103,8 @@ public sealed record SurveyRow
         ArgumentNullException.ThrowIfNull(settings);
         ArgumentNullException.ThrowIfNull(analysis);
         ArgumentNullException.ThrowIfNull(assessment);
-        var installed = assessment.InstalledType ?? settings.InstalledType?.ToTradeName();
+        // The protection in full (A+RDC-DD): at a charging point a plain A and an A with DC detection differ in verdict.
+        var installed = assessment.InstalledProtection ?? assessment.InstalledType ?? settings.InstalledType?.ToTradeName();
         var worstRms = analysis.Windows.Statistics.TryGetValue("rmsA", out var rms) ? rms.Max : analysis.Summary.RmsA;
         return new SurveyRow
         {
@@ -121,8 +112,8 @@ public sealed record SurveyRow
             Circuit = settings.Circuit,
             InstalledType = installed,
             RatedResidualCurrentA = assessment.RatedResidualCurrentA,
-            RequiredType = assessment.RequiredType,
-            MinimumType = assessment.MinimumType,
+            RequiredType = DeviceTypeNames.TryParse(assessment.RequiredType, out var required) ? required : null,
+            MinimumType = DeviceTypeNames.TryParse(assessment.MinimumType, out var minimum) ? minimum : null,
             Verdict = VerdictOf(installed, assessment.InstalledAdequate),
             RmsA = analysis.Summary.RmsA,
             WorstWindowRmsA = worstRms,
@@ -152,7 +143,7 @@ public sealed record SurveyRow
             Circuit = settings.Circuit,
             InstalledType = settings.InstalledType?.ToTradeName(),
             RatedResidualCurrentA = settings.RatedResidualCurrentA,
-            Verdict = VerdictError,
+            Verdict = SurveyVerdict.Error,
             Error = message,
         };
     }

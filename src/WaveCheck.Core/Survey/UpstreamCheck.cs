@@ -91,7 +91,7 @@ public static class UpstreamCheck
         double standing = 0, dc = 0;
         foreach (var row in members)
         {
-            if (row.Verdict == SurveyRow.VerdictError)
+            if (row.Verdict == SurveyVerdict.Error)
             {
                 failed.Add(row.File);
                 continue;
@@ -104,7 +104,7 @@ public static class UpstreamCheck
                 dcUnknown.Add(Path.GetFileName(row.File));
             }
 
-            var needed = ParseType(row.RequiredType) ?? ParseType(row.MinimumType);
+            var needed = row.RequiredType ?? row.MinimumType;
             if (needed > type)
             {
                 needMore.Add($"{Name(row)} needs type {needed.Value.ToTradeName()}");
@@ -118,8 +118,9 @@ public static class UpstreamCheck
         var complete = failed.Count == 0;
         var budget = LeakageBudgetFactor * rated;
         var limit = NonOperatingFactor * rated;
-        var within = standing <= budget;
-        var leakageRisk = standing > limit ? "likely" : !within ? "possible" : complete ? "low" : "incomplete";
+        // At the boundary counts as reached, as in the capture's own nuisance margin (Margins.NuisanceTrip).
+        var within = standing < budget;
+        var leakageRisk = standing >= limit ? RiskLevel.Likely : !within ? RiskLevel.Possible : complete ? RiskLevel.Low : RiskLevel.Incomplete;
         var tolerance = DcToleranceA(type, rated);
         bool? blinded = dc > tolerance ? true : complete && dcUnknown.Count == 0 ? false : null;
         bool? mismatch = needMore.Count > 0 ? true : complete && typeUnknown.Count == 0 ? false : null;
@@ -129,8 +130,8 @@ public static class UpstreamCheck
         var deviceText = $"type {type.ToTradeName()} {CurrentText.WithUnit(rated)}";
         var leakageText = leakageRisk switch
         {
-            "likely" => $"Standing residual current of the circuits adds up to {CurrentText.WithUnit(standing)}, above 0.5 IΔn = {CurrentText.WithUnit(limit)} of the {deviceText} device: it may trip without a fault.",
-            "possible" => $"Standing residual current of the circuits adds up to {CurrentText.WithUnit(standing)}, above the 0.3 IΔn budget of {CurrentText.WithUnit(budget)} (IEC 60364-5-53 §531.3.2) though below 0.5 IΔn = {CurrentText.WithUnit(limit)}.",
+            RiskLevel.Likely => $"Standing residual current of the circuits adds up to {CurrentText.WithUnit(standing)}, above 0.5 IΔn = {CurrentText.WithUnit(limit)} of the {deviceText} device: it may trip without a fault.",
+            RiskLevel.Possible => $"Standing residual current of the circuits adds up to {CurrentText.WithUnit(standing)}, above the 0.3 IΔn budget of {CurrentText.WithUnit(budget)} (IEC 60364-5-53 §531.3.2) though below 0.5 IΔn = {CurrentText.WithUnit(limit)}.",
             _ => $"Standing residual current of the circuits adds up to {CurrentText.WithUnit(standing)} at most (arithmetic sum of worst windows), within the 0.3 IΔn budget of {CurrentText.WithUnit(budget)}, margin {CurrentText.WithUnit(budget - standing)}.",
         } + missing;
         var dcText = blinded switch
@@ -151,7 +152,7 @@ public static class UpstreamCheck
         return new UpstreamResult
         {
             Name = group.Name,
-            DeviceType = type.ToTradeName(),
+            DeviceType = type,
             RatedResidualCurrentA = rated,
             Members = group.Members,
             Complete = complete,
@@ -167,15 +168,14 @@ public static class UpstreamCheck
             SmoothDcSumA = dc,
             DcToleranceA = tolerance,
             DcBlinded = blinded,
-            DcRisk = blinded switch { true => "blinded", false => "none", null => "cannot-tell" },
+            DcRisk = blinded switch { true => DcCheck.Blinded, false => DcCheck.None, null => DcCheck.CannotTell },
             DcExplanation = dcText,
             TypeMismatch = mismatch,
-            TypeRisk = mismatch switch { true => "mismatch", false => "ok", null => "cannot-tell" },
+            TypeRisk = mismatch switch { true => TypeCheck.Mismatch, false => TypeCheck.Ok, null => TypeCheck.CannotTell },
             TypeExplanation = typeText,
         };
     }
 
-    private static DeviceType? ParseType(string? name) => DeviceTypeNames.TryParse(name, out var type) ? type : null;
 
     private static string Name(SurveyRow row) => row.Circuit ?? Path.GetFileName(row.File);
 }
@@ -187,8 +187,8 @@ public sealed record UpstreamResult
     /// <summary>The upstream device's name.</summary>
     public required string Name { get; init; }
 
-    /// <summary>Its type (trade name).</summary>
-    public required string DeviceType { get; init; }
+    /// <summary>Its type (JSON: the trade name).</summary>
+    public required DeviceType DeviceType { get; init; }
 
     /// <summary>Its IΔn, amperes.</summary>
     public required double RatedResidualCurrentA { get; init; }
@@ -222,7 +222,7 @@ public sealed record UpstreamResult
 
     /// <summary><c>low</c> (within budget), <c>possible</c> (over budget, under 0.5 IΔn), <c>likely</c> (over 0.5 IΔn),
     /// <c>incomplete</c> (within budget on the members counted, but some failed).</summary>
-    public required string LeakageRisk { get; init; }
+    public required RiskLevel LeakageRisk { get; init; }
 
     /// <summary>One line for a person.</summary>
     public required string LeakageExplanation { get; init; }
@@ -237,7 +237,7 @@ public sealed record UpstreamResult
     public bool? DcBlinded { get; init; }
 
     /// <summary><c>none</c>, <c>blinded</c> or <c>cannot-tell</c>.</summary>
-    public required string DcRisk { get; init; }
+    public required DcCheck DcRisk { get; init; }
 
     /// <summary>One line for a person.</summary>
     public required string DcExplanation { get; init; }
@@ -246,7 +246,7 @@ public sealed record UpstreamResult
     public bool? TypeMismatch { get; init; }
 
     /// <summary><c>ok</c>, <c>mismatch</c> or <c>cannot-tell</c>.</summary>
-    public required string TypeRisk { get; init; }
+    public required TypeCheck TypeRisk { get; init; }
 
     /// <summary>One line for a person.</summary>
     public required string TypeExplanation { get; init; }

@@ -1,4 +1,5 @@
 using System.Globalization;
+using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Results;
 using WaveCheck.Rendering.Plots;
@@ -618,19 +619,18 @@ public static class ReportWriter
         _ => "not stated",
     };
 
-    private static string RegimeText(string regime) => regime switch
+    private static string RegimeText(Regime regime) => regime switch
     {
-        "iec" => "IEC (RCD types AC, A, F, B, B+)",
-        "na" => "North America (UL 943 GFCI figures added)",
-        _ => regime,
+        Regime.Iec => "IEC (RCD types AC, A, F, B, B+)",
+        _ => "North America (UL 943 GFCI figures added)",
     };
 
-    private static string RiskText(string risk) => risk switch
+    private static string RiskText(RiskLevel risk) => risk switch
     {
-        "low" => "low",
-        "possible" => "⚠ possible",
-        "likely" => "✘ likely",
-        _ => risk,
+        RiskLevel.Low => "low",
+        RiskLevel.Possible => "⚠ possible",
+        RiskLevel.Likely => "✘ likely",
+        _ => "incomplete",
     };
 
     private static string TripsText(bool? trips) => trips switch

@@ -424,7 +424,7 @@ public class DeviceTypeAssessorTests
     public void NorthAmericanRegimeAddsGfciFigures()
     {
         var r = Assess(new AnalysisBuilder().Sine(0.010), new AssessmentOptions { Regime = Regime.Na });
-        Assert.Equal("na", r.Regime);
+        Assert.Equal(Regime.Na, r.Regime);
         Assert.NotNull(r.Gfci);
         Assert.Null(Assess(new AnalysisBuilder().Sine(0.010)).Gfci);
     }

@@ -1,3 +1,4 @@
+using WaveCheck.Core.Results;
 using WaveCheck.Core.Assessment;
 
 namespace WaveCheck.Core.Tests.Assessment;
@@ -20,7 +21,7 @@ public class MarginsTests
         Assert.Equal(20.0, n.MarginPercent, 9);
         Assert.Equal(0.009, n.LeakageBudgetA, 12);
         Assert.False(n.WithinLeakageBudget);
-        Assert.Equal("possible", n.Risk);
+        Assert.Equal(RiskLevel.Possible, n.Risk);
     }
 
     [Theory]
@@ -31,7 +32,7 @@ public class MarginsTests
     public void RiskFollowsTheDocumentedBoundaries(double standingA, string risk, double marginA)
     {
         var n = Nuisance(new AnalysisBuilder().Sine(standingA), DeviceType.AC);
-        Assert.Equal(risk, n.Risk);
+        Assert.Equal(risk, VerdictText.Of(n.Risk));
         Assert.Equal(marginA, n.MarginA, 12);
     }
 
@@ -62,7 +63,7 @@ public class MarginsTests
         // Primary, unweighted: sqrt(20² + 5²) mA for either type (Parseval), against 0.5 IΔn (IEC 61008-1, IEC 62423).
         Assert.Equal(Math.Sqrt((0.020 * 0.020) + (0.005 * 0.005)), nb.StandingA, 12);
         Assert.Equal(nb.StandingA, Nuisance(b, DeviceType.A).StandingA, 12);
-        Assert.Equal("likely", nb.Risk);
+        Assert.Equal(RiskLevel.Likely, nb.Risk);
     }
 
     [Fact]
@@ -80,9 +81,9 @@ public class MarginsTests
     public void OverriddenBoundariesChangeTheRisk()
     {
         var b = new AnalysisBuilder().Sine(0.010);
-        Assert.Equal("possible", Nuisance(b, DeviceType.A).Risk);
+        Assert.Equal(RiskLevel.Possible, Nuisance(b, DeviceType.A).Risk);
         var r = DeviceTypeAssessor.Assess(b.Build(), new AssessmentOptions { PossibleRiskFraction = 0.4 });
-        Assert.Equal("low", r.NuisanceTrip.Risk);
+        Assert.Equal(RiskLevel.Low, r.NuisanceTrip.Risk);
         var budget = DeviceTypeAssessor.Assess(b.Build(), new AssessmentOptions { LeakageBudgetFraction = 0.4 });
         Assert.True(budget.NuisanceTrip.WithinLeakageBudget);
     }

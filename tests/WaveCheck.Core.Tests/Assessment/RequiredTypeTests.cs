@@ -1,3 +1,4 @@
+using WaveCheck.Core.Results;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Signal;
@@ -221,7 +222,7 @@ public class RequiredTypeTests
         // IEC 62423: a compliant type B may trip on smooth DC from 0.5 IΔn (15 mA for 30 mA); 20 mA standing DC
         // leaves a guaranteed margin of −5 mA, risk likely, whatever the 2 IΔn upper limit.
         var r = Evaluate([new SmoothDcComponent(0.020)], new AssessmentOptions { InstalledType = DeviceType.B });
-        Assert.Equal("likely", r.Assessment.NuisanceTrip.Risk);
+        Assert.Equal(RiskLevel.Likely, r.Assessment.NuisanceTrip.Risk);
         Assert.Equal(-0.005, r.Assessment.NuisanceTrip.MarginA, 0.0002);
         Assert.True(r.Assessment.NuisanceTrip.TypicalStandingA < r.Assessment.NuisanceTrip.StandingA);
     }

@@ -1,3 +1,4 @@
+using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Results;
 using WaveCheck.Core.Survey;
@@ -32,7 +33,7 @@ internal sealed record ResultBuilder
 
     public bool? Blinded { get; init; } = false;
 
-    public string NuisanceRisk { get; init; } = "low";
+    public RiskLevel NuisanceRisk { get; init; } = RiskLevel.Low;
 
     public double NuisanceMarginA { get; init; } = 0.010;
 
@@ -93,7 +94,7 @@ internal sealed record ResultBuilder
         RatedResidualCurrentA = RatedResidualCurrentA,
         InstalledType = InstalledType,
         InstalledAdequate = InstalledAdequate,
-        Regime = "iec",
+        Regime = Regime.Iec,
         Types = [],
         NuisanceTrip = new NuisanceTripResult(NuisanceRisk, InstalledType ?? "A", WorstWindowRmsA, 0.5 * RatedResidualCurrentA,
             NuisanceMarginA, 0, 0.3 * RatedResidualCurrentA, true, [], "test"),

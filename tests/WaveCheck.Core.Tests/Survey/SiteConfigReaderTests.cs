@@ -64,7 +64,7 @@ public class SiteConfigReaderTests
         Assert.True(c6.Ev);
         Assert.Equal("2", c6.Import.Channel);
         Assert.Equal(DeviceType.BPlus, c6.InstalledType);
-        Assert.Equal("na", c6.Regime);
+        Assert.Equal(Regime.Na, c6.Regime);
 
         var q2 = Assert.Single(site.Upstream);
         Assert.Equal("Q2 sub-board RCD", q2.Name);

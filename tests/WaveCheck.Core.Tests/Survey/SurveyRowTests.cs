@@ -1,3 +1,4 @@
+using WaveCheck.Core.Results;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Survey;
 
@@ -14,7 +15,7 @@ public class SurveyRowTests
     [InlineData(null, false, "cannot-tell")]
     [InlineData(null, null, "cannot-tell")]
     public void Verdict_follows_the_rule(string? installed, bool? adequate, string expected) =>
-        Assert.Equal(expected, SurveyRow.VerdictOf(installed, adequate));
+        Assert.Equal(expected, VerdictText.Of(SurveyRow.VerdictOf(installed, adequate)));
 
     [Fact]
     public void From_carries_the_figures_of_the_analysis_and_assessment()
@@ -33,7 +34,7 @@ public class SurveyRowTests
             InstalledAdequate = false,
             RatedResidualCurrentA = 0.3,
             Blinded = true,
-            NuisanceRisk = "possible",
+            NuisanceRisk = RiskLevel.Possible,
             NuisanceMarginA = 0.0021,
             Headline = "smooth DC 7.1 mA: type B",
         };
@@ -44,14 +45,14 @@ public class SurveyRowTests
         Assert.Equal("C3 compressor", row.Circuit);
         Assert.Equal("A", row.InstalledType);
         Assert.Equal(0.3, row.RatedResidualCurrentA);
-        Assert.Equal("B", row.RequiredType);
-        Assert.Equal("upgrade", row.Verdict);
+        Assert.Equal(DeviceType.B, row.RequiredType);
+        Assert.Equal(SurveyVerdict.Upgrade, row.Verdict);
         Assert.Equal(0.004, row.RmsA);
         Assert.Equal(0.0062, row.WorstWindowRmsA);
         Assert.Equal(-0.0071, row.SmoothDcA);
         Assert.True(row.SmoothDcKnown);
         Assert.Equal(0.0013, row.Above1kHzRmsA);
-        Assert.Equal("possible", row.NuisanceRisk);
+        Assert.Equal(RiskLevel.Possible, row.NuisanceRisk);
         Assert.Equal(0.0021, row.NuisanceMarginA);
         Assert.True(row.Blinded);
         Assert.Equal("smooth DC 7.1 mA: type B", row.Headline);
@@ -67,7 +68,7 @@ public class SurveyRowTests
     {
         var row = new ResultBuilder { Blinded = null, InstalledAdequate = null }.Row("c4.wav");
         Assert.False(row.SmoothDcKnown);
-        Assert.Equal("cannot-tell", row.Verdict);
+        Assert.Equal(SurveyVerdict.CannotTell, row.Verdict);
     }
 
     [Fact]
@@ -75,7 +76,7 @@ public class SurveyRowTests
     {
         var settings = new CaptureSettings { Circuit = "C9", InstalledType = DeviceType.F, RatedResidualCurrentA = 0.1 };
         var row = SurveyRow.Failed("c9.wav", settings, "c9.wav: not a WAV file");
-        Assert.Equal("error", row.Verdict);
+        Assert.Equal(SurveyVerdict.Error, row.Verdict);
         Assert.Equal("F", row.InstalledType);
         Assert.Equal(0.1, row.RatedResidualCurrentA);
         Assert.Equal("c9.wav: not a WAV file", row.Error);

@@ -1,3 +1,4 @@
+using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Results;
 using WaveCheck.Core.Survey;
@@ -23,7 +24,7 @@ public class SurveyRunnerTests
         }, maxParallel: 2);
 
         Assert.Equal(["a.wav", "bad.wav", "io.wav", "bug.wav", "e.wav"], outcomes.Select(o => o.Row.File));
-        Assert.Equal(["ok", "error", "error", "error", "ok"], outcomes.Select(o => o.Row.Verdict));
+        Assert.Equal([SurveyVerdict.Ok, SurveyVerdict.Error, SurveyVerdict.Error, SurveyVerdict.Error, SurveyVerdict.Ok], outcomes.Select(o => o.Row.Verdict));
         Assert.Equal("bad.wav: byte 0: not a WAV file: no RIFF header", outcomes[1].Row.Error);
         Assert.Equal("io.wav: file not found", outcomes[2].Row.Error);
         Assert.StartsWith("internal error:", outcomes[3].Row.Error, StringComparison.Ordinal);

@@ -1,3 +1,4 @@
+using WaveCheck.Core.Results;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Survey;
 
@@ -36,7 +37,7 @@ public class UpstreamCheckTests
         Assert.True(result.WithinLeakageBudget);
         Assert.Equal(0.050, result.NonOperatingLimitA, Tolerance);
         Assert.Equal(0.025, result.NonOperatingMarginA, Tolerance);
-        Assert.Equal("low", result.LeakageRisk);
+        Assert.Equal(RiskLevel.Low, result.LeakageRisk);
         Assert.True(result.Complete);
         Assert.Contains("25.0 mA", result.LeakageExplanation, StringComparison.Ordinal);
         Assert.Contains("margin 5.00 mA", result.LeakageExplanation, StringComparison.Ordinal);
@@ -50,7 +51,7 @@ public class UpstreamCheckTests
             [Member("c1.wav", 0.004), Member("c2.wav", 0.009), Member("c3.wav", 0.025)]);
         Assert.Equal(-0.008, result.LeakageMarginA, Tolerance);
         Assert.False(result.WithinLeakageBudget);
-        Assert.Equal("possible", result.LeakageRisk);
+        Assert.Equal(RiskLevel.Possible, result.LeakageRisk);
     }
 
     [Fact]
@@ -60,7 +61,7 @@ public class UpstreamCheckTests
         var result = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav", "c2.wav", "c3.wav"),
             [Member("c1.wav", 0.020), Member("c2.wav", 0.020), Member("c3.wav", 0.015)]);
         Assert.Equal(-0.005, result.NonOperatingMarginA, Tolerance);
-        Assert.Equal("likely", result.LeakageRisk);
+        Assert.Equal(RiskLevel.Likely, result.LeakageRisk);
     }
 
     [Theory]
@@ -83,12 +84,12 @@ public class UpstreamCheckTests
         var a = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav", "c2.wav", "c3.wav"), members);
         Assert.Equal(0.0065, a.SmoothDcSumA, Tolerance);
         Assert.True(a.DcBlinded);
-        Assert.Equal("blinded", a.DcRisk);
+        Assert.Equal(DcCheck.Blinded, a.DcRisk);
 
         // Same circuits behind a type F: 6.5 mA within 10 mA (IEC 62423).
         var f = UpstreamCheck.Evaluate(Group(DeviceType.F, 0.100, "c1.wav", "c2.wav", "c3.wav"), members);
         Assert.False(f.DcBlinded);
-        Assert.Equal("none", f.DcRisk);
+        Assert.Equal(DcCheck.None, f.DcRisk);
     }
 
     [Fact]
@@ -97,7 +98,7 @@ public class UpstreamCheckTests
         var members = new[] { Member("c1.wav", 0.001, 0.002), Member("c2.wav", 0.001, 0, dcKnown: false) };
         var within = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav", "c2.wav"), members);
         Assert.Null(within.DcBlinded);
-        Assert.Equal("cannot-tell", within.DcRisk);
+        Assert.Equal(DcCheck.CannotTell, within.DcRisk);
         Assert.Contains("c2.wav", within.DcExplanation, StringComparison.Ordinal);
 
         // Already over on what is known: 7 mA > 6 mA, blinded whatever the unknown member adds.
@@ -113,14 +114,14 @@ public class UpstreamCheckTests
         var result = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav", "c2.wav"),
             [Member("c1.wav", 0.001, required: "A"), Member("c2.wav", 0.001, required: "B", minimum: "B")]);
         Assert.True(result.TypeMismatch);
-        Assert.Equal("mismatch", result.TypeRisk);
+        Assert.Equal(TypeCheck.Mismatch, result.TypeRisk);
         Assert.Contains("c2 needs type B", result.TypeExplanation, StringComparison.Ordinal);
 
         // Behind a type B device the same circuits are fine.
         var b = UpstreamCheck.Evaluate(Group(DeviceType.B, 0.100, "c1.wav", "c2.wav"),
             [Member("c1.wav", 0.001, required: "A"), Member("c2.wav", 0.001, required: "B", minimum: "B")]);
         Assert.False(b.TypeMismatch);
-        Assert.Equal("ok", b.TypeRisk);
+        Assert.Equal(TypeCheck.Ok, b.TypeRisk);
     }
 
     [Fact]
@@ -133,7 +134,7 @@ public class UpstreamCheckTests
         // Minimum A behind A, required unknown: cannot tell.
         var unsure = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav"), [Member("c1.wav", 0.001, required: null, minimum: "A")]);
         Assert.Null(unsure.TypeMismatch);
-        Assert.Equal("cannot-tell", unsure.TypeRisk);
+        Assert.Equal(TypeCheck.CannotTell, unsure.TypeRisk);
     }
 
     [Fact]
@@ -144,7 +145,7 @@ public class UpstreamCheckTests
         Assert.False(result.Complete);
         Assert.Equal(["c2.wav"], result.FailedMembers);
         Assert.Equal(0.004, result.StandingSumA, Tolerance);   // only the analysed member counts
-        Assert.Equal("incomplete", result.LeakageRisk);
+        Assert.Equal(RiskLevel.Incomplete, result.LeakageRisk);
         Assert.Null(result.DcBlinded);
         Assert.Null(result.TypeMismatch);
         Assert.Contains("1 of 2 circuits was not analysed and not counted (c2.wav)", result.LeakageExplanation, StringComparison.Ordinal);
@@ -152,7 +153,7 @@ public class UpstreamCheckTests
 
         // Over the non-operating limit on the analysed members alone (60 mA > 50 mA): likely, still marked incomplete.
         var over = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav", "c2.wav"), [Member("c1.wav", 0.060), failed]);
-        Assert.Equal("likely", over.LeakageRisk);
+        Assert.Equal(RiskLevel.Likely, over.LeakageRisk);
         Assert.False(over.Complete);
     }
 
