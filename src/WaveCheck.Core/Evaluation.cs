@@ -5,11 +5,14 @@ using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core;
 
-/// <summary>A capture measured and judged: the analysis with its touch-current figures, and the verdict on it.</summary>
-/// <param name="Analysis">What was measured.</param>
-/// <param name="Assessment">What it demands.</param>
-public sealed record Evaluation(AnalysisResult Analysis, AssessmentResult Assessment)
+/// <summary>A capture measured and judged: the analysis with its touch-current figures and, inside it, the verdict.</summary>
+/// <param name="Analysis">What was measured, with its <see cref="AnalysisResult.Assessment"/> (the one holder of the verdict).</param>
+public sealed record Evaluation(AnalysisResult Analysis)
 {
+    /// <summary>What the capture demands: the analysis's own assessment.</summary>
+    public AssessmentResult Assessment => Analysis.Assessment
+        ?? throw new InvalidOperationException("an evaluation always carries its assessment");
+
     /// <summary>A capture whose samples all lie within this span is flat (engineering choice: 1 µA, below any
     /// residual current that matters and above the quantisation of a 16-bit recorder on a 30 mA range).</summary>
     public const double FlatSpanA = 1e-6;
@@ -49,7 +52,7 @@ public sealed record Evaluation(AnalysisResult Analysis, AssessmentResult Assess
         }
 
         var assessment = DeviceTypeAssessor.Assess(analysis, assessmentOptions);
-        return new Evaluation(analysis with { Assessment = assessment }, assessment);
+        return new Evaluation(analysis with { Assessment = assessment });
     }
 
     /// <summary>Opens <paramref name="path"/> and runs <see cref="Run(ICaptureSource, AnalysisOptions, AssessmentOptions, IProgress{double}?, CancellationToken)"/>.</summary>

@@ -119,7 +119,7 @@ internal static class AnalyzeCommand
             var result = evaluation.Analysis;
             if (jsonPath is not null)
             {
-                ResultJson.Write(jsonPath, result, token);
+                ResultJson.Write(jsonPath, result, token, Console.Out);
                 plan.MarkWritten("--json");
             }
 

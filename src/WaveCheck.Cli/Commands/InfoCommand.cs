@@ -41,7 +41,7 @@ internal static class InfoCommand
             List<CaptureWarning> warnings = [.. source.Warnings, .. scan.Warnings];
             if (jsonPath is not null)
             {
-                ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings), run.Token);
+                ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings), run.Token, Console.Out);
                 plan.MarkWritten("--json");
                 if (jsonPath == "-")
                 {

@@ -12,15 +12,18 @@ public static class ResultJson
     /// <summary>Serializes a value to indented JSON text.</summary>
     public static string Serialize<T>(T value) => JsonSerializer.Serialize(value, Options);
 
-    /// <summary>Writes JSON to <paramref name="path"/> (whole or not at all), or to stdout when the path is <c>-</c>.</summary>
+    /// <summary>Writes JSON to <paramref name="path"/> (whole or not at all), or to <paramref name="standardOutput"/>
+    /// when the path is <c>-</c> (Core writes to no console of its own: the caller passes its writer).</summary>
     /// <param name="path">Target file, or <c>-</c>.</param>
     /// <param name="value">What to write.</param>
     /// <param name="cancellationToken">As for <see cref="AtomicFile.Write"/>.</param>
-    public static void Write<T>(string path, T value, CancellationToken cancellationToken = default)
+    /// <param name="standardOutput">Where <c>-</c> goes; required when the path is <c>-</c>.</param>
+    public static void Write<T>(string path, T value, CancellationToken cancellationToken = default, TextWriter? standardOutput = null)
     {
         if (path == "-")
         {
-            Console.Out.WriteLine(Serialize(value));
+            ArgumentNullException.ThrowIfNull(standardOutput);
+            standardOutput.WriteLine(Serialize(value));
             return;
         }
 
