@@ -34,13 +34,14 @@ public static class Gfci
                 + classA switch { true => "trips on the standing current alone.", false => "below the must-not-trip level.", null => "between the two levels: may trip." },
             $"Special purpose (UL 943C classes C, D, E): trip threshold {Ma(Limits.GfciSpecialPurposeLowA)} to {Ma(Limits.GfciSpecialPurposeTripA)}; standing {Ma(standingRmsA)}: "
                 + special switch { true => "trips on the standing current alone.", false => "below the threshold.", null => "inside the threshold band: may trip." },
-            "Trip time T = (20 / I)^1.43 s, I in mA rms, stated for 6 to 264 mA (UL 943).",
+            string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"Trip time T = ({Limits.GfciTripTimeReferenceA * 1000:0.##} / I)^{Limits.GfciTripTimeExponent:0.##} s, I in mA rms, stated for {Limits.GfciClassAMustTripA * 1000:0.##} to {Limits.GfciTripTimeMaxA * 1000:0.##} mA (UL 943)."),
             "UL 943 states no DC sensitivity requirement: a GFCI's response to smooth or pulsating DC is not specified; ask the maker.",
             "The standing current is the worst window's true RMS (DC included), the conservative reading.",
         };
         if (standingRmsA > Limits.GfciTripTimeMaxA)
         {
-            notes.Add($"The standing current {Ma(standingRmsA)} is above the formula's 264 mA range; the time shown is the formula's value.");
+            notes.Add($"The standing current {Ma(standingRmsA)} is above the formula's {Ma(Limits.GfciTripTimeMaxA)} range; the time shown is the formula's value.");
         }
 
         return new GfciResult(standingRmsA, classA, TripTimeS(standingRmsA), special,

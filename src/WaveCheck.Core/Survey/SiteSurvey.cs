@@ -112,11 +112,15 @@ public static class SiteSurvey
             ? ParquetTables.OpenWindows(Path.Combine(folder, "windows.parquet"))
             : null;
 
+        // Captures run side by side, so each analysis gets its share of the cores, not all of them: no nested
+        // parallelism (ProcessorCount captures each with ProcessorCount workers oversubscribed the machine).
+        var parallel = Math.Max(1, Math.Min(options.MaxParallel ?? Environment.ProcessorCount, jobs.Count));
+        var perCapture = Math.Max(1, Math.Min(options.Analysis.WorkerCount, Environment.ProcessorCount / parallel));
         var outcomes = SurveyRunner.Run(jobs, (job, token) =>
         {
             var analysisOptions = windows is null
-                ? options.Analysis
-                : options.Analysis with { WindowCompleted = w => windows.Add(job.File, w) };
+                ? options.Analysis with { WorkerCount = perCapture }
+                : options.Analysis with { WorkerCount = perCapture, WindowCompleted = w => windows.Add(job.File, w) };
             var evaluation = Evaluation.Run(job.File, job.Settings.Import, analysisOptions, ToAssessmentOptions(job.Settings),
                 cancellationToken: token);
             string? report = null;
