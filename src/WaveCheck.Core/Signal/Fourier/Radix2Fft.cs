@@ -8,6 +8,9 @@ namespace WaveCheck.Core.Signal;
 /// In-place radix-2 complex FFT of a power-of-two length on split real/imaginary arrays, with the twiddle factors and
 /// bit-reversal table built once. Immutable after construction, so one instance may be shared between threads.
 /// </summary>
+/// <remarks>One algorithm in both directions (decimation in time and in frequency), kept in one file because
+/// Bluestein's convolution pairs them to skip the bit-reversal passes; the length is the vectorised radix-4 passes
+/// of each.</remarks>
 internal sealed class Radix2Fft
 {
     // Twiddles of every stage side by side: stage of half-size h uses entries h..2h−1, e^{−iπ j/h}.
