@@ -94,8 +94,9 @@ internal static class FourierBaseline
         var bytes = double.PositiveInfinity;
         for (var round = 0; round < 7; round++)
         {
+            var watch = new Stopwatch();
             var allocated = GC.GetAllocatedBytesForCurrentThread();
-            var watch = Stopwatch.StartNew();
+            watch.Start();
             for (var i = 0; i < calls; i++)
             {
                 action();
