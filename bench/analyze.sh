@@ -3,7 +3,8 @@
 # 1-minute one: wall time, CPU time (user + system: other processes may share the machine) and peak RSS, median and
 # best of RUNS; then the same with the program published ReadyToRun (start-up without JIT; skipped if the publish
 # fails); then the peak RSS on a 1-hour capture (memory must not grow with the capture's length); then the engine
-# alone (bench/AnalyzeBench: synthetic capture, no file reading) and its per-stage costs.
+# alone (bench/AnalyzeBench: synthetic capture, no file reading), its per-stage costs and the FFT against the
+# library baseline (MathNet.Numerics; docs/fft.md).
 # Targets: >= 50 million samples/s through the whole analysis (a 10-minute 50 kS/s capture in < 1 s after start-up),
 # peak memory < 200 MB whatever the length. Generated data goes to $BENCH_DIR (default /tmp/wavecheck-bench) and is
 # not committed. MINUTES (default 10) sets the timed capture, LONG_MINUTES (default 60; 0 to skip) the memory one.
@@ -133,3 +134,5 @@ dotnet "$here/AnalyzeBench/bin/Release/net10.0/AnalyzeBench.dll" wav "$wav"
 echo "== engine only (bench/AnalyzeBench, synthetic capture, after warm-up)"
 dotnet "$here/AnalyzeBench/bin/Release/net10.0/AnalyzeBench.dll" "$minutes" "$rate"
 dotnet "$here/AnalyzeBench/bin/Release/net10.0/AnalyzeBench.dll" stages "$rate"
+echo "== the FFT against the library baseline (MathNet.Numerics), one window (docs/fft.md)"
+dotnet "$here/AnalyzeBench/bin/Release/net10.0/AnalyzeBench.dll" fft

@@ -1,7 +1,8 @@
 // Core-level benchmark of the analysis engine: a synthetic capture generated block by block (no file, no reader),
 // so the figures are the engine's own. Usage: dotnet run -c Release -- [minutes=10] [rateHz=50000]; WORKERS=n sets
 // AnalysisOptions.WorkerCount (default the processor count; 1 measures windows on the calling thread).
-// `wav FILE` times the whole analysis of a real file in-process; `stages` the per-window cost of each stage.
+// `wav FILE` times the whole analysis of a real file in-process; `stages` the per-window cost of each stage; `fft`
+// the hand-written FFT against the library baseline (MathNet.Numerics).
 using System.Diagnostics;
 using System.Globalization;
 using WaveCheck.Core.Capture;
@@ -42,6 +43,12 @@ if (args.Length > 1 && args[0] == "wav")
     cpus.Sort();
     Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
         $"in-process, after warm-up, {samples} samples: best {walls[0]:0.000} s ({samples / walls[0] / 1e6:0.0} Msamples/s), median {walls[rounds / 2]:0.000} s ({samples / walls[rounds / 2] / 1e6:0.0} Msamples/s), CPU best {cpus[0]:0.000} s; {allocatedMb:0.0} MB allocated and {collections:0.#} gen-0 collections a run"));
+    return;
+}
+
+if (args.Length > 0 && args[0] == "fft")
+{
+    FourierBaseline.Run();
     return;
 }
 

@@ -100,13 +100,4 @@ public class MainsFrequencyTests
         Assert.Equal(60, result.Mains.NominalHz);
         Assert.Equal(12, result.Windows.CyclesPerWindow);
     }
-
-    [Fact]
-    public void OtherNominalFrequencyUsesCyclesNearest200Ms()
-    {
-        // 400 Hz nominal: 80 cycles = 200 ms.
-        Assert.Equal(80, CaptureAnalysis.CyclesFor(400));
-        Assert.Equal(10, CaptureAnalysis.CyclesFor(50));
-        Assert.Equal(12, CaptureAnalysis.CyclesFor(60));
-    }
 }

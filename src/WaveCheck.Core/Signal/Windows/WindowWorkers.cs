@@ -1,52 +1,17 @@
 namespace WaveCheck.Core.Signal;
 
 /// <summary>
-/// One analysis window on its way through <see cref="CaptureAnalysis"/>: its samples, where it starts and the
-/// frequency tracked for it (set by the calling thread), then its spectrum and shape (set by a worker).
-/// </summary>
-internal sealed class WindowSlot(int capacity)
-{
-    /// <summary>Sample buffer, filled from the start; <see cref="Length"/> values are the window.</summary>
-    public double[] Samples { get; } = new double[capacity];
-
-    /// <summary>Mean-square spectrum, <see cref="Length"/>/2 + 1 bins.</summary>
-    public double[] Power { get; } = new double[(capacity / 2) + 1];
-
-    /// <summary>Samples in the window.</summary>
-    public int Length { get; set; }
-
-    /// <summary>Index of the window's first sample in the capture.</summary>
-    public long Start { get; set; }
-
-    /// <summary>Mains frequency tracked for the window, hertz.</summary>
-    public double FrequencyHz { get; set; }
-
-    /// <summary>Sum, sum of squares, least and greatest sample of the window.</summary>
-    public (double Sum, double Squares, double Min, double Max) Moments { get; set; }
-
-    /// <summary>Smooth DC, pulsating DC and current delay angle of the window.</summary>
-    public ShapeFigures Shape { get; set; }
-
-    /// <summary>The window's samples.</summary>
-    public ReadOnlySpan<double> Window => Samples.AsSpan(0, Length);
-
-    /// <summary>The window's spectrum.</summary>
-    public ReadOnlySpan<double> Bins => Power.AsSpan(0, (Length / 2) + 1);
-}
-
-/// <summary>
-/// Measures the spectra and shapes of a batch of windows, and feeds its samples to the sample sinks, on worker threads
-/// while the caller reads on; the caller joins in when it waits, so a batch is shared out to every participant by a
-/// job counter (no thread sits idle while another has work). Each participant has its own plans and scratch. The
-/// work on a window depends only on the batch (two odd windows of equal length in it share one complex transform),
-/// never on which thread does it, so the figures are the same for every worker count. The sinks get the batch's
-/// windows in order, in one job, so they see the capture's samples in order and never two threads at once. One batch
-/// in flight at a time; not thread-safe towards its caller.
+/// Measures a batch of windows (the spectrum, then <see cref="WindowMeasurement"/>) and feeds its samples to the
+/// sample sinks, on worker threads while the caller reads on; the caller joins in when it waits, so a batch is shared
+/// out to every participant by a job counter (no thread sits idle while another has work). Each participant has its
+/// own plans and measurement (with its scratch). The work on a window depends only on the batch (two odd windows of
+/// equal length in it share one complex transform), never on which thread does it, so the figures are the same for
+/// every worker count. The sinks get the batch's windows in order, in one job, so they see the capture's samples in
+/// order and never two threads at once. One batch in flight at a time; not thread-safe towards its caller.
 /// </summary>
 internal sealed class WindowWorkers
 {
-    private readonly (SpectrumPlans Plans, WaveformShape Shape)[] _tools;
-    private readonly int _cycles;
+    private readonly (SpectrumPlans Plans, WindowMeasurement Measurement)[] _tools;
     private readonly List<(WindowSlot? First, WindowSlot? Second)> _jobs = [];
     private readonly Task[] _tasks;
     private readonly List<WindowSlot> _batch = [];
@@ -55,14 +20,13 @@ internal sealed class WindowWorkers
     private bool _running;
 
     /// <summary>Creates the tools of <paramref name="workers"/> participants: the caller and workers − 1 threads
-    /// (1: all the work runs on the calling thread in <see cref="Start"/>).</summary>
-    public WindowWorkers(int workers, int cycles, double restBandA = WaveformShape.DefaultRestBandA)
+    /// (1: all the work runs on the calling thread in <see cref="Start"/>), each with its own measurement.</summary>
+    public WindowWorkers(int workers, Func<WindowMeasurement> createMeasurement)
     {
-        _cycles = cycles;
-        _tools = new (SpectrumPlans, WaveformShape)[workers];
+        _tools = new (SpectrumPlans, WindowMeasurement)[workers];
         for (var i = 0; i < workers; i++)
         {
-            _tools[i] = (new SpectrumPlans(), new WaveformShape(restBandA));
+            _tools[i] = (new SpectrumPlans(), createMeasurement());
         }
 
         _tasks = new Task[workers - 1];
@@ -153,7 +117,7 @@ internal sealed class WindowWorkers
 
     private void Drain(int participant)
     {
-        var (plans, shape) = _tools[participant];
+        var (plans, measurement) = _tools[participant];
         int j;
         while ((j = Interlocked.Increment(ref _next) - 1) < _jobs.Count)
         {
@@ -172,10 +136,10 @@ internal sealed class WindowWorkers
             else
             {
                 plan.PowerPair(first.Window, second.Window, first.Power, second.Power);
-                Measure(second, shape);
+                measurement.Measure(second);
             }
 
-            Measure(first, shape);
+            measurement.Measure(first);
         }
     }
 
@@ -188,20 +152,5 @@ internal sealed class WindowWorkers
                 sink.Push(slot.Window);
             }
         }
-    }
-
-    private void Measure(WindowSlot slot, WaveformShape shape)
-    {
-        var (sum, squares, min, max) = slot.Moments;
-        var mean = sum / slot.Length;
-        var figures = shape.Measure(slot.Window, _cycles, mean, min, max);
-        if (!figures.PulsatingDc)
-        {
-            // The DC a bipolar window rides on, unbiased by a sub-mains motor frequency (see SubMainsDc).
-            var acRms = Math.Sqrt(Math.Max(0, (squares / slot.Length) - (mean * mean)));
-            figures = figures with { SmoothDcA = SubMainsDc.Estimate(slot.Window, slot.Bins, _cycles, mean, acRms) };
-        }
-
-        slot.Shape = figures;
     }
 }

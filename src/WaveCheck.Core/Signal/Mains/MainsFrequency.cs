@@ -11,13 +11,13 @@ public readonly record struct MainsDetection(double NominalHz, double FrequencyH
     double AcRmsA);
 
 /// <summary>
-/// Finding and tracking the mains frequency. Detection: Hann-windowed spectrum of the first seconds (block-averaged to
-/// about 1 to 2 kHz), the strongest bin near 50 or 60 Hz (or near the given frequency), interpolated, then refined by
-/// the phase method below (first and last whole-cycle stretch) on the full-rate samples. Tracking: the Hann-weighted
+/// Finding the mains frequency, and the phase measurements its tracking rests on. Detection: Hann-windowed spectrum of
+/// the first seconds (block-averaged to about 1 to 2 kHz), the strongest bin near 50 or 60 Hz (or near the given
+/// frequency), interpolated, then refined by the phase method below (first and last whole-cycle stretch) on the
+/// full-rate samples. Tracking (<see cref="MainsTracker"/>, window by window through a capture): the Hann-weighted
 /// phasor of each whole window (<see cref="PhasorKernel"/>; <see cref="WindowPhasor"/> is the direct form it is checked
-/// against) referred to the sample clock;
-/// the phase advance between consecutive windows over their time offset gives the frequency error. Stateless and
-/// thread-safe.
+/// against) referred to the sample clock; the phase advance between consecutive windows over their time offset gives
+/// the frequency error. Stateless and thread-safe.
 /// </summary>
 /// <remarks>
 /// Correlating over a whole number of cycles of the reference frequency rejects DC and the harmonics, so a
