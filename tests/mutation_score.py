@@ -12,6 +12,8 @@ for path, data in sorted(report["files"].items()):
     detected = n["Killed"] + n["Timeout"]
     undetected = n["Survived"] + n["NoCoverage"]
     total = detected + undetected
+    if total == 0:
+        continue  # a file outside --mutate: all its mutants ignored
     score = 100.0 * detected / total if total else float("nan")
     short = path[path.find("src/"):] if "src/" in path else path
     print(f"{short}: {score:.1f} % ({n['Killed']} killed, {n['Timeout']} timeout, {n['Survived']} survived, "
