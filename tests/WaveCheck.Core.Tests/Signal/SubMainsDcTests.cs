@@ -170,6 +170,15 @@ public class SubMainsDcTests
         var mean = x.Average();
         Assert.Equal(mean, SubMainsDc.FitConstant(x, 0, mean));
         Assert.Equal(mean, SubMainsDc.FitConstant(x, 1e-7, mean));
+        // The guard's threshold, |det| ≤ 1e-9·N³: for small ωN the determinant is (ωN)⁶·N³/8640 to leading order
+        // (series of the sums; numpy.linalg.det agrees within a few per cent at these values). ω = 5e-6 (0.008 cycles
+        // per window) gives 1.8e-12·N³, below it: the mean; ω = 5e-5 (0.08 cycles) gives 1.8e-6·N³, above it: the
+        // fit, exact to the conditioning (1e-8 A).
+        Assert.Equal(mean, SubMainsDc.FitConstant(x, 5e-6, mean));
+        var slow = ToneOnDc(Window, 0.003, 0.01, 5e-5 * Window / (2 * Math.PI), 0.5);
+        Assert.Equal(0.003, SubMainsDc.FitConstant(slow, 5e-5, slow.Average()), 1e-8);
+        // An empty window: no sums at all (N = 0), the mean given is returned.
+        Assert.Equal(0.001, SubMainsDc.FitConstant([], 0.1, 0.001));
         // One cycle per window is well conditioned (determinant ≈ N³/4): fitted, not the mean.
         var y = ToneOnDc(Window, 0.003, 0.01, 1.0, 0.5);
         Assert.Equal(0.003, SubMainsDc.FitConstant(y, 2 * Math.PI / Window, 0.0), 1e-10);
