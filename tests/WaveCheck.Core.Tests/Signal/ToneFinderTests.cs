@@ -45,7 +45,10 @@ public class ToneFinderTests
     private const int MaxOrder = 50;
     private const int Bins = 2001;
 
-    private static double Kernel(double x) => Math.Abs(x) < 1e-12 ? 1 : Math.Abs(Math.Sin(Math.PI * x) / (Math.PI * x));
+    /// <summary>|sin πx/(πx)|: 1 at 0, exactly 0 at the other integers (where Math.Sin(π·n) leaves ~1e-16).</summary>
+    private static double Kernel(double x) => Math.Abs(x) < 1e-12 ? 1
+        : Math.Abs(x - Math.Round(x)) < 1e-12 ? 0
+        : Math.Abs(Math.Sin(Math.PI * x) / (Math.PI * x));
 
     private static double[] Empty() => new double[Bins];
 
@@ -128,6 +131,22 @@ public class ToneFinderTests
     }
 
     [Fact]
+    public void On_bin_2_the_larger_neighbour_below_is_bin_1()
+    {
+        // An 8.5 Hz motor tone (1.7 bins): peak on bin 2, bin 1 (distance 0.7) larger than bin 3 (distance 1.3), so
+        // the refinement goes down by δ = 0.3 (closed form as above).
+        var tone = Assert.Single(Find(AddTone(Empty(), 1.7, 0.002)));
+        Assert.Equal(8.5, tone.FrequencyHz, 1e-9);
+        Assert.Equal(0.002, tone.RmsA, 1e-15);
+    }
+
+    [Fact]
+    public void No_spectrum_is_refused()
+    {
+        Assert.Throws<ArgumentNullException>(() => ToneFinder.Strongest(null!, Cycles, MaxOrder, 5, 0.01));
+    }
+
+    [Fact]
     public void Tones_come_strongest_first_and_at_most_count()
     {
         var rms = AddTone(AddTone(AddTone(Empty(), 733.0, 0.001), 1463.25, 0.003), 1877.5, 0.002);
@@ -167,17 +186,24 @@ public class ToneFinderTests
     }
 
     [Theory]
-    [InlineData(600, 0.004, true)] // exactly 4 × (CombContrast): stands out
-    [InlineData(600, 0.0039, false)] // just under: part of the comb
-    [InlineData(601, 0.0039, false)] // one bin off the harmonic: still judged against the comb
-    [InlineData(602, 0.0039, true)] // two bins off: not on a harmonic, a tone
-    public void A_peak_on_a_harmonic_above_the_grouped_orders_must_stand_above_its_neighbours(int bin, double peakA, bool isTone)
+    [InlineData(600, 0.004, 590, 610, true)]   // exactly 4 × (CombContrast) both neighbours: stands out
+    [InlineData(600, 0.0039, 590, 610, false)] // just under: part of the comb
+    [InlineData(600, 0.0039, 589, -1, false)]  // only harmonic 59 (one bin below it) beside it: still the comb
+    [InlineData(600, 0.0039, -1, 611, false)]  // only harmonic 61 (one bin above it)
+    [InlineData(600, 0.0039, -1, 610, false)]
+    [InlineData(601, 0.0039, 590, 610, false)] // one bin off the harmonic: still judged against the comb
+    [InlineData(602, 0.0039, 590, 610, true)]  // two bins off: not on a harmonic, a tone
+    public void A_peak_on_a_harmonic_above_the_grouped_orders_must_stand_above_its_neighbours(int bin, double peakA,
+        int lowerBin, int upperBin, bool isTone)
     {
         // CombContrast = 4: a peak on (or one bin beside) harmonic n > H is a tone only if it is at least 4 × the
-        // largest bin within ±1 of harmonics n − 1 and n + 1 (here 1 mA on bins 590 and 610).
+        // largest bin within ±1 of harmonics n − 1 and n + 1 (here 1 mA on the bins given; −1: none).
         var rms = Empty();
-        rms[590] = 0.001;
-        rms[611] = 0.001;
+        foreach (var b in new[] { lowerBin, upperBin }.Where(b => b >= 0))
+        {
+            rms[b] = 0.001;
+        }
+
         rms[bin] = peakA;
         var found = Find(rms).Where(t => Math.Abs(t.FrequencyHz - (bin * ResolutionHz)) < 1).ToList();
         Assert.Equal(isTone, found.Count == 1);
