@@ -6,8 +6,8 @@
 # With no file it runs the list below (the measurement core and the verdict; docs/testing.md has their scores).
 # Reports: artifacts/mutation/<file>/reports/mutation-report.{html,json}; the score of each file is printed at the end.
 # Tests run against each file: a Signal file's own test class (tests mirror the source tree: Signal/ToneFinder.cs is
-# guarded by Signal/ToneFinderTests), every test of Assessment/ for a verdict file (those tests are organised by
-# rule, not by file). MUTATION_TESTS overrides it with a dotnet test filter, or "all" for the whole Core suite.
+# guarded by Signal/ToneFinderTests), the Assessment tests on constructed figures for a verdict file (those tests are
+# organised by rule, not by file). MUTATION_TESTS overrides it with a dotnet test filter, or "all" for the whole Core suite.
 # Why a filter: Stryker.NET 5.1 places the mutants of every file of the project (over 9000 here) and drops those
 # outside --mutate only after compiling, so every test runs on fully instrumented code; the whole suite's coverage
 # pass alone then takes over 10 minutes on this machine.
@@ -51,7 +51,11 @@ for f in "${files[@]}"; do
   folder=${rel%%/*}
   filter=${MUTATION_TESTS:-}
   if [ -z "$filter" ]; then
-    if [ -f "tests/WaveCheck.Core.Tests/$folder/${name}Tests.cs" ] && [ "$folder" != Assessment ]; then
+    if [ "$folder" = Assessment ]; then
+      # The verdict's tests on constructed figures; the two classes that synthesise and analyse waveforms
+      # (RequiredTypeTests, VerdictPropertyTests) would run the whole analysis instrumented, minutes per mutant.
+      filter="FullyQualifiedName~WaveCheck.Core.Tests.Assessment.&FullyQualifiedName!~RequiredTypeTests&FullyQualifiedName!~VerdictPropertyTests"
+    elif [ -f "tests/WaveCheck.Core.Tests/$folder/${name}Tests.cs" ]; then
       filter="FullyQualifiedName~WaveCheck.Core.Tests.$folder.${name}Tests"
     else
       filter="FullyQualifiedName~WaveCheck.Core.Tests.$folder."
