@@ -142,6 +142,34 @@ public class MetricAccumulatorTests
         Assert.Equal(new MetricStatistics(-50.5, -5.95, -1, 0), Round(plain.Result()));
     }
 
+    [Fact]
+    public void Unsigned_takes_the_largest_value_and_signed_the_largest_magnitude()
+    {
+        // −5 then 3: unsigned, the largest value is 3 (at 0.2 s); signed, the largest magnitude is −5 (at 0 s).
+        var plain = new MetricAccumulator(false);
+        var signed = new MetricAccumulator(true);
+        foreach (var acc in new[] { plain, signed })
+        {
+            acc.Add(-5, 0);
+            acc.Add(3, 0.2);
+        }
+
+        Assert.Equal((3.0, 0.2), (plain.Result().Max, plain.Result().TimeOfMaxS));
+        Assert.Equal((-5.0, 0.0), (signed.Result().Max, signed.Result().TimeOfMaxS));
+    }
+
+    [Fact]
+    public void A_signed_metric_that_is_all_zero_has_no_sign_to_give()
+    {
+        // Every window 0: the maximum is 0, and the P95 stays +0, not −0 (which a writer would print as "-0").
+        var acc = new MetricAccumulator(true);
+        acc.Add(0, 0);
+        acc.Add(0, 0.2);
+        var r = acc.Result();
+        Assert.Equal(0, r.Max);
+        Assert.False(double.IsNegative(r.P95), $"P95 {r.P95:R}");
+    }
+
     private static MetricStatistics Round(MetricStatistics s) =>
         new(Math.Round(s.Mean, 9), Math.Round(s.P95, 9), Math.Round(s.Max, 9), Math.Round(s.TimeOfMaxS, 9));
 
