@@ -19,4 +19,11 @@ if [ ${#need[@]} -gt 0 ]; then
 fi
 
 export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1
-dotnet test WaveCheck.sln -c Release
+# Line and branch coverage (coverlet.collector, Cobertura), summarised per folder of WaveCheck.Core at the end.
+coverage=TestResults/coverage
+rm -rf "$coverage"
+status=0
+dotnet test WaveCheck.sln -c Release --collect:"XPlat Code Coverage" --settings tests/coverage.runsettings \
+  --results-directory "$coverage" || status=$?
+/usr/bin/python3 tests/coverage_summary.py "$coverage" || true
+exit "$status"

@@ -11,6 +11,8 @@ namespace WaveCheck.Core.Tests.Assessment;
 /// </summary>
 internal sealed class AnalysisBuilder
 {
+    private static readonly System.Collections.Concurrent.ConcurrentDictionary<double, (double Mean, double[] Rms)> UnitHalfWaves = new();
+
     private readonly Dictionary<int, double> _harmonics = [];
     private readonly List<BandValue> _bands = [];
     private readonly List<ToneValue> _tones = [];
@@ -59,12 +61,23 @@ internal sealed class AnalysisBuilder
     /// </summary>
     public AnalysisBuilder HalfWave(double peakA, double delayAngleDeg)
     {
-        var x = IdealHalfWave.Cycle(peakA, delayAngleDeg, 8000);
-        var mean = x.Average();
+        // The waveform is linear in its peak: the DFT of a unit peak is made once per angle and scaled.
+        var (unitMean, unitRms) = UnitHalfWaves.GetOrAdd(delayAngleDeg, angle =>
+        {
+            var unit = IdealHalfWave.Cycle(1.0, angle, 8000);
+            var orders = new double[401];
+            for (var k = 1; k <= 400; k++)
+            {
+                orders[k] = IdealHalfWave.HarmonicRms(unit, k);
+            }
+
+            return (unit.Average(), orders);
+        });
+        var mean = unitMean * peakA;
         double above1kSq = 0;
         for (var k = 1; k <= 400; k++)
         {
-            var rms = IdealHalfWave.HarmonicRms(x, k);
+            var rms = unitRms[k] * peakA;
             if (k == 1)
             {
                 Sine(rms);

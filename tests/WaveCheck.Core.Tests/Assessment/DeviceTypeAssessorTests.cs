@@ -461,4 +461,203 @@ public class DeviceTypeAssessorTests
         var order = Assert.Throws<OptionValueException>(() => new AssessmentOptions { TypeASmoothDcToleranceA = 0.015 }.Validate());
         Assert.Equal("--type-a-dc", order.Option);
     }
+
+    // ---- The decision: installed protection, accepted protection, headline, cautions ------------------------------
+
+    private static string Ma(double a) => CurrentText.WithUnit(a);
+
+    [Theory]
+    // IEC 60364-5-53 §531.3.3: each type detects the classes of the types below it.
+    [InlineData(DeviceType.AC, false, false)] // pulsating DC: AC does not detect it
+    [InlineData(DeviceType.A, false, true)]
+    [InlineData(DeviceType.F, false, true)]
+    [InlineData(DeviceType.B, false, true)]
+    [InlineData(DeviceType.AC, true, false)]  // a DC detection device does not stand in for type A's pulsating DC
+    public void An_installed_type_is_adequate_when_it_detects_every_class_present(DeviceType installed, bool rdcDd, bool adequate)
+    {
+        var r = Assess(new AnalysisBuilder().HalfWave(0.020, 90), new AssessmentOptions { InstalledType = installed, InstalledRdcDd = rdcDd });
+        Assert.Equal(adequate, r.InstalledAdequate);
+        Assert.Equal(installed.ToTradeName() + (rdcDd ? "+RDC-DD" : ""), r.InstalledProtection);
+        Assert.Equal(installed.ToTradeName(), r.InstalledType);
+    }
+
+    [Fact]
+    public void A_dc_detection_device_stands_in_for_type_b_only_below_its_6_ma()
+    {
+        // IEC 60364-7-722 / IEC 62955: type A + RDC-DD covers smooth DC while the standing DC stays below the 6 mA at
+        // which the RDC-DD disconnects (at the limit counts as reaching it: 5.9 mA ± 0.218 mA).
+        var protection = new AssessmentOptions { InstalledType = DeviceType.A, InstalledRdcDd = true };
+        Assert.True(Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.004), protection).InstalledAdequate);
+        Assert.False(Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.0059), protection).InstalledAdequate);
+        Assert.False(Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.004), new AssessmentOptions { InstalledType = DeviceType.A }).InstalledAdequate);
+        // Type B does not rely on the detection: adequate whatever the DC (blinding is judged apart).
+        Assert.True(Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.008), new AssessmentOptions { InstalledType = DeviceType.B, InstalledRdcDd = true }).InstalledAdequate);
+        // Beside a type AC the detection covers the DC but not the AC type's own gaps (pulsating DC): not adequate.
+        Assert.False(Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.004), new AssessmentOptions { InstalledType = DeviceType.AC, InstalledRdcDd = true }).InstalledAdequate);
+    }
+
+    [Fact]
+    public void A_charging_point_protection_is_judged_with_the_chargers_own_detection()
+    {
+        var charger = new AssessmentOptions { EvChargingPoint = true, ChargerDcDetection = true, InstalledType = DeviceType.A };
+        var r = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.002), charger);
+        Assert.Equal("A + charger DC detection", r.InstalledProtection);
+        Assert.True(r.InstalledAdequate);
+        // A type AC at a charging point is never adequate (its own RCD of at least type A, IEC 60364-7-722).
+        Assert.False(Assess(new AnalysisBuilder().Sine(0.005), charger with { InstalledType = DeviceType.AC }).InstalledAdequate);
+        // Declared charger detection without a charging point means nothing.
+        var notEv = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.002), new AssessmentOptions { ChargerDcDetection = true, InstalledType = DeviceType.A });
+        Assert.Equal("A", notEv.InstalledProtection);
+        Assert.False(notEv.InstalledAdequate);
+    }
+
+    [Fact]
+    public void An_open_class_the_installed_type_does_not_cover_leaves_adequacy_open()
+    {
+        // An AC-coupled sensor cannot show smooth DC: a type A is then neither adequate nor inadequate; type B is.
+        var b = new AnalysisBuilder().Sine(0.005).Coupling(SensorCoupling.Ac);
+        Assert.Null(Assess(b, new AssessmentOptions { InstalledType = DeviceType.A }).InstalledAdequate);
+        Assert.True(Assess(b, new AssessmentOptions { InstalledType = DeviceType.B }).InstalledAdequate);
+        Assert.Null(Assess(b).InstalledAdequate);
+        Assert.Null(Assess(b).InstalledProtection);
+    }
+
+    [Fact]
+    public void The_accepted_protection_names_the_dc_detection_alternative_only_where_it_applies()
+    {
+        // Smooth DC alone asks for B: B, or A with 6 mA DC detection (IEC 60364-7-722 at charging points, an
+        // engineering choice elsewhere, said so).
+        Assert.Equal("type B, or type A with 6 mA DC fault detection (an RDC-DD, IEC 62955; as IEC 60364-7-722 allows at charging points; engineering choice elsewhere)",
+            Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.003)).AcceptedProtection);
+        // With composite current beside it: F with DC detection.
+        Assert.Equal("type B, or type F with 6 mA DC fault detection (an RDC-DD, IEC 62955; as IEC 60364-7-722 allows at charging points; engineering choice elsewhere)",
+            Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.003).BelowMains(0.003)).AcceptedProtection);
+        Assert.Equal("type B, or type A with 6 mA DC fault detection (an RDC-DD, IEC 62955, or the charger's own, declared by its maker; IEC 60364-7-722)",
+            Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.003), new AssessmentOptions { EvChargingPoint = true }).AcceptedProtection);
+        // DC reaching 6 mA, or a class only B detects besides DC: type B alone.
+        Assert.Equal("type B", Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.007)).AcceptedProtection);
+        Assert.Equal("type B", Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.003).Harmonic(5, 0.004)).AcceptedProtection);
+        Assert.Equal("type A", Assess(new AnalysisBuilder().HalfWave(0.020, 90)).AcceptedProtection);
+        Assert.Null(Assess(new AnalysisBuilder().Sine(0.005).Coupling(SensorCoupling.Ac)).AcceptedProtection);
+    }
+
+    [Fact]
+    public void The_headline_names_the_deciding_class_and_the_dc_detection_alternative()
+    {
+        var dc = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.003));
+        Assert.StartsWith("Type B (or type A with 6 mA DC fault detection, IEC 62955) required: DC 3.00 mA that does not rest at zero", dc.Headline, StringComparison.Ordinal);
+        var harmonics = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.003).Harmonic(5, 0.004));
+        Assert.StartsWith("Type B required: ", harmonics.Headline, StringComparison.Ordinal);
+        var big = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.007));
+        Assert.StartsWith("Type B required: DC 7.00 mA", big.Headline, StringComparison.Ordinal);
+        Assert.Equal($"Type AC sufficient: sinusoidal residual current at mains frequency only (worst window {Ma(0.005)}), no other class of residual current present; check that type AC is permitted locally",
+            Assess(new AnalysisBuilder().Sine(0.005)).Headline);
+        // A charging point whose charger detects DC itself: type A for the charging point's own sake.
+        var ev = Assess(new AnalysisBuilder().Sine(0.005), new AssessmentOptions { EvChargingPoint = true, ChargerDcDetection = true });
+        Assert.Equal("Type A required: charging point: IEC 60364-7-722 asks for its own RCD of at least type A", ev.Headline);
+        // Open above what is seen: "at least", with the first open reason.
+        var open = Assess(new AnalysisBuilder().HalfWave(0.020, 90).Coupling(SensorCoupling.Ac));
+        Assert.StartsWith("Required type cannot be determined from this capture: at least type A; smooth DC cannot be determined: the sensor is AC-coupled", open.Headline, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Each_type_verdict_gives_its_reasons()
+    {
+        var r = Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.014));
+        Assert.StartsWith("smooth DC 14.0 mA under the pulses", r.Types[0].Reasons[1], StringComparison.Ordinal);
+        Assert.StartsWith("pulsating DC:", r.Types[0].Reasons[0], StringComparison.Ordinal);
+        Assert.Single(r.Types[1].Reasons); // A detects the pulsating DC; only the smooth DC is against it
+        Assert.Equal("detects every class of residual current present: pulsating DC, smooth DC or multi-phase rectified current (IEC 60364-5-53 §531.3.3, IEC 62423)", r.Types[3].Reasons[0]);
+        // Type B beyond its 12 mA DC range (max(0.4 IΔn, 10 mA), IEC 62423): a second reason points at blinding.
+        Assert.Equal($"smooth DC {Ma(0.014)} reaches the {Ma(0.012)} (max of 0.4 IΔn and {Ma(0.010)}) with which type B's tripping on superimposed currents is specified (IEC 62423): see blinding", r.Types[3].Reasons[1]);
+        Assert.Single(Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.011)).Types[3].Reasons);
+        Assert.Equal($"detects the sinusoidal mains-frequency current seen (worst window {Ma(0.005)}); no other class of residual current present (IEC 60364-5-53 §531.3.3)",
+            Assess(new AnalysisBuilder().Sine(0.005)).Types[0].Reasons.Single());
+        // A charging point's type AC: the charging-point reason first.
+        var ev = Assess(new AnalysisBuilder().Sine(0.005), new AssessmentOptions { EvChargingPoint = true, ChargerDcDetection = true });
+        Assert.Equal(["charging point: IEC 60364-7-722 asks for its own RCD of at least type A"], ev.Types[0].Reasons);
+        // Open classes above a type: undetermined, with the open reason.
+        var open = Assess(new AnalysisBuilder().Sine(0.005).Coupling(SensorCoupling.Ac));
+        Assert.Null(open.Types[1].Suitable);
+        Assert.StartsWith("smooth DC cannot be determined", open.Types[1].Reasons.Single(), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Cautions_come_in_order_and_say_what_the_capture_cannot_show()
+    {
+        var r = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.008), new AssessmentOptions { InstalledType = DeviceType.A, EvChargingPoint = true });
+        Assert.StartsWith("WARNING: the type A device MAY NOT TRIP", r.Cautions[0], StringComparison.Ordinal);
+        Assert.StartsWith("EV charging point (IEC 60364-7-722)", r.Cautions[1], StringComparison.Ordinal);
+        Assert.Contains("The verdict covers only the operating states in this capture (60 s); start-up, other speeds or charging phases may demand more: capture each.", r.Cautions);
+        Assert.DoesNotContain(r.Cautions, c => c.Contains("sample rate", StringComparison.Ordinal));
+
+        Assert.Contains("The sensor is AC-coupled (current transformer or Rogowski coil): smooth DC is invisible to it and pulsating DC is distorted, so the verdicts on types AC, A and F are open. Measure again with a DC-coupled clamp (fluxgate or Hall-effect).",
+            Assess(new AnalysisBuilder().Sine(0.005).Coupling(SensorCoupling.Ac)).Cautions);
+        Assert.Contains("The sensor coupling is not stated and the capture shows no DC: if the sensor is AC-coupled, DC is invisible. State the coupling, or measure again with a DC-coupled clamp (fluxgate or Hall-effect).",
+            Assess(new AnalysisBuilder().Sine(0.005).Coupling(SensorCoupling.Unknown)).Cautions);
+        Assert.Contains("The sample rate 30 kS/s shows content only up to 15 kHz: whether B+ is needed (content to 20 kHz) is open. Record at 50 kS/s or more.",
+            Assess(new AnalysisBuilder().SampleRate(30_000).Sine(0.005)).Cautions);
+        // Exactly 40 kS/s shows 20 kHz: covered, no caution, no open class.
+        var at40 = Assess(new AnalysisBuilder().SampleRate(40_000).Sine(0.005));
+        Assert.Equal("AC", at40.RequiredType);
+        Assert.DoesNotContain(at40.Cautions, c => c.Contains("sample rate", StringComparison.Ordinal));
+        // Content above 20 kHz at the threshold (3 mA on 30 mA): a caution, no type defined there.
+        Assert.Contains($"Content above 20 kHz ({Ma(0.003)}): no RCD type's tripping is defined there; ask the equipment's maker about its leakage and the device to use.",
+            Assess(new AnalysisBuilder().Sine(0.005).HighFrequency(22_000, 0.003)).Cautions);
+        Assert.DoesNotContain(Assess(new AnalysisBuilder().Sine(0.005).HighFrequency(22_000, 0.0029)).Cautions, c => c.StartsWith("Content above 20 kHz", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_fallback_mains_frequency_is_a_caution()
+    {
+        var a = new AnalysisBuilder().SmoothDc(0.003).Build();
+        a = a with { Mains = a.Mains with { Source = "fallback", NominalHz = 60 } };
+        Assert.Contains("Too little mains-frequency content to track the mains: the nominal 60 Hz was assumed.", DeviceTypeAssessor.Assess(a, Defaults).Cautions);
+    }
+
+    [Fact]
+    public void The_ac_coupling_signature_needs_a_mean_near_zero_and_a_floor_clear_of_the_significance()
+    {
+        // Closed form: a current transformer turns a half-wave into pulses on −Ipk/π with mean 0. Taken as AC-coupled
+        // while |mean| ≤ max(its uncertainty, 2 % of the RMS) (Limits.AcCouplingMeanFraction, engineering choice).
+        AnalysisResult Make(double meanA, SensorCoupling coupling = SensorCoupling.Unknown)
+        {
+            var a = new AnalysisBuilder().Coupling(coupling).HalfWave(0.020, 0).SmoothDc(-0.020 / Math.PI).Build();
+            return a with { Summary = a.Summary with { DcA = meanA } };
+        }
+
+        var rms = Make(0).Windows.Statistics["rmsA"].Max;
+        var signature = DeviceTypeAssessor.Assess(Make(0.02 * rms), Defaults);
+        Assert.Null(signature.Blinding.Blinded);
+        Assert.Contains(signature.Cautions, c => c.StartsWith("The sensor coupling is not stated, and the capture bears the signature of an AC-coupled sensor", StringComparison.Ordinal));
+        Assert.NotNull(DeviceTypeAssessor.Assess(Make(0.021 * rms), Defaults).Blinding.Blinded);
+        Assert.NotNull(DeviceTypeAssessor.Assess(Make(0, SensorCoupling.Dc), Defaults).Blinding.Blinded);
+    }
+
+    [Fact]
+    public void Pulsating_windows_count_from_any_share_or_above_the_share_threshold()
+    {
+        // --pulsating-share 0 (default): any pulsating window; else strictly more than the share given.
+        AnalysisResult Share(double share)
+        {
+            var a = new AnalysisBuilder().HalfWave(0.020, 90).Build();
+            return a with { Components = a.Components with { PulsatingDcShare = share } };
+        }
+
+        Assert.Equal("A", DeviceTypeAssessor.Assess(Share(0.001), Defaults).RequiredType);
+        Assert.Equal("A", DeviceTypeAssessor.Assess(Share(0.31), new AssessmentOptions { PulsatingShareThreshold = 0.3 }).RequiredType);
+        Assert.NotEqual("A", DeviceTypeAssessor.Assess(Share(0.3), new AssessmentOptions { PulsatingShareThreshold = 0.3 }).RequiredType);
+    }
+
+    [Fact]
+    public void The_result_carries_the_accuracy_regime_and_thresholds_applied()
+    {
+        var r = Assess(new AnalysisBuilder().Sine(0.005), new AssessmentOptions { Accuracy = new MeasurementAccuracy(0.03, 0.0005), RatedResidualCurrentA = 0.1 });
+        Assert.Equal("3%+0.5mA", r.Accuracy);
+        Assert.Equal(Regime.Iec, r.Regime);
+        Assert.Equal(0.1, r.RatedResidualCurrentA);
+        Assert.Contains(r.Thresholds, t => t.Name == "rdcDdThresholdA" && t.Value == 0.006);
+        Assert.Equal("AC", r.MinimumType);
+    }
 }
+

@@ -46,23 +46,34 @@ public class SurveyRunnerTests
     [Fact]
     public void Parallel_run_keeps_input_order_and_reports_progress()
     {
-        // Jobs finish in reverse order of their index (earlier jobs sleep longer), so completion order differs from input order.
+        // Jobs finish in reverse order of their index (earlier jobs sleep longer), so completion order differs from input
+        // order. Each job waits (up to 5 s from the survey's start, no longer) until a second job is running, so a
+        // parallel runner shows an overlap however the threads are scheduled, and a serial one fails in about 5 s.
         var jobs = Enumerable.Range(0, 12).Select(i => Job($"c{i:00}.wav")).ToArray();
         var running = 0;
         var peak = 0;
+        var clock = System.Diagnostics.Stopwatch.StartNew();
+        var spans = new (TimeSpan Start, TimeSpan End)[jobs.Length];
         var reports = new List<(int Done, int Total)>();
         var progress = new SynchronousProgress(p => { lock (reports) { reports.Add(p); } });
         var outcomes = SurveyRunner.Run(jobs, (job, _) =>
         {
+            var index = int.Parse(job.File.AsSpan(1, 2), System.Globalization.CultureInfo.InvariantCulture);
+            spans[index].Start = clock.Elapsed;
             var now = Interlocked.Increment(ref running);
             InterlockedMax(ref peak, now);
-            Thread.Sleep(5 * (12 - int.Parse(job.File.AsSpan(1, 2), System.Globalization.CultureInfo.InvariantCulture)));
+            SpinWait.SpinUntil(() => Volatile.Read(ref peak) >= 2 || clock.Elapsed > TimeSpan.FromSeconds(5));
+            Thread.Sleep(5 * (12 - index));
             Interlocked.Decrement(ref running);
+            spans[index].End = clock.Elapsed;
             return Ok(job);
         }, progress, maxParallel: 3);
 
         Assert.Equal(jobs.Select(j => j.File), outcomes.Select(o => o.Row.File));
-        Assert.InRange(peak, 1, 3);
+        // At least two jobs at once (the survey ran in parallel), never more than the three allowed.
+        Assert.InRange(peak, 2, 3);
+        Assert.Contains(Enumerable.Range(0, 12), i => Enumerable.Range(0, 12).Any(j =>
+            j != i && spans[i].Start < spans[j].End && spans[j].Start < spans[i].End));
         Assert.Equal(12, reports.Count);
         Assert.Equal(Enumerable.Range(1, 12), reports.Select(r => r.Done).Order());
         Assert.All(reports, r => Assert.Equal(12, r.Total));

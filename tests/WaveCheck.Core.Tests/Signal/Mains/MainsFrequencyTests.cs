@@ -38,21 +38,22 @@ public class MainsFrequencyTests
     public void FollowsAFrequencyStep()
     {
         // A 50.0 → 50.4 Hz step at 5 s (continuous phase): windows starting 0.5 s after the step read 50.4 ± 0.01 Hz.
+        // Closed form of the window count: 10 cycles each, so 0.2 s before the step (25 windows, 24 of them ending
+        // before 5.0 s) and 10/50.4 = 0.19841 s after it: ⌊5/0.19841⌋ = 25 more, 50 in all, of which those starting
+        // after 5.5 s number ⌊(10 − 5.5)/0.19841⌋ = 22; together they cover the 10 s but for less than one window.
+        // Without these counts the test would pass on an analysis that sends no window.
         var samples = Synth.FrequencyStep(Fs, 10, 50.0, 50.4, 5.0, 0.01);
         var windows = new List<WindowResult>();
         var options = new AnalysisOptions { WindowCompleted = windows.Add };
         Analyzer.Analyze(new MemoryCaptureSource(samples, Fs), options);
-        foreach (var w in windows)
-        {
-            if (w.StartS + w.DurationS < 5.0)
-            {
-                Assert.Equal(50.0, w.FrequencyHz, 0.01);
-            }
-            else if (w.StartS > 5.5)
-            {
-                Assert.Equal(50.4, w.FrequencyHz, 0.01);
-            }
-        }
+        var before = windows.Where(w => w.StartS + w.DurationS < 5.0).ToList();
+        var after = windows.Where(w => w.StartS > 5.5).ToList();
+        Assert.Equal(50, windows.Count);
+        Assert.Equal(24, before.Count);
+        Assert.Equal(22, after.Count);
+        Assert.InRange(windows.Sum(w => w.DurationS), 10 - 0.2, 10);
+        Assert.All(before, w => Assert.Equal(50.0, w.FrequencyHz, 0.01));
+        Assert.All(after, w => Assert.Equal(50.4, w.FrequencyHz, 0.01));
     }
 
     [Fact]

@@ -1,0 +1,79 @@
+#!/usr/bin/env bash
+# Mutation testing with Stryker.NET (the version pinned in .config/dotnet-tools.json), one source file per run so
+# each file gets its own score and no run grows without bound. Not part of CI: a file takes 5 to 15 minutes on
+# this 2-core machine. Usage:
+#   bash tests/mutation.sh [src/WaveCheck.Core/Signal/SubMainsDc.cs ...]
+# With no file it runs the list below (the measurement core and the verdict; docs/testing.md has their scores).
+# Reports: artifacts/mutation/<file>/reports/mutation-report.{html,json}; the score of each file is printed at the end.
+# Tests run against each file: a Signal file's own test class (tests mirror the source tree: Signal/ToneFinder.cs is
+# guarded by Signal/ToneFinderTests), the Assessment tests on constructed figures for a verdict file (those tests are
+# organised by rule, not by file). MUTATION_TESTS overrides it with a dotnet test filter, or "all" for the whole Core suite.
+# Why a filter: Stryker.NET 5.1 places the mutants of every file of the project (over 9000 here) and drops those
+# outside --mutate only after compiling, so every test runs on fully instrumented code; the whole suite's coverage
+# pass alone then takes over 10 minutes on this machine.
+# Stryker swaps mutated builds into the test project's bin/ while it runs: do not run dotnet test in the same
+# tree meanwhile (run it from a separate clone).
+set -euo pipefail
+cd "$(dirname "$0")/.."
+root=$PWD
+
+default_files=(
+  src/WaveCheck.Core/Signal/SubMainsDc.cs
+  src/WaveCheck.Core/Signal/ToneFinder.cs
+  src/WaveCheck.Core/Signal/MetricAccumulator.cs
+  src/WaveCheck.Core/Assessment/ClassDetector.cs
+  src/WaveCheck.Core/Assessment/MeasurementAccuracy.cs
+  src/WaveCheck.Core/Assessment/DeviceTypeAssessor.cs
+  src/WaveCheck.Core/Assessment/Margins.cs
+)
+files=("$@")
+[ ${#files[@]} -gt 0 ] || files=("${default_files[@]}")
+
+for f in "${files[@]}"; do
+  case "$f" in
+    src/WaveCheck.Core/*.cs) ;;
+    *) echo "mutation.sh: $f: only files under src/WaveCheck.Core/ are set up (tests/WaveCheck.Core.Tests/stryker-config.json)" >&2; exit 2 ;;
+  esac
+  [ -f "$f" ] || { echo "mutation.sh: $f: no such file" >&2; exit 2; }
+done
+
+export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1
+dotnet tool restore >/dev/null
+
+summary=()
+for f in "${files[@]}"; do
+  name=$(basename "$f" .cs)
+  out="$root/artifacts/mutation/$name"
+  rm -rf "$out"
+  echo "== $f" >&2
+  start=$SECONDS
+  rel=${f#src/WaveCheck.Core/}
+  folder=${rel%%/*}
+  filter=${MUTATION_TESTS:-}
+  if [ -z "$filter" ]; then
+    if [ "$folder" = Assessment ]; then
+      # The verdict's tests on constructed figures; the two classes that synthesise and analyse waveforms
+      # (RequiredTypeTests, VerdictPropertyTests) would run the whole analysis instrumented, minutes per mutant.
+      filter="FullyQualifiedName~WaveCheck.Core.Tests.Assessment.&FullyQualifiedName!~RequiredTypeTests&FullyQualifiedName!~VerdictPropertyTests"
+    elif [ -f "tests/WaveCheck.Core.Tests/$folder/${name}Tests.cs" ]; then
+      filter="FullyQualifiedName~WaveCheck.Core.Tests.$folder.${name}Tests"
+    else
+      filter="FullyQualifiedName~WaveCheck.Core.Tests.$folder."
+    fi
+  fi
+  filter_args=()
+  [ "$filter" = all ] || filter_args=(--test-case-filter "$filter")
+  echo "tests: ${filter}" >&2
+  # The cleartext, html and json reporters only: the progress reporter needs a terminal width and fails without one.
+  (cd tests/WaveCheck.Core.Tests && dotnet stryker --config-file stryker-config.json --skip-version-check \
+      --mutate "**/$rel" "${filter_args[@]}" --output "$out")
+  report="$out/reports/mutation-report.json"
+  [ -f "$report" ] || { echo "mutation.sh: $f: Stryker wrote no report ($report)" >&2; exit 1; }
+  line="$(python3 tests/mutation_score.py "$report" "$((SECONDS - start))"), tests: $filter"
+  echo "$line"
+  summary+=("$line")
+done
+
+echo
+echo "mutation score per file (killed + timeout) / (killed + timeout + survived + no coverage):"
+printf '%s\n' "${summary[@]}"
