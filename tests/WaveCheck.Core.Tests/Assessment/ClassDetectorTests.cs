@@ -137,7 +137,7 @@ public class ClassDetectorTests
 
         // No angle measured: no angle in the text.
         var noAngle = Assess(WithComponents(new AnalysisBuilder().HalfWave(0.020, 0), c => c with { CurrentDelayAngleDeg = null }));
-        Assert.DoesNotContain("current-delay angle", Class(noAngle, "pulsatingDc").Text, StringComparison.Ordinal);
+        Assert.StartsWith($"pulsating DC: pulses with a mean of {Ma(0.020 / Math.PI)} above their floor in 100 % of windows, at rest for at least 150°", Class(noAngle, "pulsatingDc").Text, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -193,6 +193,11 @@ public class ClassDetectorTests
         var harmonics = Class(Assess(new AnalysisBuilder().Sine(0.005).Harmonic(3, 0.002).Harmonic(5, 0.003).Harmonic(7, 0.001)), "nonMainsAc");
         Assert.Contains($": harmonics, strongest at 250 Hz ({Ma(0.003)}),", harmonics.Text, StringComparison.Ordinal);
         Assert.Equal(Math.Sqrt(0.000014), harmonics.FigureA!.Value, 12);
+
+        // An analysis that reports no harmonic orders (only the fundamental) still names what it judged.
+        var bare = new AnalysisBuilder().Sine(0.005).Build();
+        bare = bare with { Harmonics = [bare.Harmonics[0]] };
+        Assert.StartsWith($"AC at frequencies other than mains up to 1 kHz {Ma(0)}: harmonic content, outside", Class(Assess(bare), "nonMainsAc").Text, StringComparison.Ordinal);
 
         var small = Class(Assess(new AnalysisBuilder().Sine(0.005).Harmonic(3, 0.001)), "nonMainsAc");
         Assert.Equal("absent", small.Presence);

@@ -60,6 +60,7 @@ public class MeasurementAccuracyTests
     [InlineData("0%", 0, 0)]
     [InlineData("100mA", 0, 0.1)]         // the largest offset accepted
     [InlineData("1% + 1%", 0.02, 0)]      // parts add up
+    [InlineData("2 % + 0.1 mA", 0.02, 0.0001)] // spaces inside a part are dropped
     [InlineData("0.1mA+2%", 0.02, 0.0001)]
     [InlineData("0.25", 0, 0.00025)]      // a bare number is in mA (the unit the option names)
     public void Parse_accepts_the_ends_of_its_ranges(string text, double fraction, double offsetA)
@@ -76,6 +77,7 @@ public class MeasurementAccuracyTests
     [InlineData("+2%")]
     [InlineData("2%+ +0.1mA")]
     [InlineData("x%")]
+    [InlineData("2%+abc")]
     [InlineData("2%+0.5A")]
     public void Parse_rejects_what_lies_outside_with_the_option_and_the_text(string text)
     {
