@@ -135,36 +135,25 @@ public sealed class CsvCaptureSource : ICaptureSource
             (quantity == ChannelQuantity.Current ? currents : voltages).Add(i);
         }
 
+        var headerLine = _headerLine;
         _selection = ChannelSelection.Resolve(channels, options, currents.Count > 0 ? currents : voltages,
-            problem => new CaptureFormatException(path, problem, _headerLine, 1));
+            "no current or voltage column found: name the unit in the header, e.g. 'I [mA]'",
+            problem => new CaptureFormatException(path, problem, headerLine, 1));
         if (_selection.Warning is { } guessed)
         {
             _warnings.Add(guessed);
         }
 
-        _toAmperes = new double[_selection.Indices.Count];
+        var dataColumns = _dataColumns;
+        _toAmperes = _selection.AmperesPerSiUnit(channels, options,
+            (index, problem) => new CaptureFormatException(path, problem, headerLine, dataColumns[index].FileColumn));
         var units = new List<string>(_toAmperes.Length);
-        for (var k = 0; k < _toAmperes.Length; k++)
+        foreach (var index in _selection.Indices)
         {
-            var column = _dataColumns[_selection.Indices[k]];
-            if (column.Kind == CsvColumnKind.Voltage)
-            {
-                if (options.SensitivityVPerA is not { } sensitivity)
-                {
-                    throw new CaptureFormatException(path,
-                        $"column '{column.Name}' is a voltage ({column.Unit}): give --sensitivity (e.g. \"10 mV/mA\") to turn it into a current",
-                        _headerLine, column.FileColumn);
-                }
-
-                _toAmperes[k] = 1.0 / sensitivity;
-                units.Add(string.Create(CultureInfo.InvariantCulture,
-                    $"column unit {column.Unit} / sensitivity {sensitivity:G6} mV/mA"));
-            }
-            else
-            {
-                _toAmperes[k] = 1.0;
-                units.Add($"column unit {column.Unit}");
-            }
+            var column = _dataColumns[index];
+            units.Add(column.Kind == CsvColumnKind.Voltage
+                ? string.Create(CultureInfo.InvariantCulture, $"column unit {column.Unit} / sensitivity {options.SensitivityVPerA:G6} mV/mA")
+                : $"column unit {column.Unit}");
         }
 
         if (options.ScaleA is not null || options.RangeV is not null)

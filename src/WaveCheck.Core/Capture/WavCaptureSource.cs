@@ -107,15 +107,14 @@ public sealed class WavCaptureSource : ICaptureSource
                 all[c] = c;
             }
 
-            _selection = ChannelSelection.Resolve(channels, options, all,
+            _selection = ChannelSelection.Resolve(channels, options, all, "the file has no channels",
                 problem => new CaptureFormatException(path, problem));
             if (_selection.Warning is { } guessed)
             {
                 _warnings.Add(guessed);
             }
 
-            _toAmperes = new double[_selection.Indices.Count];
-            Array.Fill(_toAmperes, 1.0);
+            _toAmperes = _selection.AmperesPerSiUnit(channels, options, (_, problem) => new CaptureFormatException(path, problem));
             var sensor = options.Sensor != SensorCoupling.Unknown ? options.Sensor : fileSensor ?? SensorCoupling.Unknown;
             Info = new CaptureInfo
             {

@@ -29,8 +29,8 @@ public sealed class ComtradeCaptureSource : ICaptureSource
     private readonly double[] _scale;
     private readonly double[] _offset;
     private readonly double[] _held;
-    private readonly int[] _residual;
-    private readonly double[] _residualWeight;
+    private readonly ChannelSelection _selection;
+    private readonly double[] _toAmperes;
     private readonly long _missingBefore;
     private long _delivered;
     private long _missing;
@@ -39,7 +39,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
     private bool _finished;
 
     private ComtradeCaptureSource(ComtradeConfig config, ComtradeDataReader reader, CaptureInfo info,
-        List<CaptureWarning> warnings, double[] scale, double[] offset, int[] residual, double[] residualWeight)
+        List<CaptureWarning> warnings, double[] scale, double[] offset, ChannelSelection selection, double[] toAmperes)
     {
         Config = config;
         _reader = reader;
@@ -48,8 +48,8 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         _scale = scale;
         _offset = offset;
         _held = new double[scale.Length];
-        _residual = residual;
-        _residualWeight = residualWeight;
+        _selection = selection;
+        _toAmperes = toAmperes;
         _missingBefore = reader.Position;
     }
 
@@ -67,8 +67,8 @@ public sealed class ComtradeCaptureSource : ICaptureSource
     /// <param name="options">Channel choice, primary/secondary, sensitivity for a voltage channel, sensor coupling.</param>
     /// <returns>A source positioned at the first sample of the delivered rate section; the caller disposes it.</returns>
     /// <exception cref="CaptureFormatException">Missing files, a cfg line that does not parse (line and field),
-    /// a data file shorter than the cfg says, a voltage channel without a sensitivity.</exception>
-    /// <exception cref="OptionValueException">A channel named in the options is not in the cfg.</exception>
+    /// a data file shorter than the cfg says, a channel named in the options that the cfg does not have (or one
+    /// named twice), a voltage channel without a sensitivity.</exception>
     public static ICaptureSource Open(string path, ImportOptions options)
     {
         ArgumentNullException.ThrowIfNull(path);
@@ -179,23 +179,13 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             }
         }
 
+        _selection.FormResidual(block, frames, _toAmperes);
         var residual = block.ResidualBuffer[..frames];
-        residual.Clear();
-        for (var k = 0; k < _residual.Length; k++)
-        {
-            var weight = _residualWeight[k];
-            var channel = block.ChannelBuffer(_residual[k])[..frames];
-            for (var i = 0; i < frames; i++)
-            {
-                residual[i] += channel[i] * weight;
-            }
-        }
-
         var badResidual = CaptureLimits.IndexOfInvalid(residual);
         if (badResidual >= 0)
         {
             // Only a voltage divided by a tiny sensitivity gets here: every channel was checked above.
-            throw _reader.ValueError(badResidual, _residual[0], CaptureLimits.SampleProblem($"residual ({Info.ResidualSource})",
+            throw _reader.ValueError(badResidual, _selection.Indices[0], CaptureLimits.SampleProblem($"residual ({Info.ResidualSource})",
                 residual[badResidual], (_delivered + badResidual) / Info.SampleRateHz, "A"));
         }
     }
@@ -291,23 +281,19 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             channels[c] = conversions[c].Info(c, config.Analog[c]);
         }
 
-        var residual = ChooseResidual(path, config, channels, options, warnings);
-        var weights = new double[residual.Length];
-        for (var k = 0; k < residual.Length; k++)
+        var selection = ChooseResidual(path, config, channels, options);
+        if (selection.Warning is { } guessed)
         {
-            var ch = channels[residual[k]];
-            weights[k] = ch.Quantity switch
+            warnings.Add(guessed);
+        }
+
+        var residual = selection.Indices;
+        var weights = selection.AmperesPerSiUnit(channels, options, (_, problem) => new CaptureFormatException(path, problem));
+        foreach (var index in residual)
+        {
+            if (conversions[index].Note is { } note)
             {
-                ChannelQuantity.Current => 1.0,
-                ChannelQuantity.Voltage when options.SensitivityVPerA is > 0 => 1.0 / options.SensitivityVPerA.Value,
-                ChannelQuantity.Voltage => throw new CaptureFormatException(path,
-                    $"channel '{ch.Name}' is a voltage ({ch.SourceUnit}): give the sensor's sensitivity (--sensitivity) to read it as a current"),
-                _ => throw new CaptureFormatException(path,
-                    $"channel '{ch.Name}' is in '{ch.SourceUnit}', neither a current nor a voltage; choose another with --channel"),
-            };
-            if (conversions[residual[k]].Note is { } note)
-            {
-                warnings.Add(new CaptureWarning("primary-secondary", $"channel '{ch.Name}': {note}"));
+                warnings.Add(new CaptureWarning("primary-secondary", $"channel '{channels[index].Name}': {note}"));
             }
         }
 
@@ -318,7 +304,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         }
 
         reader.Skip(section.FirstSample - 1);
-        var single = residual.Length == 1;
+        var single = residual.Count == 1;
         var first = conversions[residual[0]];
         var calibration = single
             ? new Calibration(first.Scale * weights[0], first.Offset * weights[0],
@@ -340,7 +326,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             Encoding = $"C37.111-{config.RevisionYear} {config.FileType.ToString().ToUpperInvariant()}{(container.SingleFile ? " (.cff)" : string.Empty)}, "
                 + $"{config.Analog.Count} analog + {config.Digital.Count} digital channels, station '{config.StationName}', device '{config.DeviceId}'",
             Channels = channels,
-            ResidualSource = string.Join("+", residual.Select(i => channels[i].Name)),
+            ResidualSource = selection.Source,
             ResidualChannels = residual,
             SampleRateHz = rateHz,
             SampleCount = section.SampleCount,
@@ -350,7 +336,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             SensorCoupling = options.Sensor,
             FullScaleA = single && channels[residual[0]].FullScaleSi is { } fs ? fs * weights[0] : null,
         };
-        return new ComtradeCaptureSource(config, reader, info, warnings, scale, offset, residual, weights);
+        return new ComtradeCaptureSource(config, reader, info, warnings, scale, offset, selection, weights);
     }
 
     private static (ComtradeRateSection Section, double StartS) ChooseSection(ComtradeConfig config, List<CaptureWarning> warnings)
@@ -430,44 +416,34 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         }
     }
 
-    private static int[] ChooseResidual(string path, ComtradeConfig config, ChannelInfo[] channels,
-        ImportOptions options, List<CaptureWarning> warnings)
+    /// <summary>The shared channel choice; with nothing chosen, the one current channel named as residual or earth
+    /// current, else the first current channel with a <c>channel-guessed</c> warning.</summary>
+    private static ChannelSelection ChooseResidual(string path, ComtradeConfig config, ChannelInfo[] channels, ImportOptions options)
     {
-        if (options.SumChannels is { Count: > 0 } sum)
+        var currents = new List<int>();
+        var named = new List<int>();
+        foreach (var channel in channels)
         {
-            var picked = new int[sum.Count];
-            for (var k = 0; k < sum.Count; k++)
+            if (channel.Quantity == ChannelQuantity.Current)
             {
-                picked[k] = Find(channels, sum[k], "--sum");
+                currents.Add(channel.Index);
+                if (SuggestsResidual(config.Analog[channel.Index]))
+                {
+                    named.Add(channel.Index);
+                }
             }
-
-            return picked;
         }
 
-        if (!string.IsNullOrWhiteSpace(options.Channel))
+        const string words = "(N, IN, 3I0, Ires, IE, E)";
+        var unnamed = named.Count switch
         {
-            return [Find(channels, options.Channel, "--channel")];
-        }
-
-        var currents = channels.Where(c => c.Quantity == ChannelQuantity.Current).ToList();
-        var residualLike = currents.Where(c => SuggestsResidual(config.Analog[c.Index])).ToList();
-        if (residualLike.Count == 1)
-        {
-            return [residualLike[0].Index];
-        }
-
-        if (currents.Count == 0)
-        {
-            throw new CaptureFormatException(path,
-                "no analog channel is a current (A, kA, mA); choose one with --channel (and --sensitivity for a voltage)");
-        }
-
-        var chosen = currents[0];
-        var others = string.Join(", ", currents.Skip(1).Select(c => $"'{c.Name}'"));
-        warnings.Add(new CaptureWarning("channel-guess",
-            $"no single channel is named as residual or earth current (N, IN, 3I0, Ires, IE, E); using the first current channel '{chosen.Name}'"
-            + (others.Length > 0 ? $"; other current channels: {others} (choose with --channel, or --sum to add them)" : string.Empty)));
-        return [chosen.Index];
+            1 => null,
+            0 => $"no channel is named as the residual or earth current {words}",
+            _ => $"{named.Count} channels ({string.Join(", ", named.Select(i => channels[i].Name))}) are named as the residual or earth current, not one",
+        };
+        return ChannelSelection.Resolve(channels, options, named.Count == 1 ? named : currents,
+            "no analog channel is a current (A, kA, mA); choose one with --channel (and --sensitivity for a voltage)",
+            problem => new CaptureFormatException(path, problem), unnamed);
     }
 
     private static bool SuggestsResidual(ComtradeAnalogChannel channel)
@@ -486,27 +462,6 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         }
 
         return false;
-    }
-
-    private static int Find(ChannelInfo[] channels, string wanted, string option)
-    {
-        var text = wanted.Trim();
-        foreach (var c in channels)
-        {
-            if (c.Name.Equals(text, StringComparison.OrdinalIgnoreCase))
-            {
-                return c.Index;
-            }
-        }
-
-        if (int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out var number) && number >= 1 &&
-            number <= channels.Length)
-        {
-            return number - 1;
-        }
-
-        throw new OptionValueException(option, wanted,
-            $"an analog channel name ({string.Join(", ", channels.Select(c => c.Name))}) or a number 1 to {channels.Length}");
     }
 
     /// <summary>From a stored value to the SI value delivered: unit prefix and the primary/secondary ratio.</summary>
