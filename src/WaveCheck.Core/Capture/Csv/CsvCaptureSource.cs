@@ -60,7 +60,7 @@ public sealed class CsvCaptureSource : ICaptureSource
         var ignored = new List<string>();
         for (var i = 0; i < dialect.Header.Length; i++)
         {
-            var column = CsvColumn.Parse(i + 1, dialect.Header[i], dialect.FirstRow?[i], out var problem);
+            var column = CsvColumn.Parse(i + 1, dialect.Header[i], dialect.FirstRow[i], out var problem);
             if (problem is not null)
             {
                 throw new CaptureFormatException(path, problem, headerLine, i + 1);
@@ -305,13 +305,7 @@ public sealed class CsvCaptureSource : ICaptureSource
         {
             // The record that failed starts on the line after the last one read (comment lines counted).
             var line = _headerLine + _commentLines + e.RowNumber;
-            var problem = e is CsvRecordTooLargeException
-                ? string.Create(CultureInfo.InvariantCulture,
-                    $"the row is longer than {CaptureLimits.MaxLineLength} characters (1 MiB), the limit for a line of a capture; a quote opened and never closed also makes a row run on")
-                : e is CsvInvalidCharacterException { InvalidCharacter: '"' } || e.Message.Contains("quote", StringComparison.OrdinalIgnoreCase)
-                    ? "a quoted field is not closed before the end of the file: unbalanced quote"
-                    : $"the row cannot be read as delimited text: {e.Message}";
-            throw new CaptureFormatException(_path, problem, line, e.FieldOrdinal + 1);
+            throw new CaptureFormatException(_path, CsvCells.DescribeFault(e), line, e.FieldOrdinal + 1);
         }
     }
 

@@ -1,4 +1,5 @@
 using System.Globalization;
+using Sylvan.Data.Csv;
 
 namespace WaveCheck.Core.Capture;
 
@@ -44,4 +45,18 @@ internal static class CsvCells
         DateTimeOffset.TryParse(cell, CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal | DateTimeStyles.AllowWhiteSpaces, out stamp)
             ? null
             : $"'{ShownText.Of(cell)}' is not an ISO 8601 time stamp";
+
+    /// <summary>What a fault of the parser means for a capture, in the same words for a line of the look-ahead and
+    /// a row of the reading.</summary>
+    /// <param name="fault">What Sylvan.Data.Csv threw.</param>
+    public static string DescribeFault(CsvFormatException fault) => fault switch
+    {
+        CsvRecordTooLargeException => string.Create(CultureInfo.InvariantCulture,
+            $"the row is longer than {CaptureLimits.MaxLineLength} characters (1 MiB), the limit for a line of a capture; a quote opened and never closed also makes a row run on"),
+        CsvInvalidCharacterException { InvalidCharacter: '"' } =>
+            "unbalanced quote: the field opens a quote that the line does not close (a capture row must be one line)",
+        CsvInvalidCharacterException other =>
+            $"'{ShownText.Of([other.InvalidCharacter])}' follows the closing quote of a quoted field: expected the delimiter or the end of the line",
+        _ => $"the row cannot be read as delimited text: {fault.Message}",
+    };
 }

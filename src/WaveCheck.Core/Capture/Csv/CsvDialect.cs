@@ -8,6 +8,11 @@ namespace WaveCheck.Core.Capture;
 /// bounded memory: leading comment lines are counted, not kept, and at most <see cref="PrescanLines"/> lines or
 /// <see cref="PrescanChars"/> characters after them are looked at.
 /// </summary>
+/// <remarks>
+/// Each line is split into cells by the parser that then reads the rows (<see cref="CsvLineSplitter"/>), so both
+/// agree on where a cell ends, on quoted cells and on comment lines among the data. Before the header, the lines are
+/// only sorted into comments, <c>key: value</c> metadata, the header and data (which before a header is an error).
+/// </remarks>
 internal sealed class CsvDialect
 {
     /// <summary>Lines read up front (after any leading comment lines) to find the dialect, header and rate.</summary>
@@ -16,29 +21,40 @@ internal sealed class CsvDialect
     /// <summary>Characters read up front at most, whatever the line count (bounds the memory of the first pass).</summary>
     private const int PrescanChars = 4 << 20;
 
+    /// <summary>The field delimiter: tab, semicolon or comma.</summary>
     public char Delimiter { get; private init; }
 
+    /// <summary>Whether numbers are written with a decimal comma (only with tab or semicolon as delimiter).</summary>
     public bool DecimalComma { get; private init; }
 
+    /// <summary>1-based line of the header.</summary>
     public long HeaderLine { get; private init; }
 
     /// <summary>1-based line of the first data row.</summary>
     public long FirstDataLine { get; private init; }
 
+    /// <summary>The header's cells, trimmed and unquoted.</summary>
     public string[] Header { get; private init; } = [];
 
-    public string[]? FirstRow { get; private init; }
+    /// <summary>The first data row's cells, trimmed.</summary>
+    public string[] FirstRow { get; private init; } = [];
 
-    public int DataRows { get; private set; }
+    /// <summary>Data rows among the lines looked at.</summary>
+    public int DataRows { get; private init; }
 
+    /// <summary>Whether the lines looked at are the whole file.</summary>
     public bool ReachedEnd { get; private init; }
 
+    /// <summary>Mean characters per data row (line end included), for an estimate of the row count.</summary>
     public double BytesPerDataRow { get; private init; }
 
+    /// <summary>The time column's values in the data rows looked at, seconds (from the first stamp for time stamps).</summary>
     public List<double> TimeValues { get; } = [];
 
+    /// <summary>0-based index of the first time column, -1 if none.</summary>
     public int TimeColumn { get; private set; } = -1;
 
+    /// <summary>The first row's time stamp, for a time-stamp column.</summary>
     public DateTimeOffset? StartTime { get; private set; }
 
     /// <summary>The dialect as a person reads it, e.g. <c>delimiter ';', decimal comma, 2 preamble lines</c>.</summary>
@@ -49,45 +65,13 @@ internal sealed class CsvDialect
     /// <summary>Reads the first lines of <paramref name="path"/>.</summary>
     /// <param name="path">The text file, as the user named it.</param>
     /// <exception cref="CaptureFormatException">Empty, comments only, no header, no data row after it, a first row
-    /// shorter than the header, an unbalanced quote, or a time value that cannot be read (each with line and
-    /// column).</exception>
+    /// shorter than the header, a line the parser cannot split (an unbalanced quote), or a time value that cannot be
+    /// read (each with line and column).</exception>
     public static CsvDialect Detect(string path)
     {
-        // Leading comment and blank lines are counted, not kept: a preamble of any length is passed over with
-        // bounded memory. From the first other line, up to PrescanLines lines are kept. lines[i] is line first + i.
-        var lines = new List<string>(PrescanLines);
-        long first;
-        bool reachedEnd;
-        using (var reader = new StreamReader(path, detectEncodingFromByteOrderMarks: true))
-        {
-            var source = new BoundedLineReader(reader, path);
-            string line;
-            long leading = 0;
-            while (source.TryRead(out line) && IsCommentOrBlank(line))
-            {
-                leading++;
-            }
-
-            if (source.LineNumber == leading)
-            {
-                throw new CaptureFormatException(path, leading == 0
-                    ? "empty file: no header and no data"
-                    : $"no header: the file holds only {leading} comment or blank lines", Math.Max(1, leading), 1);
-            }
-
-            first = leading + 1;
-            lines.Add(line);
-            long chars = line.Length;
-            while (lines.Count < PrescanLines && chars < PrescanChars && source.TryRead(out line))
-            {
-                lines.Add(line);
-                chars += line.Length;
-            }
-
-            reachedEnd = !source.TryRead(out _);
-        }
-
+        var (lines, first, reachedEnd) = ReadFirstLines(path);
         long LineOf(int i) => first + i;
+        var splitter = new CsvLineSplitter(lines.Max(l => l.Length));
         var content = new List<int>();
         for (var i = 0; i < lines.Count; i++)
         {
@@ -97,14 +81,27 @@ internal sealed class CsvDialect
             }
         }
 
-        var (delimiter, fieldCount) = ChooseDelimiter(lines, content);
+        var (delimiter, fieldCount) = ChooseDelimiter(lines, content, splitter);
         var headerIndex = -1;
+        string[] header = [];
         foreach (var i in content)
         {
-            var fields = Split(lines[i], delimiter);
+            var fields = splitter.Split(lines[i], delimiter, out var fault);
+            if (fields is null)
+            {
+                // A logger's note may hold a stray quote; a line that should be the header or data may not.
+                if (IsMetadata(lines[i]))
+                {
+                    continue;
+                }
+
+                throw new CaptureFormatException(path, fault.Problem, LineOf(i), fault.Column);
+            }
+
             if (fields.Length == fieldCount && !IsMetadata(lines[i]) && !LooksLikeData(fields, false, out _))
             {
                 headerIndex = i;
+                header = [.. fields.Select(Unquoted)];
                 break;
             }
 
@@ -121,28 +118,27 @@ internal sealed class CsvDialect
                 $"no header line with {fieldCount} fields (delimiter {DelimiterName(delimiter)}) found", LineOf(content[0]), 1);
         }
 
-        for (var i = headerIndex; i < lines.Count; i++)
-        {
-            if (UnclosedQuoteColumn(lines[i], delimiter) is { } column)
-            {
-                throw new CaptureFormatException(path,
-                    "unbalanced quote: the field opens a quote that the line does not close (a capture row must be one line)",
-                    LineOf(i), column);
-            }
-        }
-
-        var header = Split(lines[headerIndex], delimiter);
-        var firstData = -1;
+        // From the header on every line is a row for the parser: split once, a line it cannot split refused here
+        // as it would be when read. Blank lines and comment lines are passed over, as the reader passes over them.
+        var rows = new List<(int Index, string[] Cells)>();
+        long dataChars = 0;
         for (var i = headerIndex + 1; i < lines.Count; i++)
         {
-            if (lines[i].Trim().Length > 0)
+            if (lines[i].Trim().Length == 0)
             {
-                firstData = i;
-                break;
+                continue;
+            }
+
+            var cells = splitter.Split(lines[i], delimiter, out var fault)
+                ?? throw new CaptureFormatException(path, fault.Problem, LineOf(i), fault.Column);
+            if (cells.Length > 0)
+            {
+                rows.Add((i, cells));
+                dataChars += lines[i].Length + 1;
             }
         }
 
-        if (firstData < 0)
+        if (rows.Count == 0)
         {
             if (reachedEnd)
             {
@@ -155,32 +151,18 @@ internal sealed class CsvDialect
         var decimalComma = false;
         if (delimiter != ',')
         {
-            for (var i = firstData; i < lines.Count && !decimalComma; i++)
+            for (var r = 0; r < rows.Count && !decimalComma; r++)
             {
-                LooksLikeData(Split(lines[i], delimiter), true, out decimalComma);
+                LooksLikeData(rows[r].Cells, true, out decimalComma);
             }
-        }
-
-        var dataRows = 0;
-        long dataChars = 0;
-        string[]? firstRow = null;
-        for (var i = firstData; i < lines.Count; i++)
-        {
-            if (lines[i].Trim().Length == 0)
-            {
-                continue;
-            }
-
-            dataRows++;
-            dataChars += lines[i].Length + 1;
-            firstRow ??= Split(lines[i], delimiter);
         }
 
         // Data rows must line up with the header (a longer row is fine: trailing delimiters are common).
-        if (firstRow!.Length < header.Length)
+        var (firstIndex, firstRow) = rows[0];
+        if (firstRow.Length < header.Length)
         {
             throw new CaptureFormatException(path,
-                $"row has {firstRow.Length} fields, the header has {header.Length}", LineOf(firstData), firstRow.Length + 1);
+                $"row has {firstRow.Length} fields, the header has {header.Length}", LineOf(firstIndex), firstRow.Length + 1);
         }
 
         var dialect = new CsvDialect
@@ -188,91 +170,91 @@ internal sealed class CsvDialect
             Delimiter = delimiter,
             DecimalComma = decimalComma,
             HeaderLine = LineOf(headerIndex),
-            FirstDataLine = LineOf(firstData),
+            FirstDataLine = LineOf(firstIndex),
             Header = header,
             FirstRow = firstRow,
-            DataRows = dataRows,
+            DataRows = rows.Count,
             ReachedEnd = reachedEnd,
-            BytesPerDataRow = dataRows > 0 ? dataChars / (double)dataRows : 1,
+            BytesPerDataRow = dataChars / (double)rows.Count,
         };
         if (header.Length <= CaptureLimits.MaxCsvColumns)
         {
-            dialect.CollectTimes(lines, firstData, path, first);
+            dialect.CollectTimes(rows, path, first);
         }
 
         return dialect;
     }
 
-    /// <summary>1-based field of a quote the line opens and never closes; null when every quote is closed.</summary>
-    private static int? UnclosedQuoteColumn(string line, char delimiter)
+    /// <summary>The delimiter as a person reads it.</summary>
+    public static string DelimiterName(char delimiter) => delimiter switch
     {
-        var quoted = false;
-        var field = 1;
-        var openedIn = 0;
-        foreach (var c in line)
+        '\t' => "tab",
+        _ => $"'{delimiter}'",
+    };
+
+    /// <summary>Leading comment and blank lines are counted, not kept: a preamble of any length is passed over with
+    /// bounded memory. From the first other line, up to <see cref="PrescanLines"/> lines are kept; lines[i] is line
+    /// first + i.</summary>
+    private static (List<string> Lines, long First, bool ReachedEnd) ReadFirstLines(string path)
+    {
+        var lines = new List<string>(PrescanLines);
+        using var reader = new StreamReader(path, detectEncodingFromByteOrderMarks: true);
+        var source = new BoundedLineReader(reader, path);
+        string line;
+        long leading = 0;
+        while (source.TryRead(out line) && IsCommentOrBlank(line))
         {
-            if (c == '"')
-            {
-                quoted = !quoted;
-                openedIn = field;
-            }
-            else if (c == delimiter && !quoted)
-            {
-                field++;
-            }
+            leading++;
         }
 
-        return quoted ? openedIn : null;
+        if (source.LineNumber == leading)
+        {
+            throw new CaptureFormatException(path, leading == 0
+                ? "empty file: no header and no data"
+                : $"no header: the file holds only {leading} comment or blank lines", Math.Max(1, leading), 1);
+        }
+
+        lines.Add(line);
+        long chars = line.Length;
+        while (lines.Count < PrescanLines && chars < PrescanChars && source.TryRead(out line))
+        {
+            lines.Add(line);
+            chars += line.Length;
+        }
+
+        return (lines, leading + 1, !source.TryRead(out _));
     }
 
-    private void CollectTimes(List<string> lines, int firstData, string path, long first)
+    /// <summary>The first time column's values, read as the reader reads them (same words for a bad cell).</summary>
+    private void CollectTimes(List<(int Index, string[] Cells)> rows, string path, long first)
     {
         for (var c = 0; c < Header.Length; c++)
         {
-            var column = CsvColumn.Parse(c + 1, Header[c], FirstRow?[c], out _);
+            var column = CsvColumn.Parse(c + 1, Header[c], FirstRow[c], out _);
             if (column.Kind is not (CsvColumnKind.TimeSeconds or CsvColumnKind.TimeStamp))
             {
                 continue;
             }
 
             TimeColumn = c;
-            var number = DecimalComma ? new NumberFormatInfo { NumberDecimalSeparator = "," } : NumberFormatInfo.InvariantInfo;
-            DateTimeOffset? origin = null;
-            for (var i = firstData; i < lines.Count; i++)
+            var axis = new CsvTimeAxis(column, double.NaN, rateGiven: false);
+            var number = CsvCells.NumberFormat(DecimalComma);
+            foreach (var (index, cells) in rows)
             {
-                if (lines[i].Trim().Length == 0)
-                {
-                    continue;
-                }
-
-                var fields = Split(lines[i], Delimiter);
-                if (fields.Length <= c)
+                if (cells.Length <= c)
                 {
                     break;
                 }
 
-                if (column.Kind == CsvColumnKind.TimeStamp)
+                if (axis.TryRead(cells[c], number, out var t) is { } problem)
                 {
-                    if (!DateTimeOffset.TryParse(fields[c], CultureInfo.InvariantCulture,
-                            DateTimeStyles.AssumeUniversal | DateTimeStyles.AllowWhiteSpaces, out var stamp))
-                    {
-                        throw new CaptureFormatException(path, $"'{ShownText.Of(fields[c])}' is not an ISO 8601 time stamp", first + i, c + 1);
-                    }
+                    throw new CaptureFormatException(path, problem, first + index, c + 1);
+                }
 
-                    origin ??= stamp;
-                    TimeValues.Add((stamp - origin.Value).TotalSeconds);
-                }
-                else if (double.TryParse(fields[c], NumberStyles.Float, number, out var t) && double.IsFinite(t))
-                {
-                    TimeValues.Add(t * column.Factor);
-                }
-                else
-                {
-                    throw new CaptureFormatException(path, $"'{ShownText.Of(fields[c])}' is not a finite number", first + i, c + 1);
-                }
+                TimeValues.Add(t);
             }
 
-            StartTime = origin;
+            StartTime = axis.FirstStamp;
             return;
         }
     }
@@ -285,27 +267,29 @@ internal sealed class CsvDialect
 
     /// <summary>Tab, then semicolon, then comma: the first for which at least 80 % of the last content lines split into
     /// the same count of two or more fields (a preamble line or a faulty row does not spoil the choice).</summary>
-    private static (char Delimiter, int FieldCount) ChooseDelimiter(List<string> lines, List<int> content)
+    private static (char Delimiter, int FieldCount) ChooseDelimiter(List<string> lines, List<int> content, CsvLineSplitter splitter)
     {
         var sample = content.Skip(Math.Max(0, content.Count - 50)).ToList();
         foreach (var candidate in new[] { '\t', ';', ',' })
         {
-            var (count, share) = CommonFieldCount(lines, sample, candidate);
+            var (count, share) = CommonFieldCount(lines, sample, candidate, splitter);
             if (count >= 2 && share >= 0.8)
             {
                 return (candidate, count);
             }
         }
 
-        return (',', CommonFieldCount(lines, sample, ',').Count);
+        return (',', CommonFieldCount(lines, sample, ',', splitter).Count);
     }
 
-    private static (int Count, double Share) CommonFieldCount(List<string> lines, List<int> sample, char delimiter)
+    /// <summary>The most common count of cells, and the share of lines that have it; a line the parser cannot split
+    /// with this delimiter counts as none.</summary>
+    private static (int Count, double Share) CommonFieldCount(List<string> lines, List<int> sample, char delimiter, CsvLineSplitter splitter)
     {
         var counts = new Dictionary<int, int>();
         foreach (var i in sample)
         {
-            var n = Split(lines[i], delimiter).Length;
+            var n = splitter.Split(lines[i], delimiter, out _)?.Length ?? -1;
             counts[n] = counts.GetValueOrDefault(n) + 1;
         }
 
@@ -320,12 +304,15 @@ internal sealed class CsvDialect
         return colon > 0 && !line.AsSpan(0, colon).ContainsAny('[', '(');
     }
 
+    /// <summary>Whether every non-empty cell is a number (or a date-time stamp); quotes the parser left, after a space
+    /// before them, are looked through, since only the shape of the line matters here.</summary>
     private static bool LooksLikeData(string[] fields, bool commaAllowed, out bool decimalComma)
     {
         decimalComma = false;
         var any = false;
-        foreach (var field in fields)
+        foreach (var cell in fields)
         {
+            var field = Unquoted(cell);
             if (field.Length == 0)
             {
                 continue;
@@ -338,7 +325,7 @@ internal sealed class CsvDialect
             }
 
             if (commaAllowed && field.Contains(',', StringComparison.Ordinal) &&
-                double.TryParse(field, NumberStyles.Float, new NumberFormatInfo { NumberDecimalSeparator = "," }, out _))
+                double.TryParse(field, NumberStyles.Float, CsvCells.NumberFormat(decimalComma: true), out _))
             {
                 decimalComma = true;
                 continue;
@@ -356,21 +343,6 @@ internal sealed class CsvDialect
         return any;
     }
 
-    public static string[] Split(string line, char delimiter)
-    {
-        var parts = line.Split(delimiter);
-        for (var i = 0; i < parts.Length; i++)
-        {
-            parts[i] = parts[i].Trim().Trim('"').Trim();
-        }
-
-        return parts;
-    }
-
-    /// <summary>The delimiter as a person reads it.</summary>
-    public static string DelimiterName(char delimiter) => delimiter switch
-    {
-        '\t' => "tab",
-        _ => $"'{delimiter}'",
-    };
+    /// <summary>A cell without the quotes the parser leaves when a space comes before them (<c> "I [mA]"</c>).</summary>
+    private static string Unquoted(string cell) => cell.Trim('"').Trim();
 }

@@ -26,7 +26,7 @@ internal sealed class CsvTimeAxis
     private long _rows;
     private double _firstT = double.NaN;
     private double _previousT = double.NaN;
-    private long _firstTicks;
+    private DateTimeOffset? _firstStamp;
     private long _goodSteps;
     private double _stepMean;
     private double _stepM2;
@@ -46,6 +46,9 @@ internal sealed class CsvTimeAxis
         _medianStepS = medianStepS;
         _rateGiven = rateGiven;
     }
+
+    /// <summary>The first time stamp read, for a time-stamp column: stamps count from it.</summary>
+    public DateTimeOffset? FirstStamp => _firstStamp;
 
     /// <summary>Time faults found so far; complete after <see cref="Finish"/>.</summary>
     public IReadOnlyList<CaptureWarning> Warnings => _warnings;
@@ -87,7 +90,8 @@ internal sealed class CsvTimeAxis
         return median;
     }
 
-    /// <summary>Reads the next row's time cell, seconds from the first row's stamp for a time-stamp column.</summary>
+    /// <summary>Reads the next row's time cell: seconds times the column's unit, or seconds from the first stamp read
+    /// for a time-stamp column.</summary>
     /// <param name="cell">The cell, trimmed.</param>
     /// <param name="number">The dialect's number format.</param>
     /// <param name="seconds">The time; meaningful only when no problem is returned.</param>
@@ -107,12 +111,8 @@ internal sealed class CsvTimeAxis
             return stampProblem;
         }
 
-        if (_rows == 0)
-        {
-            _firstTicks = stamp.UtcTicks;
-        }
-
-        seconds = (stamp.UtcTicks - _firstTicks) / (double)TimeSpan.TicksPerSecond;
+        _firstStamp ??= stamp;
+        seconds = (stamp.UtcTicks - _firstStamp.Value.UtcTicks) / (double)TimeSpan.TicksPerSecond;
         return null;
     }
 
