@@ -17,8 +17,6 @@ namespace WaveCheck.Core.Capture.Comtrade;
 /// </remarks>
 public sealed class ComtradeCaptureSource : ICaptureSource
 {
-    private const int RateProbeFrames = 65536;
-
     private static readonly HashSet<string> ResidualWords = new(StringComparer.OrdinalIgnoreCase)
     {
         "N", "IN", "E", "IE", "3I0", "3IO", "I0", "IRES", "RES", "RESIDUAL", "EARTH", "NEUTRAL", "IEARTH", "INEUTRAL",
@@ -87,7 +85,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         }
 
         CheckDataCanHold(container, config);
-        var reader = OpenReader(container, config);
+        var reader = ComtradeDataReader.Open(container, config);
         try
         {
             return Build(container, config, reader, options, warnings);
@@ -242,37 +240,22 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         }
     }
 
-    private static ComtradeDataReader OpenReader(ComtradeContainer container, ComtradeConfig config)
-    {
-        var stream = new FileStream(container.DataPath, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
-        try
-        {
-            stream.Seek(container.DataOffset, SeekOrigin.Begin);
-            return ComtradeDataReader.Create(container.DataPath, stream, config, container.DataBytes, container.DataFirstLine);
-        }
-        catch
-        {
-            stream.Dispose();
-            throw;
-        }
-    }
-
     private static ComtradeCaptureSource Build(ComtradeContainer container, ComtradeConfig config,
         ComtradeDataReader reader, ImportOptions options, List<CaptureWarning> warnings)
     {
         var path = container.CfgPath;
-        var (section, sectionStartS) = ChooseSection(config, warnings);
+        var (section, sectionStartS) = ComtradeSections.Choose(config, warnings);
         var rateHz = section.RateHz;
         if (config.TimestampsOnly)
         {
-            rateHz = RateFromTimestamps(container, config, warnings);
+            rateHz = ComtradeSections.RateFromTimestamps(container, config, warnings);
         }
 
-        var conversions = new ChannelConversion[config.Analog.Count];
+        var conversions = new ComtradeChannelConversion[config.Analog.Count];
         var channels = new ChannelInfo[config.Analog.Count];
         for (var c = 0; c < conversions.Length; c++)
         {
-            conversions[c] = ChannelConversion.For(config.Analog[c], options.Primary);
+            conversions[c] = ComtradeChannelConversion.For(config.Analog[c], options.Primary);
             if (CaptureLimits.ScaleProblem($"analog channel {c + 1}: multiplier × unit × transformer ratio", conversions[c].Scale, string.Empty) is { } scaleProblem)
             {
                 throw new CaptureFormatException(path, scaleProblem, config.Analog[c].Line > 0 ? config.Analog[c].Line : null);
@@ -339,83 +322,6 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         return new ComtradeCaptureSource(config, reader, info, warnings, scale, offset, selection, weights);
     }
 
-    private static (ComtradeRateSection Section, double StartS) ChooseSection(ComtradeConfig config, List<CaptureWarning> warnings)
-    {
-        var sections = config.RateSections;
-        var best = 0;
-        for (var i = 1; i < sections.Count; i++)
-        {
-            var (d, bd) = (sections[i].DurationS, sections[best].DurationS);
-            if (d > bd || (d == bd && sections[i].RateHz > sections[best].RateHz))
-            {
-                best = i;
-            }
-        }
-
-        var startS = 0.0;
-        for (var i = 0; i < best; i++)
-        {
-            startS += sections[i].DurationS;
-        }
-
-        if (sections.Count > 1)
-        {
-            var list = string.Join("; ", sections.Select(s =>
-                $"{s.RateHz.ToString(CultureInfo.InvariantCulture)} Hz for samples {s.FirstSample}-{s.LastSample} ({s.DurationS.ToString("0.###", CultureInfo.InvariantCulture)} s)"));
-            var chosen = sections[best];
-            warnings.Add(new CaptureWarning("rate-sections",
-                $"the record has {sections.Count} sample-rate sections ({list}); only the longest, {chosen.RateHz.ToString(CultureInfo.InvariantCulture)} Hz for samples {chosen.FirstSample}-{chosen.LastSample}, is analysed; times count from its start",
-                startS));
-        }
-
-        return (sections[best], startS);
-    }
-
-    private static double RateFromTimestamps(ComtradeContainer container, ComtradeConfig config, List<CaptureWarning> warnings)
-    {
-        // At most 4 M values, whatever the channel count, so the probe's memory stays bounded.
-        var frames = (int)Math.Min(config.TotalSamples, Math.Max(2, Math.Min(RateProbeFrames, (1 << 22) / config.Analog.Count)));
-        var raw = ArrayPool<double>.Shared.Rent(frames * config.Analog.Count);
-        var stamps = ArrayPool<long>.Shared.Rent(frames);
-        try
-        {
-            using var probe = OpenReader(container, config);
-            var got = probe.Read(raw, stamps, frames);
-            int first = -1, last = -1;
-            for (var i = 0; i < got; i++)
-            {
-                if (stamps[i] >= 0)
-                {
-                    first = first < 0 ? i : first;
-                    last = i;
-                }
-            }
-
-            var spanS = first >= 0 ? (stamps[last] - stamps[first]) * config.TimeMultiplier * config.TimestampBaseS : 0;
-            if (last <= first || !(spanS > 0))
-            {
-                throw new CaptureFormatException(container.DataPath,
-                    "the cfg gives no sample rate (nrates = 0) and the data's time stamps do not increase, so no rate can be derived");
-            }
-
-            var rateHz = (last - first) / spanS;
-            if (CaptureLimits.RateProblem(rateHz) is { } rateProblem)
-            {
-                throw new CaptureFormatException(container.DataPath, string.Create(CultureInfo.InvariantCulture,
-                    $"the cfg gives no sample rate (nrates = 0) and the time stamps of samples {first + 1} to {last + 1} (time multiplier {config.TimeMultiplier}) give a {rateProblem}"));
-            }
-
-            warnings.Add(new CaptureWarning("rate-from-timestamps",
-                $"the cfg gives no sample rate (nrates = 0); {rateHz.ToString("0.###", CultureInfo.InvariantCulture)} Hz is derived from the time stamps of samples {first + 1} to {last + 1} (time multiplier {config.TimeMultiplier.ToString(CultureInfo.InvariantCulture)})"));
-            return rateHz;
-        }
-        finally
-        {
-            ArrayPool<double>.Shared.Return(raw);
-            ArrayPool<long>.Shared.Return(stamps);
-        }
-    }
-
     /// <summary>The shared channel choice; with nothing chosen, the one current channel named as residual or earth
     /// current, else the first current channel with a <c>channel-guessed</c> warning.</summary>
     private static ChannelSelection ChooseResidual(string path, ComtradeConfig config, ChannelInfo[] channels, ImportOptions options)
@@ -462,61 +368,5 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         }
 
         return false;
-    }
-
-    /// <summary>From a stored value to the SI value delivered: unit prefix and the primary/secondary ratio.</summary>
-    private readonly record struct ChannelConversion(double Scale, double Offset, ChannelQuantity Quantity,
-        double UnitFactor, double RatioFactor, string Side, string? Note)
-    {
-        public static ChannelConversion For(ComtradeAnalogChannel ch, bool wantPrimary)
-        {
-            var (quantity, unitFactor) = ch.Unit.Trim() switch
-            {
-                "A" or "a" => (ChannelQuantity.Current, 1.0),
-                "kA" or "KA" => (ChannelQuantity.Current, 1e3),
-                "mA" => (ChannelQuantity.Current, 1e-3),
-                "uA" or "µA" or "μA" => (ChannelQuantity.Current, 1e-6),
-                "V" or "v" => (ChannelQuantity.Voltage, 1.0),
-                "kV" or "KV" => (ChannelQuantity.Voltage, 1e3),
-                "mV" => (ChannelQuantity.Voltage, 1e-3),
-                _ => (ChannelQuantity.Unscaled, 1.0),
-            };
-
-            // 1999 clause 6.4.3 / 2013 clause 7.4.3: a·x+b gives the side named by PS; primary/secondary is the
-            // transformer ratio. Converting P→S divides by primary/secondary, S→P multiplies.
-            var wanted = wantPrimary ? 'P' : 'S';
-            var ratio = 1.0;
-            string? note = null;
-            var side = ch.PrimaryOrSecondary is { } ps ? (ps == 'P' ? "primary" : "secondary") : "as recorded";
-            if (ch.PrimaryOrSecondary is null)
-            {
-                note = wantPrimary ? "the cfg (1991) does not say whether values are primary or secondary; they are delivered as recorded" : null;
-            }
-            else if (ch.PrimaryOrSecondary != wanted)
-            {
-                if (ch.Primary > 0 && ch.Secondary > 0)
-                {
-                    ratio = wantPrimary ? ch.Primary / ch.Secondary : ch.Secondary / ch.Primary;
-                    side = wantPrimary ? "secondary → primary" : "primary → secondary";
-                }
-                else
-                {
-                    note = $"the cfg gives no usable transformer ratio (primary {ch.Primary.ToString(CultureInfo.InvariantCulture)}, secondary {ch.Secondary.ToString(CultureInfo.InvariantCulture)}); values stay {side}";
-                }
-            }
-
-            var factor = unitFactor * ratio;
-            return new ChannelConversion(ch.A * factor, ch.B * factor, quantity, unitFactor, ratio, side, note);
-        }
-
-        public ChannelInfo Info(int index, ComtradeAnalogChannel ch)
-        {
-            var fullScale = Math.Max(Math.Abs((ch.Min * Scale) + Offset), Math.Abs((ch.Max * Scale) + Offset));
-            return new ChannelInfo(index, ch.Id, ch.Unit, Quantity, Scale, fullScale > 0 ? fullScale : null);
-        }
-
-        public string Describe(ComtradeAnalogChannel ch) =>
-            $"a={ch.A.ToString(CultureInfo.InvariantCulture)}, b={ch.B.ToString(CultureInfo.InvariantCulture)} {ch.Unit}, {Side}"
-            + (RatioFactor != 1.0 ? $" × {RatioFactor.ToString("G6", CultureInfo.InvariantCulture)}" : string.Empty);
     }
 }
