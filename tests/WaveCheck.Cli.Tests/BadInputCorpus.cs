@@ -189,7 +189,9 @@ internal static class BadInputCorpus
             _ => ["csv-time-step-1e-12.csv:2:1", "median step is 1E-12 s", "outside 1 Hz to 10 MHz"]);
         yield return CsvCase("csv-time-step-1e6", Bad, () => header + string.Concat(Enumerable.Range(0, 50).Select(n => $"{n}e6,1\n")),
             _ => ["csv-time-step-1e6.csv:2:1", "median step is 1E+06 s"]);
-        yield return CsvCase("csv-time-text", Bad, () => header + Rows(0, 5) + "x,1\n" + Rows(6, 10), _ => ["csv-time-text.csv:7:1", "'x' is not a finite number"]);
+        // The look-ahead reads its time cells as the reader reads every later row: the same words for one fault.
+        yield return CsvCase("csv-time-text", Bad, () => header + Rows(0, 5) + "x,1\n" + Rows(6, 10), _ => ["csv-time-text.csv:7:1", "'x' is not a number"]);
+        yield return CsvCase("csv-time-text-late", Bad, () => header + Rows(0, 1000) + "x,1\n" + Rows(1001, 1100), _ => ["csv-time-text-late.csv:1002:1", "'x' is not a number"]);
         yield return CsvCase("csv-short-row", Bad, () => "time [s],I1 [mA],I2 [mA]\n0,1,2\n0.001,2\n", _ => ["csv-short-row.csv:3:3", "row has 2 fields"]);
         yield return CsvCase("csv-cell-text", Bad, () => InputFiles.Csv(n => n == 1200 ? "0.3,abc" : null), _ => ["csv-cell-text.csv:1202:2", "'abc' is not a number"]);
         yield return CsvCase("csv-cell-nan", Bad, () => InputFiles.Csv(n => n == 3 ? $"{3 / 4000.0:R},nan" : null), _ => ["csv-cell-nan.csv:5:2", "not a finite number"]);

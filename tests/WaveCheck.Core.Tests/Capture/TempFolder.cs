@@ -34,9 +34,11 @@ internal sealed class TempFolder : IDisposable
         }
     }
 
-    /// <summary>The Fixtures folder beside the test sources.</summary>
-    public static string Fixture(string name, [CallerFilePath] string here = "") =>
-        System.IO.Path.Combine(System.IO.Path.GetDirectoryName(here)!, "..", "Fixtures", name);
+    /// <summary>A file of the test project's Fixtures folder, wherever the calling test lives.</summary>
+    public static string Fixture(string name) =>
+        System.IO.Path.Combine(System.IO.Path.GetDirectoryName(ThisFile())!, "..", "Fixtures", name);
+
+    private static string ThisFile([CallerFilePath] string here = "") => here;
 }
 
 /// <summary>Test signals and reading helpers.</summary>

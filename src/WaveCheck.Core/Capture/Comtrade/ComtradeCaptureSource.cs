@@ -17,8 +17,6 @@ namespace WaveCheck.Core.Capture.Comtrade;
 /// </remarks>
 public sealed class ComtradeCaptureSource : ICaptureSource
 {
-    private const int RateProbeFrames = 65536;
-
     private static readonly HashSet<string> ResidualWords = new(StringComparer.OrdinalIgnoreCase)
     {
         "N", "IN", "E", "IE", "3I0", "3IO", "I0", "IRES", "RES", "RESIDUAL", "EARTH", "NEUTRAL", "IEARTH", "INEUTRAL",
@@ -29,8 +27,8 @@ public sealed class ComtradeCaptureSource : ICaptureSource
     private readonly double[] _scale;
     private readonly double[] _offset;
     private readonly double[] _held;
-    private readonly int[] _residual;
-    private readonly double[] _residualWeight;
+    private readonly ChannelSelection _selection;
+    private readonly double[] _toAmperes;
     private readonly long _missingBefore;
     private long _delivered;
     private long _missing;
@@ -39,7 +37,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
     private bool _finished;
 
     private ComtradeCaptureSource(ComtradeConfig config, ComtradeDataReader reader, CaptureInfo info,
-        List<CaptureWarning> warnings, double[] scale, double[] offset, int[] residual, double[] residualWeight)
+        List<CaptureWarning> warnings, double[] scale, double[] offset, ChannelSelection selection, double[] toAmperes)
     {
         Config = config;
         _reader = reader;
@@ -48,8 +46,8 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         _scale = scale;
         _offset = offset;
         _held = new double[scale.Length];
-        _residual = residual;
-        _residualWeight = residualWeight;
+        _selection = selection;
+        _toAmperes = toAmperes;
         _missingBefore = reader.Position;
     }
 
@@ -67,8 +65,8 @@ public sealed class ComtradeCaptureSource : ICaptureSource
     /// <param name="options">Channel choice, primary/secondary, sensitivity for a voltage channel, sensor coupling.</param>
     /// <returns>A source positioned at the first sample of the delivered rate section; the caller disposes it.</returns>
     /// <exception cref="CaptureFormatException">Missing files, a cfg line that does not parse (line and field),
-    /// a data file shorter than the cfg says, a voltage channel without a sensitivity.</exception>
-    /// <exception cref="OptionValueException">A channel named in the options is not in the cfg.</exception>
+    /// a data file shorter than the cfg says, a channel named in the options that the cfg does not have (or one
+    /// named twice), a voltage channel without a sensitivity.</exception>
     public static ICaptureSource Open(string path, ImportOptions options)
     {
         ArgumentNullException.ThrowIfNull(path);
@@ -87,7 +85,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         }
 
         CheckDataCanHold(container, config);
-        var reader = OpenReader(container, config);
+        var reader = ComtradeDataReader.Open(container, config);
         try
         {
             return Build(container, config, reader, options, warnings);
@@ -179,23 +177,13 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             }
         }
 
+        _selection.FormResidual(block, frames, _toAmperes);
         var residual = block.ResidualBuffer[..frames];
-        residual.Clear();
-        for (var k = 0; k < _residual.Length; k++)
-        {
-            var weight = _residualWeight[k];
-            var channel = block.ChannelBuffer(_residual[k])[..frames];
-            for (var i = 0; i < frames; i++)
-            {
-                residual[i] += channel[i] * weight;
-            }
-        }
-
         var badResidual = CaptureLimits.IndexOfInvalid(residual);
         if (badResidual >= 0)
         {
             // Only a voltage divided by a tiny sensitivity gets here: every channel was checked above.
-            throw _reader.ValueError(badResidual, _residual[0], CaptureLimits.SampleProblem($"residual ({Info.ResidualSource})",
+            throw _reader.ValueError(badResidual, _selection.Indices[0], CaptureLimits.SampleProblem($"residual ({Info.ResidualSource})",
                 residual[badResidual], (_delivered + badResidual) / Info.SampleRateHz, "A"));
         }
     }
@@ -252,37 +240,22 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         }
     }
 
-    private static ComtradeDataReader OpenReader(ComtradeContainer container, ComtradeConfig config)
-    {
-        var stream = new FileStream(container.DataPath, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
-        try
-        {
-            stream.Seek(container.DataOffset, SeekOrigin.Begin);
-            return ComtradeDataReader.Create(container.DataPath, stream, config, container.DataBytes, container.DataFirstLine);
-        }
-        catch
-        {
-            stream.Dispose();
-            throw;
-        }
-    }
-
     private static ComtradeCaptureSource Build(ComtradeContainer container, ComtradeConfig config,
         ComtradeDataReader reader, ImportOptions options, List<CaptureWarning> warnings)
     {
         var path = container.CfgPath;
-        var (section, sectionStartS) = ChooseSection(config, warnings);
+        var (section, sectionStartS) = ComtradeSections.Choose(config, warnings);
         var rateHz = section.RateHz;
         if (config.TimestampsOnly)
         {
-            rateHz = RateFromTimestamps(container, config, warnings);
+            rateHz = ComtradeSections.RateFromTimestamps(container, config, warnings);
         }
 
-        var conversions = new ChannelConversion[config.Analog.Count];
+        var conversions = new ComtradeChannelConversion[config.Analog.Count];
         var channels = new ChannelInfo[config.Analog.Count];
         for (var c = 0; c < conversions.Length; c++)
         {
-            conversions[c] = ChannelConversion.For(config.Analog[c], options.Primary);
+            conversions[c] = ComtradeChannelConversion.For(config.Analog[c], options.Primary);
             if (CaptureLimits.ScaleProblem($"analog channel {c + 1}: multiplier × unit × transformer ratio", conversions[c].Scale, string.Empty) is { } scaleProblem)
             {
                 throw new CaptureFormatException(path, scaleProblem, config.Analog[c].Line > 0 ? config.Analog[c].Line : null);
@@ -291,23 +264,19 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             channels[c] = conversions[c].Info(c, config.Analog[c]);
         }
 
-        var residual = ChooseResidual(path, config, channels, options, warnings);
-        var weights = new double[residual.Length];
-        for (var k = 0; k < residual.Length; k++)
+        var selection = ChooseResidual(path, config, channels, options);
+        if (selection.Warning is { } guessed)
         {
-            var ch = channels[residual[k]];
-            weights[k] = ch.Quantity switch
+            warnings.Add(guessed);
+        }
+
+        var residual = selection.Indices;
+        var weights = selection.AmperesPerSiUnit(channels, options, (_, problem) => new CaptureFormatException(path, problem));
+        foreach (var index in residual)
+        {
+            if (conversions[index].Note is { } note)
             {
-                ChannelQuantity.Current => 1.0,
-                ChannelQuantity.Voltage when options.SensitivityVPerA is > 0 => 1.0 / options.SensitivityVPerA.Value,
-                ChannelQuantity.Voltage => throw new CaptureFormatException(path,
-                    $"channel '{ch.Name}' is a voltage ({ch.SourceUnit}): give the sensor's sensitivity (--sensitivity) to read it as a current"),
-                _ => throw new CaptureFormatException(path,
-                    $"channel '{ch.Name}' is in '{ch.SourceUnit}', neither a current nor a voltage; choose another with --channel"),
-            };
-            if (conversions[residual[k]].Note is { } note)
-            {
-                warnings.Add(new CaptureWarning("primary-secondary", $"channel '{ch.Name}': {note}"));
+                warnings.Add(new CaptureWarning("primary-secondary", $"channel '{channels[index].Name}': {note}"));
             }
         }
 
@@ -318,7 +287,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         }
 
         reader.Skip(section.FirstSample - 1);
-        var single = residual.Length == 1;
+        var single = residual.Count == 1;
         var first = conversions[residual[0]];
         var calibration = single
             ? new Calibration(first.Scale * weights[0], first.Offset * weights[0],
@@ -340,7 +309,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             Encoding = $"C37.111-{config.RevisionYear} {config.FileType.ToString().ToUpperInvariant()}{(container.SingleFile ? " (.cff)" : string.Empty)}, "
                 + $"{config.Analog.Count} analog + {config.Digital.Count} digital channels, station '{config.StationName}', device '{config.DeviceId}'",
             Channels = channels,
-            ResidualSource = string.Join("+", residual.Select(i => channels[i].Name)),
+            ResidualSource = selection.Source,
             ResidualChannels = residual,
             SampleRateHz = rateHz,
             SampleCount = section.SampleCount,
@@ -350,124 +319,37 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             SensorCoupling = options.Sensor,
             FullScaleA = single && channels[residual[0]].FullScaleSi is { } fs ? fs * weights[0] : null,
         };
-        return new ComtradeCaptureSource(config, reader, info, warnings, scale, offset, residual, weights);
+        return new ComtradeCaptureSource(config, reader, info, warnings, scale, offset, selection, weights);
     }
 
-    private static (ComtradeRateSection Section, double StartS) ChooseSection(ComtradeConfig config, List<CaptureWarning> warnings)
+    /// <summary>The shared channel choice; with nothing chosen, the one current channel named as residual or earth
+    /// current, else the first current channel with a <c>channel-guessed</c> warning.</summary>
+    private static ChannelSelection ChooseResidual(string path, ComtradeConfig config, ChannelInfo[] channels, ImportOptions options)
     {
-        var sections = config.RateSections;
-        var best = 0;
-        for (var i = 1; i < sections.Count; i++)
+        var currents = new List<int>();
+        var named = new List<int>();
+        foreach (var channel in channels)
         {
-            var (d, bd) = (sections[i].DurationS, sections[best].DurationS);
-            if (d > bd || (d == bd && sections[i].RateHz > sections[best].RateHz))
+            if (channel.Quantity == ChannelQuantity.Current)
             {
-                best = i;
-            }
-        }
-
-        var startS = 0.0;
-        for (var i = 0; i < best; i++)
-        {
-            startS += sections[i].DurationS;
-        }
-
-        if (sections.Count > 1)
-        {
-            var list = string.Join("; ", sections.Select(s =>
-                $"{s.RateHz.ToString(CultureInfo.InvariantCulture)} Hz for samples {s.FirstSample}-{s.LastSample} ({s.DurationS.ToString("0.###", CultureInfo.InvariantCulture)} s)"));
-            var chosen = sections[best];
-            warnings.Add(new CaptureWarning("rate-sections",
-                $"the record has {sections.Count} sample-rate sections ({list}); only the longest, {chosen.RateHz.ToString(CultureInfo.InvariantCulture)} Hz for samples {chosen.FirstSample}-{chosen.LastSample}, is analysed; times count from its start",
-                startS));
-        }
-
-        return (sections[best], startS);
-    }
-
-    private static double RateFromTimestamps(ComtradeContainer container, ComtradeConfig config, List<CaptureWarning> warnings)
-    {
-        // At most 4 M values, whatever the channel count, so the probe's memory stays bounded.
-        var frames = (int)Math.Min(config.TotalSamples, Math.Max(2, Math.Min(RateProbeFrames, (1 << 22) / config.Analog.Count)));
-        var raw = ArrayPool<double>.Shared.Rent(frames * config.Analog.Count);
-        var stamps = ArrayPool<long>.Shared.Rent(frames);
-        try
-        {
-            using var probe = OpenReader(container, config);
-            var got = probe.Read(raw, stamps, frames);
-            int first = -1, last = -1;
-            for (var i = 0; i < got; i++)
-            {
-                if (stamps[i] >= 0)
+                currents.Add(channel.Index);
+                if (SuggestsResidual(config.Analog[channel.Index]))
                 {
-                    first = first < 0 ? i : first;
-                    last = i;
+                    named.Add(channel.Index);
                 }
             }
-
-            var spanS = first >= 0 ? (stamps[last] - stamps[first]) * config.TimeMultiplier * config.TimestampBaseS : 0;
-            if (last <= first || !(spanS > 0))
-            {
-                throw new CaptureFormatException(container.DataPath,
-                    "the cfg gives no sample rate (nrates = 0) and the data's time stamps do not increase, so no rate can be derived");
-            }
-
-            var rateHz = (last - first) / spanS;
-            if (CaptureLimits.RateProblem(rateHz) is { } rateProblem)
-            {
-                throw new CaptureFormatException(container.DataPath, string.Create(CultureInfo.InvariantCulture,
-                    $"the cfg gives no sample rate (nrates = 0) and the time stamps of samples {first + 1} to {last + 1} (time multiplier {config.TimeMultiplier}) give a {rateProblem}"));
-            }
-
-            warnings.Add(new CaptureWarning("rate-from-timestamps",
-                $"the cfg gives no sample rate (nrates = 0); {rateHz.ToString("0.###", CultureInfo.InvariantCulture)} Hz is derived from the time stamps of samples {first + 1} to {last + 1} (time multiplier {config.TimeMultiplier.ToString(CultureInfo.InvariantCulture)})"));
-            return rateHz;
         }
-        finally
+
+        const string words = "(N, IN, 3I0, Ires, IE, E)";
+        var unnamed = named.Count switch
         {
-            ArrayPool<double>.Shared.Return(raw);
-            ArrayPool<long>.Shared.Return(stamps);
-        }
-    }
-
-    private static int[] ChooseResidual(string path, ComtradeConfig config, ChannelInfo[] channels,
-        ImportOptions options, List<CaptureWarning> warnings)
-    {
-        if (options.SumChannels is { Count: > 0 } sum)
-        {
-            var picked = new int[sum.Count];
-            for (var k = 0; k < sum.Count; k++)
-            {
-                picked[k] = Find(channels, sum[k], "--sum");
-            }
-
-            return picked;
-        }
-
-        if (!string.IsNullOrWhiteSpace(options.Channel))
-        {
-            return [Find(channels, options.Channel, "--channel")];
-        }
-
-        var currents = channels.Where(c => c.Quantity == ChannelQuantity.Current).ToList();
-        var residualLike = currents.Where(c => SuggestsResidual(config.Analog[c.Index])).ToList();
-        if (residualLike.Count == 1)
-        {
-            return [residualLike[0].Index];
-        }
-
-        if (currents.Count == 0)
-        {
-            throw new CaptureFormatException(path,
-                "no analog channel is a current (A, kA, mA); choose one with --channel (and --sensitivity for a voltage)");
-        }
-
-        var chosen = currents[0];
-        var others = string.Join(", ", currents.Skip(1).Select(c => $"'{c.Name}'"));
-        warnings.Add(new CaptureWarning("channel-guess",
-            $"no single channel is named as residual or earth current (N, IN, 3I0, Ires, IE, E); using the first current channel '{chosen.Name}'"
-            + (others.Length > 0 ? $"; other current channels: {others} (choose with --channel, or --sum to add them)" : string.Empty)));
-        return [chosen.Index];
+            1 => null,
+            0 => $"no channel is named as the residual or earth current {words}",
+            _ => $"{named.Count} channels ({string.Join(", ", named.Select(i => channels[i].Name))}) are named as the residual or earth current, not one",
+        };
+        return ChannelSelection.Resolve(channels, options, named.Count == 1 ? named : currents,
+            "no analog channel is a current (A, kA, mA); choose one with --channel (and --sensitivity for a voltage)",
+            problem => new CaptureFormatException(path, problem), unnamed);
     }
 
     private static bool SuggestsResidual(ComtradeAnalogChannel channel)
@@ -486,82 +368,5 @@ public sealed class ComtradeCaptureSource : ICaptureSource
         }
 
         return false;
-    }
-
-    private static int Find(ChannelInfo[] channels, string wanted, string option)
-    {
-        var text = wanted.Trim();
-        foreach (var c in channels)
-        {
-            if (c.Name.Equals(text, StringComparison.OrdinalIgnoreCase))
-            {
-                return c.Index;
-            }
-        }
-
-        if (int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out var number) && number >= 1 &&
-            number <= channels.Length)
-        {
-            return number - 1;
-        }
-
-        throw new OptionValueException(option, wanted,
-            $"an analog channel name ({string.Join(", ", channels.Select(c => c.Name))}) or a number 1 to {channels.Length}");
-    }
-
-    /// <summary>From a stored value to the SI value delivered: unit prefix and the primary/secondary ratio.</summary>
-    private readonly record struct ChannelConversion(double Scale, double Offset, ChannelQuantity Quantity,
-        double UnitFactor, double RatioFactor, string Side, string? Note)
-    {
-        public static ChannelConversion For(ComtradeAnalogChannel ch, bool wantPrimary)
-        {
-            var (quantity, unitFactor) = ch.Unit.Trim() switch
-            {
-                "A" or "a" => (ChannelQuantity.Current, 1.0),
-                "kA" or "KA" => (ChannelQuantity.Current, 1e3),
-                "mA" => (ChannelQuantity.Current, 1e-3),
-                "uA" or "µA" or "μA" => (ChannelQuantity.Current, 1e-6),
-                "V" or "v" => (ChannelQuantity.Voltage, 1.0),
-                "kV" or "KV" => (ChannelQuantity.Voltage, 1e3),
-                "mV" => (ChannelQuantity.Voltage, 1e-3),
-                _ => (ChannelQuantity.Unscaled, 1.0),
-            };
-
-            // 1999 clause 6.4.3 / 2013 clause 7.4.3: a·x+b gives the side named by PS; primary/secondary is the
-            // transformer ratio. Converting P→S divides by primary/secondary, S→P multiplies.
-            var wanted = wantPrimary ? 'P' : 'S';
-            var ratio = 1.0;
-            string? note = null;
-            var side = ch.PrimaryOrSecondary is { } ps ? (ps == 'P' ? "primary" : "secondary") : "as recorded";
-            if (ch.PrimaryOrSecondary is null)
-            {
-                note = wantPrimary ? "the cfg (1991) does not say whether values are primary or secondary; they are delivered as recorded" : null;
-            }
-            else if (ch.PrimaryOrSecondary != wanted)
-            {
-                if (ch.Primary > 0 && ch.Secondary > 0)
-                {
-                    ratio = wantPrimary ? ch.Primary / ch.Secondary : ch.Secondary / ch.Primary;
-                    side = wantPrimary ? "secondary → primary" : "primary → secondary";
-                }
-                else
-                {
-                    note = $"the cfg gives no usable transformer ratio (primary {ch.Primary.ToString(CultureInfo.InvariantCulture)}, secondary {ch.Secondary.ToString(CultureInfo.InvariantCulture)}); values stay {side}";
-                }
-            }
-
-            var factor = unitFactor * ratio;
-            return new ChannelConversion(ch.A * factor, ch.B * factor, quantity, unitFactor, ratio, side, note);
-        }
-
-        public ChannelInfo Info(int index, ComtradeAnalogChannel ch)
-        {
-            var fullScale = Math.Max(Math.Abs((ch.Min * Scale) + Offset), Math.Abs((ch.Max * Scale) + Offset));
-            return new ChannelInfo(index, ch.Id, ch.Unit, Quantity, Scale, fullScale > 0 ? fullScale : null);
-        }
-
-        public string Describe(ComtradeAnalogChannel ch) =>
-            $"a={ch.A.ToString(CultureInfo.InvariantCulture)}, b={ch.B.ToString(CultureInfo.InvariantCulture)} {ch.Unit}, {Side}"
-            + (RatioFactor != 1.0 ? $" × {RatioFactor.ToString("G6", CultureInfo.InvariantCulture)}" : string.Empty);
     }
 }

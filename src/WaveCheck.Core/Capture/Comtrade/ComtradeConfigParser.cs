@@ -24,7 +24,7 @@ public static class ComtradeConfigParser
     {
         ArgumentNullException.ThrowIfNull(lines);
         ArgumentNullException.ThrowIfNull(warnings);
-        var cursor = new Cursor(filePath, lines, firstLineNumber);
+        var cursor = new ComtradeCfgCursor(filePath, lines, firstLineNumber);
 
         // 7.4.2 line 1: station_name,rec_dev_id,rev_year (1991 has no rev_year).
         var id = cursor.Next("station name, device id and revision year");
@@ -175,7 +175,7 @@ public static class ComtradeConfigParser
         };
     }
 
-    private static ComtradeAnalogChannel ParseAnalog(Fields f, int i, int revision)
+    private static ComtradeAnalogChannel ParseAnalog(ComtradeCfgFields f, int i, int revision)
     {
         // 7.4.3 An,ch_id,ph,ccbm,uu,a,b,skew,min,max[,primary,secondary,PS] (the last three from 1999).
         var what = $"analog channel {i}";
@@ -228,7 +228,7 @@ public static class ComtradeConfigParser
     }
 
     /// <summary>A transformer ratio factor: 0 (not given) or within the scale bounds, never negative.</summary>
-    private static double Ratio(Fields f, int field, string what)
+    private static double Ratio(ComtradeCfgFields f, int field, string what)
     {
         var value = f.Number(field, what);
         if (value < 0 || (value != 0 && CaptureLimits.ScaleProblem(what, value, string.Empty) is not null))
@@ -239,7 +239,7 @@ public static class ComtradeConfigParser
         return value;
     }
 
-    private static ComtradeDigitalChannel ParseDigital(Fields f, int i, int revision)
+    private static ComtradeDigitalChannel ParseDigital(ComtradeCfgFields f, int i, int revision)
     {
         // 7.4.4 Dn,ch_id,ph,ccbm,y (1991: Dn,ch_id,y).
         var what = $"digital channel {i}";
@@ -254,7 +254,7 @@ public static class ComtradeConfigParser
         return new ComtradeDigitalChannel(f.Int(1, $"{what}: channel number"), f[1], state);
     }
 
-    private static int CountWithSuffix(Fields f, int field, char suffix, string what)
+    private static int CountWithSuffix(ComtradeCfgFields f, int field, char suffix, string what)
     {
         var text = f[field - 1];
         if (text.Length < 2 || char.ToUpperInvariant(text[^1]) != suffix ||
@@ -266,7 +266,7 @@ public static class ComtradeConfigParser
         return (int)Math.Min(n, int.MaxValue);
     }
 
-    private static DateTime? ParseStamp(Fields f, int revision, string what, ICollection<CaptureWarning> warnings,
+    private static DateTime? ParseStamp(ComtradeCfgFields f, int revision, string what, ICollection<CaptureWarning> warnings,
         out int fractionDigits)
     {
         // 7.4.7 dd/mm/yyyy,hh:mm:ss.ssssss (1991: mm/dd/yy,hh:mm:ss.ssssss).
@@ -318,7 +318,7 @@ public static class ComtradeConfigParser
             .AddSeconds(second).AddTicks(ticks);
     }
 
-    private static TimeSpan ParseTimeCode(Fields f, int field, string what)
+    private static TimeSpan ParseTimeCode(ComtradeCfgFields f, int field, string what)
     {
         // 7.4.10 from memory: [+|-]hh[hmm], e.g. -5h30, +10, 0.
         var text = f[field - 1];
@@ -357,106 +357,5 @@ public static class ComtradeConfigParser
         }
 
         return true;
-    }
-
-    /// <summary>The comma-separated fields of one cfg line, trimmed, with the place for messages.</summary>
-    private sealed class Fields(string file, int line, string[] values)
-    {
-        public int Line => line;
-
-        public int Count => values.Length;
-
-        public string this[int index] => index < values.Length ? values[index] : string.Empty;
-
-        /// <summary>A field as shown in a message: control characters escaped, cut when long.</summary>
-        public string Shown(int index) => ShownText.Of(this[index]);
-
-        public CaptureFormatException Error(int field, string problem) => new(file, problem, line, field);
-
-        public void RequireFields(int count, string what, string form)
-        {
-            if (values.Length < count)
-            {
-                throw new CaptureFormatException(file,
-                    $"{what}: expected {count} fields ({form}), found {values.Length}", line);
-            }
-        }
-
-        public double Number(int field, string what)
-        {
-            var text = this[field - 1];
-            if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out var v) || !double.IsFinite(v))
-            {
-                throw Error(field, $"{what} '{ShownText.Of(text)}' is not a number");
-            }
-
-            return v;
-        }
-
-        public long Long(int field, string what)
-        {
-            var text = this[field - 1];
-            if (!long.TryParse(text, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out var v))
-            {
-                throw Error(field, $"{what} '{ShownText.Of(text)}' is not a whole number");
-            }
-
-            return v;
-        }
-
-        public int Int(int field, string what)
-        {
-            var v = Long(field, what);
-            return v is < int.MinValue or > int.MaxValue ? throw Error(field, $"{what} '{Shown(field - 1)}' is out of range") : (int)v;
-        }
-    }
-
-    private sealed class Cursor(string file, IReadOnlyList<string> lines, int firstLineNumber)
-    {
-        private int _index;
-
-        public Fields Next(string expected)
-        {
-            if (!TryNext(out var fields))
-            {
-                throw new CaptureFormatException(file,
-                    $"the cfg ends early: expected {expected}", firstLineNumber + _index);
-            }
-
-            return fields;
-        }
-
-        /// <summary>Next line, or false at the end (trailing blank lines count as the end).</summary>
-        public bool TryNext(out Fields fields)
-        {
-            if (_index >= lines.Count || (string.IsNullOrWhiteSpace(lines[_index]) && RestIsBlank()))
-            {
-                fields = null!;
-                return false;
-            }
-
-            var parts = lines[_index].Split(',');
-            for (var i = 0; i < parts.Length; i++)
-            {
-                parts[i] = parts[i].Trim();
-            }
-
-            fields = new Fields(file, firstLineNumber + _index, parts);
-            _index++;
-            return true;
-        }
-
-        private bool RestIsBlank()
-        {
-            for (var i = _index; i < lines.Count; i++)
-            {
-                if (!string.IsNullOrWhiteSpace(lines[i]))
-                {
-                    return false;
-                }
-            }
-
-            return true;
-        }
     }
 }

@@ -43,6 +43,24 @@ internal abstract class ComtradeDataReader : IDisposable
             ? new ComtradeAsciiReader(filePath, stream, config, firstLineNumber)
             : new ComtradeBinaryReader(filePath, stream, config, byteLength);
 
+    /// <summary>Opens the data of a located record, positioned at its first sample.</summary>
+    /// <param name="container">Where the data lies (a .dat, or a .cff's DAT section).</param>
+    /// <param name="config">The cfg.</param>
+    public static ComtradeDataReader Open(ComtradeContainer container, ComtradeConfig config)
+    {
+        var stream = new FileStream(container.DataPath, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
+        try
+        {
+            stream.Seek(container.DataOffset, SeekOrigin.Begin);
+            return Create(container.DataPath, stream, config, container.DataBytes, container.DataFirstLine);
+        }
+        catch
+        {
+            stream.Dispose();
+            throw;
+        }
+    }
+
     /// <summary>Reads up to <paramref name="maxFrames"/> frames.</summary>
     /// <param name="raw">Receives <c>frames × analog count</c> stored values, frame-major.</param>
     /// <param name="stamps">Receives one time stamp per frame (file units, -1 missing).</param>

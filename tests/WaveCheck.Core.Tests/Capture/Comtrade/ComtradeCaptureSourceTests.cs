@@ -155,7 +155,7 @@ public sealed class ComtradeCaptureSourceTests : IDisposable
         using var source = ComtradeCaptureSource.Open(path, new ImportOptions());
         Assert.Equal("IN", source.Info.ResidualSource);
         Assert.Equal([3], source.Info.ResidualChannels);
-        Assert.DoesNotContain(source.Warnings, w => w.Code == "channel-guess");
+        Assert.DoesNotContain(source.Warnings, w => w.Code == "channel-guessed");
     }
 
     [Fact]
@@ -166,9 +166,31 @@ public sealed class ComtradeCaptureSourceTests : IDisposable
         var path = builder.Write(_dir.Path, "phases");
         using var source = ComtradeCaptureSource.Open(path, new ImportOptions());
         Assert.Equal("IL1", source.Info.ResidualSource);
-        var warning = Assert.Single(source.Warnings, w => w.Code == "channel-guess");
-        Assert.Contains("'IL2', 'IL3'", warning.Message, StringComparison.Ordinal);
+        // The code and words of the shared channel choice (CSV and WAV give the same), with the reason of the guess.
+        var warning = Assert.Single(source.Warnings, w => w.Code == "channel-guessed");
+        Assert.Contains("using the first, 'IL1' (others: IL2, IL3)", warning.Message, StringComparison.Ordinal);
+        Assert.Contains("no channel is named as the residual or earth current", warning.Message, StringComparison.Ordinal);
         Assert.DoesNotContain("UL1", warning.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void The_only_current_without_a_residual_name_is_used_with_a_warning()
+    {
+        var builder = Feeder(ComtradeDataFileType.Binary);
+        builder.Channels.RemoveRange(1, 3);
+        using var source = ComtradeCaptureSource.Open(builder.Write(_dir.Path, "one"), new ImportOptions());
+        Assert.Equal("IL1", source.Info.ResidualSource);
+        var warning = Assert.Single(source.Warnings, w => w.Code == "channel-guessed");
+        Assert.StartsWith("The only current channel, 'IL1', is used as the residual current", warning.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_channel_summed_twice_is_refused_as_in_the_other_formats()
+    {
+        var path = Feeder(ComtradeDataFileType.Binary).Write(_dir.Path, "feeder3");
+        var error = Assert.Throws<CaptureFormatException>(() => ComtradeCaptureSource.Open(path, new ImportOptions { SumChannels = ["IL1", "IL2", "il1"] }));
+        Assert.Equal(path, error.FilePath);
+        Assert.Equal("--sum names channel 'IL1' twice", error.Problem);
     }
 
     [Fact]
@@ -180,8 +202,10 @@ public sealed class ComtradeCaptureSourceTests : IDisposable
             Assert.Equal("IL2", source.Info.ResidualSource);
         }
 
-        var error = Assert.Throws<OptionValueException>(() => ComtradeCaptureSource.Open(path, new ImportOptions { Channel = "IL9" }));
-        Assert.Contains("IL1, IL2, IL3, IN, UL1", error.Message, StringComparison.Ordinal);
+        var error = Assert.Throws<CaptureFormatException>(() => ComtradeCaptureSource.Open(path, new ImportOptions { Channel = "IL9" }));
+        Assert.Equal("--channel: no channel named 'IL9' (channels: IL1, IL2, IL3, IN, UL1)", error.Problem);
+        var number = Assert.Throws<CaptureFormatException>(() => ComtradeCaptureSource.Open(path, new ImportOptions { Channel = "6" }));
+        Assert.Equal("--channel 6: channel number out of range 1..5", number.Problem);
     }
 
     [Fact]

@@ -207,8 +207,7 @@ public sealed class CsvCaptureSourceTests : IDisposable
         var path = _folder.Write("two.csv", "time [s],Ia [mA],Ib [mA]\n0,1,2\n0.001,3,4\n0.002,5,6\n");
         using var source = CaptureOpener.Open(path, new ImportOptions());
         var warning = Assert.Single(source.Warnings, w => w.Code == "channel-guessed");
-        Assert.Contains("'Ia'", warning.Message);
-        Assert.Contains("Ib", warning.Message);
+        Assert.Equal("Several current channels; using the first, 'Ia' (others: Ib). Choose with --channel or add them with --sum.", warning.Message);
         Assert.Equal(0.005, Signals.ReadAll(source).Residual[2], 1e-15);
 
         using var second = CaptureOpener.Open(path, new ImportOptions { Channel = "2" });

@@ -1,0 +1,92 @@
+using WaveCheck.Core.Capture;
+
+namespace WaveCheck.Core.Tests.Capture;
+
+/// <summary>The one channel choice every reader uses: by name or number, sums, refusals and the guessed default.</summary>
+public sealed class ChannelSelectionTests
+{
+    private static readonly ChannelInfo[] Channels =
+    [
+        new(0, "L1", "A", ChannelQuantity.Current, 1, null),
+        new(1, "L2", "A", ChannelQuantity.Current, 1, null),
+        new(2, "N", "A", ChannelQuantity.Current, 1, null),
+        new(3, "clamp", "mV", ChannelQuantity.Voltage, 1e-3, null),
+        new(4, "freq", "Hz", ChannelQuantity.Unscaled, 1, null),
+    ];
+
+    private static readonly int[] Currents = [0, 1, 2];
+
+    private static Exception Fail(string problem) => new InvalidDataException(problem);
+
+    private static ChannelSelection Resolve(ImportOptions options, IReadOnlyList<int>? candidates = null, string? unnamed = null) =>
+        ChannelSelection.Resolve(Channels, options, candidates ?? Currents, "nothing to choose", Fail, unnamed);
+
+    [Fact]
+    public void A_channel_is_found_by_name_in_any_case_or_by_its_number()
+    {
+        Assert.Equal([2], Resolve(new ImportOptions { Channel = " n " }).Indices);
+        Assert.Equal([1], Resolve(new ImportOptions { Channel = "2" }).Indices);
+        var sum = Resolve(new ImportOptions { SumChannels = ["l1", "2", "N"] });
+        Assert.Equal([0, 1, 2], sum.Indices);
+        Assert.Equal("L1+L2+N", sum.Source);
+        Assert.Null(sum.Warning);
+    }
+
+    [Theory]
+    [InlineData(null, new[] { "L1", "l1" }, "--sum names channel 'L1' twice")]
+    [InlineData(null, new[] { "L1", "1" }, "--sum names channel 'L1' twice")]
+    [InlineData("L9", null, "--channel: no channel named 'L9' (channels: L1, L2, N, clamp, freq)")]
+    [InlineData("6", null, "--channel 6: channel number out of range 1..5")]
+    [InlineData(null, new[] { "L1", "0" }, "--sum 0: channel number out of range 1..5")]
+    public void Unknown_channels_and_a_channel_summed_twice_are_refused(string? channel, string[]? sum, string problem)
+    {
+        var error = Assert.Throws<InvalidDataException>(() => Resolve(new ImportOptions { Channel = channel, SumChannels = sum }));
+        Assert.Equal(problem, error.Message);
+    }
+
+    [Fact]
+    public void With_nothing_chosen_the_first_candidate_is_used_and_a_choice_among_several_is_warned_about()
+    {
+        var one = Resolve(new ImportOptions(), [2]);
+        Assert.Equal([2], one.Indices);
+        Assert.Null(one.Warning);
+
+        var several = Resolve(new ImportOptions());
+        Assert.Equal([0], several.Indices);
+        Assert.Equal(ChannelSelection.GuessedCode, several.Warning!.Code);
+        Assert.Equal("Several current channels; using the first, 'L1' (others: L2, N). Choose with --channel or add them with --sum.", several.Warning.Message);
+
+        // A format whose labels say nothing about the residual current warns even about its only candidate.
+        var unnamed = Resolve(new ImportOptions(), [1], "no channel is named as the residual current");
+        Assert.Equal("The only current channel, 'L2', is used as the residual current, though no channel is named as the residual current. Choose another with --channel or add channels with --sum.", unnamed.Warning!.Message);
+
+        Assert.Equal("nothing to choose", Assert.Throws<InvalidDataException>(() => Resolve(new ImportOptions(), [])).Message);
+    }
+
+    [Fact]
+    public void A_voltage_becomes_amperes_through_the_sensitivity_and_the_sum_follows_Kirchhoff()
+    {
+        var selection = Resolve(new ImportOptions { SumChannels = ["L1", "L2", "N", "clamp"] });
+        var refused = Assert.Throws<InvalidDataException>(() => selection.AmperesPerSiUnit(Channels, new ImportOptions(), (_, p) => Fail(p)));
+        Assert.Equal("channel 'clamp' is a voltage (mV): give --sensitivity (e.g. \"10 mV/mA\") to turn it into a current", refused.Message);
+        var unscaled = Resolve(new ImportOptions { Channel = "freq" });
+        Assert.Contains("neither a current nor a voltage",
+            Assert.Throws<InvalidDataException>(() => unscaled.AmperesPerSiUnit(Channels, new ImportOptions(), (_, p) => Fail(p))).Message);
+
+        // 10 V/A: the clamp's volts / 10 are amperes (closed form).
+        var factors = selection.AmperesPerSiUnit(Channels, new ImportOptions { SensitivityVPerA = 10 }, (_, p) => Fail(p));
+        Assert.Equal([1, 1, 1, 0.1], factors);
+
+        // Kirchhoff's current law: L1 + L2 + N is what leaks; here 2 A + (-1.5 A) + (-0.49 A) = 10 mA, plus a clamp
+        // reading of 0.05 V through 10 V/A = 5 mA: 15 mA.
+        var block = new CaptureBlock(5, 1, 1000);
+        double[] values = [2, -1.5, -0.49, 0.05, 50];
+        for (var c = 0; c < values.Length; c++)
+        {
+            block.ChannelBuffer(c)[0] = values[c];
+        }
+
+        selection.FormResidual(block, 1, factors);
+        Assert.Equal(0.015, block.ResidualBuffer[0], 1e-15);
+    }
+}
