@@ -45,7 +45,7 @@ internal static class VerdictPrinter
         margins.AddRow(new Text("nuisance tripping"),
             new Text($"{CurrentText.WithUnit(n.StandingA)} of {CurrentText.WithUnit(n.NonOperatingLimitA)}"),
             new Text(string.Create(CultureInfo.InvariantCulture,
-                $"risk {n.Risk}: margin {CurrentText.WithUnit(n.MarginA)} ({n.MarginPercent:0} %). {n.Explanation}")));
+                $"risk {VerdictText.Of(n.Risk)}: margin {CurrentText.WithUnit(n.MarginA)} ({n.MarginPercent:0} %). {n.Explanation}")));
         margins.AddRow(new Text($"leakage budget {a.LeakageBudgetText()}"), new Text(CurrentText.WithUnit(n.LeakageBudgetA)),
             new Text(n.WithinLeakageBudget ? "within" : "exceeded"));
         margins.AddRow(new Text("DC blinding"),

@@ -84,6 +84,18 @@ public sealed class AnalyzeCommandTests : IDisposable
     }
 
     [Fact]
+    public void Verdict_words_on_screen_are_the_trade_words_of_the_json()
+    {
+        // 10 mA standing on a 30 mA device is 0.33 IΔn, above the 0.3 IΔn "possible" boundary (engineering choice,
+        // IEC 60364-5-53 §531.3.2 budget): the terminal says "risk possible", the word of the JSON, not an enum name.
+        var wav = Synth("words.wav", "sine:rms=10mA");
+        var (exit, output, error) = CliHarness.Run("analyze", wav);
+        Assert.True(exit == 0, error);
+        Assert.Contains("risk possible:", output, StringComparison.Ordinal);
+        Assert.DoesNotContain("risk Possible", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void A_mains_frequency_the_capture_contradicts_is_refused_in_one_line()
     {
         // A 60 Hz capture declared 50 Hz: exit 2, one line naming the file and the frequency found (IEC 61000-4-7

@@ -160,8 +160,8 @@ internal static class SurveyCommand
         {
             console.WriteLine(string.Create(CultureInfo.InvariantCulture,
                 $"upstream {u.Name} (type {u.DeviceType.ToTradeName()}, {CurrentText.WithUnit(u.RatedResidualCurrentA)}): leakage {VerdictText.Of(u.LeakageRisk)}: {u.LeakageExplanation}"));
-            console.WriteLine($"  DC {u.DcRisk}: {u.DcExplanation}");
-            console.WriteLine($"  type {u.TypeRisk}: {u.TypeExplanation}");
+            console.WriteLine($"  DC {VerdictText.Of(u.DcRisk)}: {u.DcExplanation}");
+            console.WriteLine($"  type {VerdictText.Of(u.TypeRisk)}: {u.TypeExplanation}");
         }
 
         console.WriteLine($"Summary: {Path.Combine(outputDirectory, "index.html")} (also survey.csv, survey.json, reports/)");
