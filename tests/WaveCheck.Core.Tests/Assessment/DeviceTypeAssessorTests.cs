@@ -716,5 +716,15 @@ public class DeviceTypeAssessorTests
         Assert.Equal(true, ev.Types[1].Suitable);
         Assert.DoesNotContain(ev.Types[1].Reasons, c => c.StartsWith("charging point", StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void Content_seen_above_1_khz_below_40_kS_per_s_requires_b_plus_without_an_open_remark()
+    {
+        // 4 mA at 8 kHz seen at 25 kS/s: the high-frequency class is present (DIN VDE 0664-400: B+ to 20 kHz), so
+        // B+ is required, and nothing above it is left open.
+        var r = Assess(new AnalysisBuilder().SampleRate(25_000).Sine(0.005).HighFrequency(8000, 0.004));
+        Assert.Equal("B+", r.RequiredType);
+        Assert.Equal("Type B+ required: " + r.Classes.Single(c => c.Class == "highFrequency").Text, r.Headline);
+    }
 }
 
