@@ -659,5 +659,72 @@ public class DeviceTypeAssessorTests
         Assert.Contains(r.Thresholds, t => t.Name == "rdcDdThresholdA" && t.Value == 0.006);
         Assert.Equal("AC", r.MinimumType);
     }
+
+    [Fact]
+    public void Null_arguments_are_refused()
+    {
+        Assert.Throws<ArgumentNullException>(() => DeviceTypeAssessor.Assess(null!, Defaults));
+        Assert.Throws<ArgumentNullException>(() => DeviceTypeAssessor.Assess(new AnalysisBuilder().Sine(0.005).Build(), null!));
+    }
+
+    [Fact]
+    public void Unstated_coupling_with_dc_alone_is_judged_on_the_dc()
+    {
+        // No pulsating DC, smooth DC 5 mA seen: the sensor shows DC, so it is taken as DC-coupled (said so) and the
+        // DC decides type B (IEC 62423).
+        var r = Assess(new AnalysisBuilder().Coupling(SensorCoupling.Unknown).Sine(0.005).SmoothDc(0.005));
+        Assert.Equal("B", r.RequiredType);
+        Assert.False(r.Blinding.Blinded is null);
+        // A DC that averages out over the capture (windows of either sign) with no pulsating window is no sign of a
+        // current transformer: the AC-coupling signature needs pulses on a floor.
+        var a = new AnalysisBuilder().Coupling(SensorCoupling.Unknown).Sine(0.005).SmoothDc(0.005).Build();
+        a = a with { Summary = a.Summary with { DcA = 0 } };
+        var zeroMean = DeviceTypeAssessor.Assess(a, Defaults);
+        Assert.Equal("B", zeroMean.RequiredType);
+        Assert.DoesNotContain(zeroMean.Cautions, c => c.Contains("signature of an AC-coupled sensor", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Several_open_classes_leave_the_verdict_open_up_to_the_highest()
+    {
+        // AC-coupled sensor (smooth DC open, type B) at 25 kS/s (1-20 kHz open, B+), with harmonics that need type B:
+        // the level is B, and B+ stays open, so no required type; the headline gives the reason above B.
+        var r = Assess(new AnalysisBuilder().Coupling(SensorCoupling.Ac).SampleRate(25_000).Sine(0.005).Harmonic(5, 0.005));
+        Assert.Equal("B", r.MinimumType);
+        Assert.Null(r.RequiredType);
+        Assert.StartsWith("Required type cannot be determined from this capture: at least type B; whether content between 1 and 20 kHz needs B+ cannot be determined", r.Headline, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Too_few_pulsating_windows_weigh_their_dc_as_dc()
+    {
+        // --pulsating-share 0.5 with 30 % pulsating windows: no pulsating-DC class, and the DC above the floor is
+        // weighted as DC, not by type A's 1.4 pulsating factor.
+        var a = new AnalysisBuilder().HalfWave(0.020, 0).Build();
+        a = a with { Components = a.Components with { PulsatingDcShare = 0.3 } };
+        var r = DeviceTypeAssessor.Assess(a, new AssessmentOptions { PulsatingShareThreshold = 0.5, InstalledType = DeviceType.B });
+        Assert.Equal("DC above the floor", r.NuisanceTrip.Contributions[1].Label);
+        Assert.Equal(2, r.NuisanceTrip.Contributions[1].TripFactor);
+    }
+
+    [Fact]
+    public void Outside_a_charging_point_there_is_no_charging_point_caution_and_at_one_type_a_is_not_refused_for_it()
+    {
+        var plain = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.002));
+        Assert.DoesNotContain(plain.Cautions, c => c.Contains("charging point", StringComparison.Ordinal));
+        var ev = Assess(new AnalysisBuilder().Sine(0.005), new AssessmentOptions { EvChargingPoint = true, ChargerDcDetection = true });
+        Assert.Equal(true, ev.Types[1].Suitable);
+        Assert.DoesNotContain(ev.Types[1].Reasons, c => c.StartsWith("charging point", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Content_seen_above_1_khz_below_40_kS_per_s_requires_b_plus_without_an_open_remark()
+    {
+        // 4 mA at 8 kHz seen at 25 kS/s: the high-frequency class is present (DIN VDE 0664-400: B+ to 20 kHz), so
+        // B+ is required, and nothing above it is left open.
+        var r = Assess(new AnalysisBuilder().SampleRate(25_000).Sine(0.005).HighFrequency(8000, 0.004));
+        Assert.Equal("B+", r.RequiredType);
+        Assert.Equal("Type B+ required: " + r.Classes.Single(c => c.Class == "highFrequency").Text, r.Headline);
+    }
 }
 
