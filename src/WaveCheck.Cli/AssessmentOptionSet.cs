@@ -121,7 +121,7 @@ internal sealed class AssessmentOptionSet
         options = options with { EvChargingPoint = parse.GetValue(Ev), ChargerDcDetection = parse.GetValue(ChargerDcDetection) };
         if (options.ChargerDcDetection && !options.EvChargingPoint)
         {
-            throw new OptionValueException("--charger-dc-detection", "true", "it only together with --ev (a charging point)");
+            throw new UserInputException("--charger-dc-detection: declares a charging point's own DC detection, so it goes with --ev; add --ev or leave it out");
         }
 
         if (parse.GetValue(Accuracy) is { } accuracyText)

@@ -38,7 +38,8 @@ public static class DeviceTypeAssessor
         var th = new AppliedThresholds(options);
         var acSignature = LooksAcCoupled(m, th);
         var coupling = acSignature ? SensorCoupling.Ac : m.Coupling;
-        var pulsatingSeen = m.PulsatingShare > th.PulsatingShare || (th.PulsatingShare == 0 && m.PulsatingShare > 0);
+        // Any pulsating window counts by default (threshold 0); a user's share must be exceeded.
+        var pulsatingSeen = m.PulsatingShare > th.PulsatingShare;
         var dcSeen = th.Accuracy.Compare(m.SmoothDcA, th.DcA) != LimitState.Below;
         var dcKnown = coupling == SensorCoupling.Dc ||
             (coupling == SensorCoupling.Unknown && (dcSeen || pulsatingSeen));
@@ -73,7 +74,7 @@ public static class DeviceTypeAssessor
         {
             RequiredType = required?.ToTradeName(),
             MinimumType = level.ToTradeName(),
-            Headline = Headline(required, level, present, open, m, hfCovered, options.EvChargingPoint, dcReachesRdcDd),
+            Headline = Headline(required, level, present, open, m, options.EvChargingPoint, dcReachesRdcDd),
             RatedResidualCurrentA = th.RatedA,
             InstalledType = options.InstalledType?.ToTradeName(),
             InstalledProtection = options.InstalledType is { } it ? ProtectionText(it, dcDetection) : null,
@@ -192,16 +193,15 @@ public static class DeviceTypeAssessor
     }
 
     private static string Headline(DeviceType? required, DeviceType level, List<ClassFinding> present,
-        List<ClassFinding> open, MeasuredFigures m, bool hfCovered, bool evChargingPoint, bool dcReachesRdcDd)
+        List<ClassFinding> open, MeasuredFigures m, bool evChargingPoint, bool dcReachesRdcDd)
     {
-        var bPlusOpen = !hfCovered && required is { } rq && rq < DeviceType.BPlus
-            ? $"; whether B+ is needed is open (this capture shows content only up to {m.From1kTopHz / 1000:0.#} kHz)"
-            : string.Empty;
+        // Below 40 kS/s the 1-20 kHz class is open unless content there was seen, so the verdict already says it (an
+        // "at least" with its reason, or B+): the headline needs no separate B+ remark.
         if (required is { } r)
         {
             if (r == DeviceType.AC)
             {
-                return $"Type AC sufficient: sinusoidal residual current at mains frequency only (worst window {Ma(m.WindowRmsA)}), no other class of residual current present; check that type AC is permitted locally{bPlusOpen}";
+                return $"Type AC sufficient: sinusoidal residual current at mains frequency only (worst window {Ma(m.WindowRmsA)}), no other class of residual current present; check that type AC is permitted locally";
             }
 
             var deciding = present.Where(c => c.Class.LeastType() == r).Select(c => c.Text).FirstOrDefault()
@@ -209,7 +209,7 @@ public static class DeviceTypeAssessor
             var alternative = r == DeviceType.B && !dcReachesRdcDd && present.Where(c => c.Class.LeastType() == DeviceType.B).All(c => c.Class.CoveredByDcDetection())
                 ? " (or type A with 6 mA DC fault detection, IEC 62955)"
                 : string.Empty;
-            return $"Type {r.ToTradeName()}{alternative} required: {deciding}{bPlusOpen}";
+            return $"Type {r.ToTradeName()}{alternative} required: {deciding}";
         }
 
         var reason = open.Where(c => c.Class.LeastType() > level).Select(c => c.Text).First();

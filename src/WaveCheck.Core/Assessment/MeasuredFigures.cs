@@ -28,7 +28,6 @@ internal sealed record MeasuredFigures
     public required double HarmonicsTo1kA { get; init; }
     public required double Above1kA { get; init; }
     public required double Above20kA { get; init; }
-    public required ToneValue? StrongestNonHarmonicTone { get; init; }
 
     /// <summary>Strongest non-harmonic tone up to <see cref="Limits.MotorFrequencyTopMultiple"/> × mains: a motor frequency.</summary>
     public ToneValue? MotorTone { get; init; }
@@ -98,17 +97,12 @@ internal sealed record MeasuredFigures
             }
         }
 
-        ToneValue? tone = null, motor = null, other = null;
+        ToneValue? motor = null, other = null;
         foreach (var t in c.Tones)
         {
             if (t.FrequencyHz < 1 || t.FrequencyHz > Limits.TypeBUpperFrequencyHz || IsHarmonic(t.FrequencyHz, mainsHz))
             {
                 continue;
-            }
-
-            if (tone is null || t.RmsA > tone.RmsA)
-            {
-                tone = t;
             }
 
             if (t.FrequencyHz <= Limits.MotorFrequencyTopMultiple * mainsHz)
@@ -139,7 +133,6 @@ internal sealed record MeasuredFigures
             HarmonicsTo1kA = Math.Sqrt(sumSq),
             Above1kA = above1k,
             Above20kA = Math.Min(Math.Sqrt(above20kSq), above1k),
-            StrongestNonHarmonicTone = tone,
             MotorTone = motor,
             OtherTone = other,
             NonPulsatingHarmonicsTo1kA = c.NonPulsatingHarmonicsTo1kMaxA,

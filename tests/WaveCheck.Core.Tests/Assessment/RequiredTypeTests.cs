@@ -228,31 +228,6 @@ public class RequiredTypeTests
     }
 
     [Theory]
-    [InlineData("2%+0.1mA", 0.02, 0.0001)]
-    [InlineData("0.5 % + 20 uA", 0.005, 0.00002)]
-    [InlineData("3%", 0.03, 0)]
-    [InlineData("0.2mA", 0, 0.0002)]
-    public void Accuracy_parses_share_of_reading_and_offset(string text, double fraction, double offsetA)
-    {
-        // Closed form of the text: percent / 100, current in amperes.
-        var a = MeasurementAccuracy.Parse(text);
-        Assert.Equal(fraction, a.ReadingFraction, 1e-12);
-        Assert.Equal(offsetA, a.OffsetA, 1e-12);
-    }
-
-    [Theory]
-    [InlineData("")]
-    [InlineData("two percent")]
-    [InlineData("80%")]
-    [InlineData("2%+")]
-    [InlineData("1A")]
-    public void Accuracy_rejects_what_it_cannot_use_with_the_option_name(string text)
-    {
-        var ex = Assert.Throws<OptionValueException>(() => MeasurementAccuracy.Parse(text));
-        Assert.StartsWith("--accuracy", ex.Message, StringComparison.Ordinal);
-    }
-
-    [Theory]
     [InlineData("A+RDC-DD", DeviceType.A, true)]
     [InlineData("f + rdc-dd", DeviceType.F, true)]
     [InlineData("B+", DeviceType.BPlus, false)]

@@ -111,7 +111,7 @@ public class VerdictPropertyTests
             {
                 var before = Level(mixture.Parts, mixture.Sign);
                 var after = Level([.. mixture.Parts, added], mixture.Sign);
-                return after >= before;
+                Assert.True(after >= before, $"adding {added.Name} lowered the required type from {before.ToTradeName()} to {after.ToTradeName()}");
             },
             iter: Iterations, threads: 1, seed: "0000000000711",
             print: t => $"{string.Join(" + ", t.Item1.Parts.Select(p => p.Name))} (sign {t.Item1.Sign}) then + {t.Item2.Name}");
@@ -122,7 +122,12 @@ public class VerdictPropertyTests
     {
         // Thresholds depend only on IΔn, so k ≥ 1 can only lift figures over them (docs/methods.md II.2).
         Gen.Select(MixtureGen, Gen.Double[1, 5]).Sample(
-            (mixture, k) => Level(mixture.Parts, mixture.Sign, k) >= Level(mixture.Parts, mixture.Sign),
+            (mixture, k) =>
+            {
+                var before = Level(mixture.Parts, mixture.Sign);
+                var after = Level(mixture.Parts, mixture.Sign, k);
+                Assert.True(after >= before, $"scaling by {k:0.###} lowered the required type from {before.ToTradeName()} to {after.ToTradeName()}");
+            },
             iter: Iterations, threads: 1, seed: "0000000000712",
             print: t => $"{string.Join(" + ", t.Item1.Parts.Select(p => p.Name))} × {t.Item2:0.###}");
     }
@@ -139,9 +144,9 @@ public class VerdictPropertyTests
             (mixture, shift) =>
             {
                 var reference = Assess(mixture.Parts, mixture.Sign);
-                return SameAwayFromLimits(reference, Assess(mixture.Parts, mixture.Sign, shiftSamples: shift * 7))
-                    && SameAwayFromLimits(reference, Assess(mixture.Parts, mixture.Sign, negate: true))
-                    && SameAwayFromLimits(reference, Assess(mixture.Parts, mixture.Sign, rateHz: 2 * RateHz));
+                Assert.True(SameAwayFromLimits(reference, Assess(mixture.Parts, mixture.Sign, shiftSamples: shift * 7)), "time shift");
+                Assert.True(SameAwayFromLimits(reference, Assess(mixture.Parts, mixture.Sign, negate: true)), "polarity flip");
+                Assert.True(SameAwayFromLimits(reference, Assess(mixture.Parts, mixture.Sign, rateHz: 2 * RateHz)), "double sample rate");
             },
             iter: Iterations / 3, threads: 1, seed: "0000000000713",
             print: t => $"{string.Join(" + ", t.Item1.Parts.Select(p => p.Name))} shift {t.Item2 * 7}");
