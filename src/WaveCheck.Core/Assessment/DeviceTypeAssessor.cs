@@ -81,7 +81,7 @@ public static class DeviceTypeAssessor
             InstalledAdequate = options.InstalledType is { } installed
                 ? Adequate(installed, dcDetection, present, open, options.EvChargingPoint, dcReachesRdcDd)
                 : null,
-            AcceptedProtection = required is { } r ? Accepted(r, present, options.EvChargingPoint, dcReachesRdcDd) : null,
+            AcceptedProtection = required is { } r ? Accepted(r, DcAlternative(r, present, dcReachesRdcDd), options.EvChargingPoint) : null,
             Classes = [.. classes.Select(c => c.ToResult())],
             Accuracy = th.Accuracy.ToString(),
             Regime = options.Regime,
@@ -139,24 +139,30 @@ public static class DeviceTypeAssessor
 
     /// <summary>The required type and, where only DC classes ask for type B, the alternative of a weaker type with 6 mA
     /// DC detection (IEC 60364-7-722, IEC 62955).</summary>
-    private static string Accepted(DeviceType required, List<ClassFinding> present, bool evChargingPoint, bool dcReachesRdcDd)
+    private static string Accepted(DeviceType required, DeviceType? weaker, bool evChargingPoint)
     {
-        var name = required.ToTradeName();
+        if (weaker is null)
+        {
+            return $"type {required.ToTradeName()}";
+        }
+
+        var where = evChargingPoint ? "IEC 60364-7-722" : "as IEC 60364-7-722 allows at charging points; engineering choice elsewhere";
+        return $"type B, or type {weaker.Value.ToTradeName()} with 6 mA DC fault detection (an RDC-DD, IEC 62955{(evChargingPoint ? ", or the charger's own, declared by its maker" : "")}; {where})";
+    }
+
+    /// <summary>The type that, with 6 mA DC fault detection beside it, may stand in for a required type B: the least
+    /// type (at least A) covering every class that DC detection does not; null when none may (B not required, a class
+    /// only B covers, or standing DC already at the detection's 6 mA).</summary>
+    private static DeviceType? DcAlternative(DeviceType required, List<ClassFinding> present, bool dcReachesRdcDd)
+    {
         if (required != DeviceType.B || dcReachesRdcDd)
         {
-            return $"type {name}";
+            return null;
         }
 
         var withoutDc = present.Where(c => !c.Class.CoveredByDcDetection()).Select(c => c.Class.LeastType())
             .DefaultIfEmpty(DeviceType.AC).Max();
-        if (withoutDc >= DeviceType.B)
-        {
-            return "type B";
-        }
-
-        var weaker = (DeviceType)Math.Max((int)withoutDc, (int)DeviceType.A);
-        var where = evChargingPoint ? "IEC 60364-7-722" : "as IEC 60364-7-722 allows at charging points; engineering choice elsewhere";
-        return $"type B, or type {weaker.ToTradeName()} with 6 mA DC fault detection (an RDC-DD, IEC 62955{(evChargingPoint ? ", or the charger's own, declared by its maker" : "")}; {where})";
+        return withoutDc >= DeviceType.B ? null : (DeviceType)Math.Max((int)withoutDc, (int)DeviceType.A);
     }
 
     private static TypeVerdict Verdict(DeviceType t, List<ClassFinding> present, List<ClassFinding> open,
@@ -206,8 +212,9 @@ public static class DeviceTypeAssessor
 
             var deciding = present.Where(c => c.Class.LeastType() == r).Select(c => c.Text).FirstOrDefault()
                 ?? (evChargingPoint ? "charging point: IEC 60364-7-722 asks for its own RCD of at least type A" : "");
-            var alternative = r == DeviceType.B && !dcReachesRdcDd && present.Where(c => c.Class.LeastType() == DeviceType.B).All(c => c.Class.CoveredByDcDetection())
-                ? " (or type A with 6 mA DC fault detection, IEC 62955)"
+            // The same alternative as acceptedProtection: a type F converter with DC needs F, not A, beside the detection.
+            var alternative = DcAlternative(r, present, dcReachesRdcDd) is { } weaker
+                ? $" (or type {weaker.ToTradeName()} with 6 mA DC fault detection, IEC 62955)"
                 : string.Empty;
             return $"Type {r.ToTradeName()}{alternative} required: {deciding}";
         }

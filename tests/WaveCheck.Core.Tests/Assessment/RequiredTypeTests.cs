@@ -131,6 +131,17 @@ public class RequiredTypeTests
     }
 
     [Fact]
+    public void With_a_composite_current_the_dc_alternative_is_type_f_not_a()
+    {
+        // IEC 62423: type F adds the composite current, so beside 6 mA DC detection (IEC 62955) a circuit with a motor
+        // frequency and 3 mA of smooth DC needs F; the headline and the accepted protection must say the same.
+        var r = Evaluate("composite:rms=12mA,motor=12Hz,switch=1kHz", "dc:level=3mA");
+        Assert.Equal("B", r.Assessment.RequiredType);
+        Assert.Contains("or type F with 6 mA DC fault detection", r.Assessment.Headline, StringComparison.Ordinal);
+        Assert.StartsWith("type B, or type F with 6 mA DC fault detection", r.Assessment.AcceptedProtection, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Dc_detection_does_not_stand_in_for_type_b_once_the_dc_reaches_its_threshold()
     {
         // IEC 62955: an RDC-DD disconnects at 6 mA smooth DC; with 8 mA standing it cannot keep the circuit running,
