@@ -1,6 +1,6 @@
 using System.Runtime.InteropServices;
 
-namespace WaveCheck.Cli.Tests;
+namespace WaveCheck.Tests.Shared;
 
 /// <summary>Hard links for tests: .NET has no API for them, so libc's link(2) (POSIX).</summary>
 internal static class HardLink
