@@ -75,7 +75,7 @@ var cpuSeconds = (Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalSec
 Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
     $"samples {total}, windows {result.Windows.Count}, analysis {seconds:0.000} s wall ({total / seconds / 1e6:0.0} Msamples/s), {cpuSeconds:0.000} s CPU ({total / cpuSeconds / 1e6:0.0} Msamples/s), peak working set {peak / 1048576.0:0} MB (before {before / 1048576.0:0} MB), mains {result.Mains.FrequencyHz:0.000} Hz"));
 
-static WaveCheck.Core.Results.AnalysisResult Run(long samples, double rate)
+static WaveCheck.Core.Model.AnalysisResult Run(long samples, double rate)
 {
     using var source = new SyntheticSource(samples, rate);
     var workers = Environment.GetEnvironmentVariable("WORKERS") is { } text ? int.Parse(text, CultureInfo.InvariantCulture) : Environment.ProcessorCount;

@@ -3,6 +3,7 @@ using System.Globalization;
 using WaveCheck.Core;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Cli;
 

@@ -1,6 +1,7 @@
 using System.Runtime.InteropServices;
 using WaveCheck.Core;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Cli;
 

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using WaveCheck.Core;
 using WaveCheck.Rendering.Plots;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Cli;
 
@@ -78,8 +79,8 @@ internal sealed class ReportOptionSet
 [Flags]
 internal enum FailOnFindings
 {
-    None = WaveCheck.Core.Results.Finding.None,
-    Upgrade = WaveCheck.Core.Results.Finding.Upgrade,
-    Nuisance = WaveCheck.Core.Results.Finding.Nuisance,
-    Alarm = WaveCheck.Core.Results.Finding.Alarm,
+    None = WaveCheck.Core.Model.Finding.None,
+    Upgrade = WaveCheck.Core.Model.Finding.Upgrade,
+    Nuisance = WaveCheck.Core.Model.Finding.Nuisance,
+    Alarm = WaveCheck.Core.Model.Finding.Alarm,
 }

@@ -1,6 +1,8 @@
 using System.Globalization;
 using Spectre.Console;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Cli;
 

@@ -2,8 +2,9 @@ using System.Globalization;
 using System.Net;
 using System.Text;
 using WaveCheck.Core.Assessment;
-using WaveCheck.Core.Results;
-using WaveCheck.Core.Survey;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Rendering;
 

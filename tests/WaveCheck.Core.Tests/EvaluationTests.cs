@@ -2,6 +2,7 @@ using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Signal;
 using WaveCheck.Core.Synthesis;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Tests;
 

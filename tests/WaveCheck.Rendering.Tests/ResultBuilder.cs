@@ -1,6 +1,6 @@
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Rendering.Tests;
 

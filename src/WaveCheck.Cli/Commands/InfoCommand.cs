@@ -2,7 +2,9 @@ using System.CommandLine;
 using System.Globalization;
 using Spectre.Console;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Cli.Commands;
 

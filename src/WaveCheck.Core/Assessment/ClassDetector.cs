@@ -1,5 +1,6 @@
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Assessment;
 

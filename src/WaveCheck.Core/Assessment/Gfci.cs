@@ -1,4 +1,5 @@
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Assessment;
 

@@ -1,3 +1,4 @@
+using WaveCheck.Core.Model;
 namespace WaveCheck.Core.Assessment;
 
 /// <summary>

@@ -1,5 +1,7 @@
 using System.Globalization;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Capture;
 

@@ -3,7 +3,8 @@ using System.Buffers.Binary;
 using System.Globalization;
 using System.Text;
 using NAudio.Wave;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Capture;
 

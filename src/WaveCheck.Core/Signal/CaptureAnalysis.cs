@@ -1,6 +1,7 @@
 using System.Globalization;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Signal;
 

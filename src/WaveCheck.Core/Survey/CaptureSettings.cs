@@ -1,5 +1,6 @@
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Survey;
 

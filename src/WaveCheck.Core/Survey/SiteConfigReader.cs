@@ -2,6 +2,7 @@ using System.Text;
 using System.Text.Json;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Survey;
 

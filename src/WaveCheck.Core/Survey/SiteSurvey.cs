@@ -1,6 +1,7 @@
 using WaveCheck.Core.Assessment;
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Signal;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Survey;
 
@@ -131,7 +132,7 @@ public static class SiteSurvey
                 writeReport(job, evaluation, Path.Combine(folder, "reports", stems[job] + ".html"));
             }
 
-            return new SurveyOutcome(SurveyRow.From(job.File, job.Settings, evaluation.Analysis, evaluation.Assessment, report));
+            return new SurveyOutcome(SurveyRows.From(job.File, job.Settings, evaluation.Analysis, evaluation.Assessment, report));
         }, progress, options.MaxParallel, cancellationToken);
 
         var rows = outcomes.Select(o => o.Row).ToList();
@@ -141,6 +142,7 @@ public static class SiteSurvey
             GeneratedAt = DateTimeOffset.Now,
             Rows = rows,
             Upstream = UpstreamCheck.EvaluateAll(upstream, rows),
+            Cautions = SurveyCautions.All,
         };
         SurveyCsvWriter.Write(Path.Combine(folder, "survey.csv"), rows);
         SurveyJson.Write(Path.Combine(folder, "survey.json"), document);

@@ -1,3 +1,4 @@
+using WaveCheck.Core.Model;
 namespace WaveCheck.Core.Survey;
 
 /// <summary>One capture of a survey to analyse.</summary>

@@ -1,6 +1,7 @@
 using System.Runtime.ExceptionServices;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Survey;
 
@@ -92,11 +93,11 @@ public static class SurveyRunner
             var message = e is CaptureFormatException || e.Message.Contains(job.File, StringComparison.Ordinal)
                 ? e.Message
                 : $"{job.File}: {e.Message}";
-            return new SurveyOutcome(SurveyRow.Failed(job.File, job.Settings, message));
+            return new SurveyOutcome(SurveyRows.Failed(job.File, job.Settings, message));
         }
         catch (Exception e)
         {
-            return new SurveyOutcome(SurveyRow.Failed(job.File, job.Settings, $"internal error: {e.GetType().Name}: {e.Message}"));
+            return new SurveyOutcome(SurveyRows.Failed(job.File, job.Settings, $"internal error: {e.GetType().Name}: {e.Message}"));
         }
     }
 }

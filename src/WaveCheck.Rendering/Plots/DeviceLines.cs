@@ -1,6 +1,7 @@
 using OxyPlot;
 using OxyPlot.Annotations;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Rendering.Plots;
 

@@ -1,6 +1,7 @@
 using System.Text;
 using OxyPlot;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Rendering.Plots;
 

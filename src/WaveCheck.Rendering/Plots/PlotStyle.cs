@@ -42,7 +42,7 @@ public static class PlotStyle
     /// <summary>Height of a plot, pixels at 96 dpi.</summary>
     public const int HeightPx = 450;
 
-    /// <summary>Milliamperes for an axis value. Plots only: text for a person goes through <see cref="WaveCheck.Core.Results.CurrentText"/>.</summary>
+    /// <summary>Milliamperes for an axis value. Plots only: text for a person goes through <see cref="WaveCheck.Core.Text.CurrentText"/>.</summary>
     /// <param name="amperes">Current, amperes.</param>
     public static double AxisMilliamps(double amperes) => amperes * 1000.0;
 

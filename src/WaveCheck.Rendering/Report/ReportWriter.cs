@@ -1,8 +1,10 @@
 using System.Globalization;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Results;
 using WaveCheck.Rendering.Plots;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Rendering.Report;
 

@@ -1,12 +1,13 @@
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Tests.Assessment;
 
 /// <summary>Nuisance-trip margins against hand calculations (IEC 61008-1 0.5 IΔn; IEC 60364-5-53 §531.3.2 0.3 IΔn).</summary>
 public class MarginsTests
 {
-    private static Core.Results.NuisanceTripResult Nuisance(AnalysisBuilder b, DeviceType type, double ratedA = 0.030) =>
+    private static Core.Model.NuisanceTripResult Nuisance(AnalysisBuilder b, DeviceType type, double ratedA = 0.030) =>
         DeviceTypeAssessor.Assess(b.Build(), new AssessmentOptions { InstalledType = type, RatedResidualCurrentA = ratedA }).NuisanceTrip;
 
     [Fact]
@@ -123,11 +124,11 @@ public class MarginsTests
         Assert.Contains("--frequency-factors", ex.Message, StringComparison.Ordinal);
     }
 
-    private static Core.Results.AssessmentResult Assess(AnalysisBuilder b, DeviceType? type = null, bool ev = false,
+    private static Core.Model.AssessmentResult Assess(AnalysisBuilder b, DeviceType? type = null, bool ev = false,
         bool rdcDd = false) =>
         DeviceTypeAssessor.Assess(b.Build(), new AssessmentOptions { InstalledType = type, EvChargingPoint = ev, InstalledRdcDd = rdcDd });
 
-    private static string Ma(double a) => Core.Results.CurrentText.WithUnit(a);
+    private static string Ma(double a) => Core.Text.CurrentText.WithUnit(a);
 
     [Fact]
     public void Each_frequency_range_is_listed_with_its_bounds_and_factor()

@@ -2,6 +2,7 @@ using CsCheck;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Signal;
 using WaveCheck.Core.Synthesis;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Tests.Assessment;
 
@@ -73,7 +74,7 @@ public class VerdictPropertyTests
         return level;
     }
 
-    private static WaveCheck.Core.Results.AssessmentResult Assess(IEnumerable<Part> parts, double sign, double scale = 1, int shiftSamples = 0,
+    private static WaveCheck.Core.Model.AssessmentResult Assess(IEnumerable<Part> parts, double sign, double scale = 1, int shiftSamples = 0,
         bool negate = false, double rateHz = RateHz)
     {
         var components = parts.Select(p => (WaveformComponent)new Shifted(p.Make(scale, negate ? -sign : sign), shiftSamples)).ToList();
@@ -83,7 +84,7 @@ public class VerdictPropertyTests
     }
 
     /// <summary>Same level, or every class whose presence differs lies within 25 % of its threshold in both runs.</summary>
-    private static bool SameAwayFromLimits(WaveCheck.Core.Results.AssessmentResult a, WaveCheck.Core.Results.AssessmentResult b)
+    private static bool SameAwayFromLimits(WaveCheck.Core.Model.AssessmentResult a, WaveCheck.Core.Model.AssessmentResult b)
     {
         if (a.MinimumType == b.MinimumType)
         {
@@ -106,8 +107,8 @@ public class VerdictPropertyTests
 
         return true;
 
-        static bool Present(WaveCheck.Core.Results.ClassResult c) => c.Presence is "present" or "at limit";
-        static bool NearLimit(WaveCheck.Core.Results.ClassResult c) =>
+        static bool Present(WaveCheck.Core.Model.ClassResult c) => c.Presence is "present" or "at limit";
+        static bool NearLimit(WaveCheck.Core.Model.ClassResult c) =>
             c is { FigureA: { } f, ThresholdA: { } t } && Math.Abs(f) >= 0.75 * t && Math.Abs(f) <= 1.25 * t;
     }
 

@@ -1,7 +1,8 @@
 using WaveCheck.Core;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Signal;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Tests.Signal;
 

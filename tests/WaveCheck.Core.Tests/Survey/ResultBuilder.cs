@@ -1,7 +1,7 @@
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Survey;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Tests.Survey;
 
@@ -106,5 +106,5 @@ internal sealed record ResultBuilder
 
     /// <summary>The survey row these figures give.</summary>
     public SurveyRow Row(string file, string? circuit = null) =>
-        SurveyRow.From(file, new CaptureSettings { Circuit = circuit }, Analysis(file), Assessment(), null);
+        SurveyRows.From(file, new CaptureSettings { Circuit = circuit }, Analysis(file), Assessment(), null);
 }

@@ -2,6 +2,7 @@ using System.Text;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Survey;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Tests.Survey;
 

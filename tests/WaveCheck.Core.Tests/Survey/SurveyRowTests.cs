@@ -1,6 +1,6 @@
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Survey;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Tests.Survey;
 
@@ -39,7 +39,7 @@ public class SurveyRowTests
             Headline = "smooth DC 7.1 mA: type B",
         };
         var settings = new CaptureSettings { Circuit = "C3 compressor", InstalledType = DeviceType.A, RatedResidualCurrentA = 0.3 };
-        var row = SurveyRow.From("c3.wav", settings, builder.Analysis(), builder.Assessment(), "c3/report.html");
+        var row = SurveyRows.From("c3.wav", settings, builder.Analysis(), builder.Assessment(), "c3/report.html");
 
         Assert.Equal("c3.wav", row.File);
         Assert.Equal("C3 compressor", row.Circuit);
@@ -75,7 +75,7 @@ public class SurveyRowTests
     public void Failed_row_keeps_the_settings_and_the_message()
     {
         var settings = new CaptureSettings { Circuit = "C9", InstalledType = DeviceType.F, RatedResidualCurrentA = 0.1 };
-        var row = SurveyRow.Failed("c9.wav", settings, "c9.wav: not a WAV file");
+        var row = SurveyRows.Failed("c9.wav", settings, "c9.wav: not a WAV file");
         Assert.Equal(SurveyVerdict.Error, row.Verdict);
         Assert.Equal("F", row.InstalledType);
         Assert.Equal(0.1, row.RatedResidualCurrentA);

@@ -1,6 +1,7 @@
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Survey;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Tests.Survey;
 
@@ -140,7 +141,7 @@ public class UpstreamCheckTests
     [Fact]
     public void Failed_members_make_the_check_incomplete_and_are_named()
     {
-        var failed = SurveyRow.Failed("c2.wav", new CaptureSettings(), "c2.wav: not a WAV file");
+        var failed = SurveyRows.Failed("c2.wav", new CaptureSettings(), "c2.wav: not a WAV file");
         var result = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav", "c2.wav"), [Member("c1.wav", 0.004), failed]);
         Assert.False(result.Complete);
         Assert.Equal(["c2.wav"], result.FailedMembers);

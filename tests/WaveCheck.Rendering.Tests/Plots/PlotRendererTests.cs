@@ -157,7 +157,7 @@ public sealed class PlotRendererTests : IDisposable
         {
             Capture = analysis.Capture with { SampleRateHz = rateHz, SampleCount = 60_000_000 },
             WorstWindow = analysis.WorstWindow with { SampleRateHz = rateHz, SamplesA = samples },
-            Spectrum = new WaveCheck.Core.Results.SpectrumResult(5, freqs, rms),
+            Spectrum = new WaveCheck.Core.Model.SpectrumResult(5, freqs, rms),
         };
 
         foreach (var kind in new[] { PlotKind.Cycles, PlotKind.Spectrum })

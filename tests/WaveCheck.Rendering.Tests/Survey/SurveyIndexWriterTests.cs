@@ -1,6 +1,6 @@
 using WaveCheck.Core.Assessment;
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Survey;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Rendering.Tests.Survey;
 
@@ -32,6 +32,7 @@ public class SurveyIndexWriterTests
     {
         Site = "Invented car park <level 2>",
         GeneratedAt = new DateTimeOffset(2026, 12, 2, 8, 0, 0, TimeSpan.Zero),
+        Cautions = SurveyCautions.All,
         Rows =
         [
             Row("bays/bay 1#.wav", SurveyVerdict.Ok, DeviceType.B, DeviceType.B, RiskLevel.Low, "reports/bay 1#.html"),

@@ -1,6 +1,6 @@
 using System.Globalization;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Signal;
 

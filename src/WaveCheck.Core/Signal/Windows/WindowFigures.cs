@@ -1,4 +1,4 @@
-using WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Signal;
 

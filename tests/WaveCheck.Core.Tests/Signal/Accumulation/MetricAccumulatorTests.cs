@@ -1,8 +1,8 @@
 using System.Diagnostics;
 using System.Globalization;
 using System.Runtime.CompilerServices;
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Signal;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Tests.Signal;
 

@@ -1,6 +1,6 @@
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Signal;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Tests.Signal;
 

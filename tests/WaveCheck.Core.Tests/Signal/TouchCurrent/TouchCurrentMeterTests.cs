@@ -82,7 +82,7 @@ public class TouchCurrentMeterTests
     }
 
     [Fact]
-    public void EmptyMeterReadsZero() => Assert.Equal(new Core.Results.TouchCurrentResult(0, 0, 0, 0, 0, 0, 0), new TouchCurrentMeter(1000).Result);
+    public void EmptyMeterReadsZero() => Assert.Equal(new Core.Model.TouchCurrentResult(0, 0, 0, 0, 0, 0, 0), new TouchCurrentMeter(1000).Result);
 
     [Fact]
     public void WeightingLowersHighFrequencyReadings()

@@ -1,5 +1,5 @@
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Signal;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Tests.Signal;
 

@@ -1,6 +1,7 @@
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Signal;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Tests.Signal;
 

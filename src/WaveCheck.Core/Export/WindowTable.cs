@@ -1,6 +1,7 @@
 using System.Text;
+using WaveCheck.Core.Model;
 
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Export;
 
 /// <summary>
 /// The per-window table in one column list (SI units, names ending in their unit), shared by the

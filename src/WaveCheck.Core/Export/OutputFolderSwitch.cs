@@ -1,6 +1,7 @@
 using System.Runtime.InteropServices;
+using WaveCheck.Core.Model;
 
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Export;
 
 /// <summary>
 /// A folder of outputs replaced as one set, so that it always holds either the old complete set or the new complete

@@ -2,7 +2,7 @@ using System.Reflection;
 using System.Text.Json;
 using System.Text.Json.Serialization;
 
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Model;
 
 /// <summary>A risk found by a margin check (nuisance tripping, an upstream device's leakage budget).</summary>
 public enum RiskLevel

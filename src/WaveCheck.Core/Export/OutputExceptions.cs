@@ -1,4 +1,6 @@
-namespace WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+
+namespace WaveCheck.Core.Export;
 
 /// <summary>
 /// An output path that cannot be used: it would replace an input of the run, two outputs share it, it is read-only,

@@ -1,7 +1,8 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using WaveCheck.Core.Model;
 
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Export;
 
 /// <summary>The JSON form of results: camelCase, SI units, enums as strings, non-finite numbers as null.</summary>
 public static class ResultJson

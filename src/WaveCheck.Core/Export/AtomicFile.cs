@@ -1,7 +1,8 @@
 using System.Runtime.InteropServices;
 using System.Security.Cryptography;
+using WaveCheck.Core.Model;
 
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Export;
 
 /// <summary>
 /// Writes an output file whole or not at all: into a temporary file beside the target, then renamed over it.

@@ -1,4 +1,6 @@
-namespace WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+
+namespace WaveCheck.Core.Export;
 
 /// <summary>
 /// Keeps a text cell of a CSV file from being run as a formula when the file is opened in a spreadsheet: a cell

@@ -1,8 +1,8 @@
 using Parquet;
 using Parquet.Schema;
-using WaveCheck.Core.Survey;
+using WaveCheck.Core.Model;
 
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Export;
 
 /// <summary>
 /// The survey as Apache Parquet tables, for analysis in other tools: one row per capture (<see cref="WriteCaptures"/>)

@@ -1,8 +1,8 @@
 using System.Text.Json;
-using WaveCheck.Core.Assessment;
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Survey;
 using WaveCheck.Core.Tests.Survey;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Tests.Results;
 
@@ -11,7 +11,7 @@ public class SurveyJsonTests
     [Fact]
     public void Survey_json_has_schema_rows_upstream_and_cautions()
     {
-        var rows = new[] { new ResultBuilder { WorstWindowRmsA = 0.009 }.Row("c1.wav", "C1"), SurveyRow.Failed("c2.wav", new CaptureSettings(), "c2.wav: broken") };
+        var rows = new[] { new ResultBuilder { WorstWindowRmsA = 0.009 }.Row("c1.wav", "C1"), SurveyRows.Failed("c2.wav", new CaptureSettings(), "c2.wav: broken") };
         var upstream = UpstreamCheck.EvaluateAll([new UpstreamGroup("Q2", DeviceType.A, 0.1, ["c1.wav", "c2.wav"])], rows);
         var document = new SurveyDocument
         {
@@ -19,6 +19,7 @@ public class SurveyJsonTests
             GeneratedAt = new DateTimeOffset(2026, 3, 4, 10, 0, 0, TimeSpan.Zero),
             Rows = rows,
             Upstream = upstream,
+            Cautions = SurveyCautions.All,
         };
         var folder = Directory.CreateTempSubdirectory("wavecheck-json-").FullName;
         try

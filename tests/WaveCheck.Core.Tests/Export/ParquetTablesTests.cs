@@ -1,8 +1,9 @@
 using Parquet;
 using Parquet.Schema;
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Survey;
 using WaveCheck.Core.Tests.Survey;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Tests.Results;
 
@@ -19,7 +20,7 @@ public sealed class ParquetTablesTests : IDisposable
         var rows = new[]
         {
             new ResultBuilder { RmsA = 0.0042, WorstWindowRmsA = 0.0051, Blinded = true }.Row("c1.wav", "C1 saw"),
-            SurveyRow.Failed("c2.wav", new CaptureSettings { RatedResidualCurrentA = 0.1 }, "c2.wav: not a WAV file"),
+            SurveyRows.Failed("c2.wav", new CaptureSettings { RatedResidualCurrentA = 0.1 }, "c2.wav: not a WAV file"),
             new ResultBuilder { RmsA = double.NaN }.Row("c3.wav"),
         };
         var path = Path.Combine(_folder, "captures.parquet");

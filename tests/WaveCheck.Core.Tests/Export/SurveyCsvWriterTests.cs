@@ -1,7 +1,7 @@
 using Sylvan.Data.Csv;
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Survey;
 using WaveCheck.Core.Tests.Survey;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Tests.Results;
 
@@ -22,7 +22,7 @@ public class SurveyCsvWriterTests
         var rows = new[]
         {
             new ResultBuilder { RmsA = 0.0042, WorstWindowRmsA = 0.0051, SmoothDcMaxA = -0.0012 }.Row("c1.wav", "C1 saw, \"big\" one"),
-            SurveyRow.Failed("c2.wav", new CaptureSettings { Circuit = "C2 fan" }, "c2.wav: not a WAV file"),
+            SurveyRows.Failed("c2.wav", new CaptureSettings { Circuit = "C2 fan" }, "c2.wav: not a WAV file"),
         };
         var folder = Directory.CreateTempSubdirectory("wavecheck-csv-").FullName;
         try

@@ -1,6 +1,7 @@
 using CsCheck;
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Tests.Capture;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Tests.Results;
 

@@ -1,4 +1,4 @@
-namespace WaveCheck.Core.Assessment;
+namespace WaveCheck.Core.Model;
 
 /// <summary>
 /// Residual-current device types of the IEC 60755 family, in order of capability: each type detects

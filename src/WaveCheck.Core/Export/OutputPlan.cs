@@ -1,4 +1,6 @@
-namespace WaveCheck.Core.Results;
+using WaveCheck.Core.Model;
+
+namespace WaveCheck.Core.Export;
 
 /// <summary>
 /// The files a run reads and the files it will write, checked together before anything is written: the one place

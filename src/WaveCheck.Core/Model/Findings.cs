@@ -1,4 +1,4 @@
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Model;
 
 /// <summary>Findings a user may ask a run to fail on (CLI <c>--fail-on</c>: exit code 1).</summary>
 [Flags]

@@ -1,6 +1,6 @@
 using WaveCheck.Core.Capture;
 
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Model;
 
 /// <summary>
 /// Everything the analysis measured over one capture. Serialised as the analysis JSON

@@ -1,4 +1,4 @@
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Model;
 
 /// <summary>
 /// The verdict on a capture: which device type it demands, how each type fares, margins for the installed device.

@@ -1,6 +1,6 @@
 using System.Globalization;
 
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Text;
 
 /// <summary>
 /// The one place where amperes become text for a person: milliamperes on screen and in reports, with a precision

@@ -1,5 +1,6 @@
-using WaveCheck.Core.Results;
 using WaveCheck.Core.Tests.Capture;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Tests.Results;
 

@@ -1,7 +1,7 @@
 using System.Text;
-using WaveCheck.Core.Survey;
+using WaveCheck.Core.Model;
 
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Export;
 
 /// <summary>
 /// Writes the survey as CSV, one row per capture: header names carry their SI unit (<c>rmsA</c>, <c>durationS</c>),

@@ -1,6 +1,7 @@
 using System.Runtime.InteropServices;
+using WaveCheck.Core.Model;
 
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Export;
 
 /// <summary>
 /// Which file a path names, whatever the spelling: two paths name the same file when their identities are equal,

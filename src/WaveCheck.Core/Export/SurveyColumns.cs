@@ -2,9 +2,9 @@ using System.Globalization;
 using WaveCheck.Core.Assessment;
 using Parquet;
 using Parquet.Schema;
-using WaveCheck.Core.Survey;
+using WaveCheck.Core.Model;
 
-namespace WaveCheck.Core.Results;
+namespace WaveCheck.Core.Export;
 
 /// <summary>A column of a table of <typeparamref name="TRow"/>: its name (SI unit in it), its text for CSV and its
 /// typed Parquet field, defined once so the CSV and Parquet forms cannot drift apart.</summary>

@@ -1,0 +1,64 @@
+using WaveCheck.Core.Model;
+
+namespace WaveCheck.Core.Survey;
+
+/// <summary>Builds the survey's <see cref="SurveyRow"/>s from what the survey ran.</summary>
+public static class SurveyRows
+{
+    /// <summary>The row of a capture that was analysed and assessed.</summary>
+    /// <param name="file">The capture (the job's path).</param>
+    /// <param name="settings">The settings it was analysed with.</param>
+    /// <param name="analysis">What the analysis measured.</param>
+    /// <param name="assessment">The verdict.</param>
+    /// <param name="reportPath">Its report relative to the survey's output folder; null when none.</param>
+    public static SurveyRow From(string file, CaptureSettings settings, AnalysisResult analysis, AssessmentResult assessment,
+        string? reportPath)
+    {
+        ArgumentNullException.ThrowIfNull(settings);
+        ArgumentNullException.ThrowIfNull(analysis);
+        ArgumentNullException.ThrowIfNull(assessment);
+        // The protection in full (A+RDC-DD): at a charging point a plain A and an A with DC detection differ in verdict.
+        var installed = assessment.InstalledProtection ?? assessment.InstalledType ?? settings.InstalledType?.ToTradeName();
+        var worstRms = analysis.Windows.Statistics.TryGetValue("rmsA", out var rms) ? rms.Max : analysis.Summary.RmsA;
+        return new SurveyRow
+        {
+            File = file,
+            Circuit = settings.Circuit,
+            InstalledType = installed,
+            RatedResidualCurrentA = assessment.RatedResidualCurrentA,
+            RequiredType = DeviceTypeNames.TryParse(assessment.RequiredType, out var required) ? required : null,
+            MinimumType = DeviceTypeNames.TryParse(assessment.MinimumType, out var minimum) ? minimum : null,
+            Verdict = SurveyRow.VerdictOf(installed, assessment.InstalledAdequate),
+            RmsA = analysis.Summary.RmsA,
+            WorstWindowRmsA = worstRms,
+            SmoothDcA = analysis.Components.SmoothDcMaxA,
+            SmoothDcKnown = assessment.Blinding.Blinded is not null,
+            Above1kHzRmsA = analysis.Components.Above1kHzRmsA,
+            NuisanceRisk = assessment.NuisanceTrip.Risk,
+            NuisanceMarginA = assessment.NuisanceTrip.MarginA,
+            Blinded = assessment.Blinding.Blinded,
+            Headline = assessment.Headline,
+            ReportPath = reportPath,
+            DurationS = analysis.Capture.DurationS,
+            SampleRateHz = analysis.Capture.SampleRateHz,
+        };
+    }
+
+    /// <summary>The row of a capture that could not be analysed.</summary>
+    /// <param name="file">The capture (the job's path).</param>
+    /// <param name="settings">The settings it was to be analysed with.</param>
+    /// <param name="message">What went wrong, for a person.</param>
+    public static SurveyRow Failed(string file, CaptureSettings settings, string message)
+    {
+        ArgumentNullException.ThrowIfNull(settings);
+        return new SurveyRow
+        {
+            File = file,
+            Circuit = settings.Circuit,
+            InstalledType = settings.InstalledType?.ToTradeName(),
+            RatedResidualCurrentA = settings.RatedResidualCurrentA,
+            Verdict = SurveyVerdict.Error,
+            Error = message,
+        };
+    }
+}
