@@ -2,7 +2,7 @@
 # Mutation testing with Stryker.NET (the version pinned in .config/dotnet-tools.json), one source file per run so
 # each file gets its own score and no run grows without bound. Not part of CI: a file takes 5 to 15 minutes on
 # this 2-core machine. Usage:
-#   bash tests/mutation.sh [src/WaveCheck.Core/Signal/SubMainsDc.cs ...]
+#   bash tests/mutation.sh [src/WaveCheck.Core/Signal/Windows/SubMainsDc.cs ...]
 # With no file it runs the list below (the measurement core and the verdict; docs/testing.md has their scores).
 # Reports: artifacts/mutation/<file>/reports/mutation-report.{html,json}; the score of each file is printed at the end.
 # Tests run against each file: a Signal file's own test class (tests mirror the source tree: Signal/ToneFinder.cs is
@@ -18,9 +18,9 @@ cd "$(dirname "$0")/.."
 root=$PWD
 
 default_files=(
-  src/WaveCheck.Core/Signal/SubMainsDc.cs
-  src/WaveCheck.Core/Signal/ToneFinder.cs
-  src/WaveCheck.Core/Signal/MetricAccumulator.cs
+  src/WaveCheck.Core/Signal/Windows/SubMainsDc.cs
+  src/WaveCheck.Core/Signal/Groups/ToneFinder.cs
+  src/WaveCheck.Core/Signal/Accumulation/MetricAccumulator.cs
   src/WaveCheck.Core/Assessment/ClassDetector.cs
   src/WaveCheck.Core/Assessment/MeasurementAccuracy.cs
   src/WaveCheck.Core/Assessment/DeviceTypeAssessor.cs
@@ -55,8 +55,10 @@ for f in "${files[@]}"; do
       # The verdict's tests on constructed figures; the two classes that synthesise and analyse waveforms
       # (RequiredTypeTests, VerdictPropertyTests) would run the whole analysis instrumented, minutes per mutant.
       filter="FullyQualifiedName~WaveCheck.Core.Tests.Assessment.&FullyQualifiedName!~RequiredTypeTests&FullyQualifiedName!~VerdictPropertyTests"
-    elif [ -f "tests/WaveCheck.Core.Tests/$folder/${name}Tests.cs" ]; then
-      filter="FullyQualifiedName~WaveCheck.Core.Tests.$folder.${name}Tests"
+    elif [ -n "$(find "tests/WaveCheck.Core.Tests/$folder" -name "${name}*Tests.cs" -print -quit)" ]; then
+      # The file's own test classes (X.cs: XTests and X...Tests, wherever they sit under the mirrored folder;
+      # Signal's subfolders share one namespace).
+      filter="FullyQualifiedName~WaveCheck.Core.Tests.$folder.${name}"
     else
       filter="FullyQualifiedName~WaveCheck.Core.Tests.$folder."
     fi
