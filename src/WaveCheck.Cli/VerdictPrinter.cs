@@ -18,7 +18,7 @@ internal static class VerdictPrinter
         if (a.InstalledType is { } installed)
         {
             console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"Installed {a.InstalledProtection ?? "type " + installed}, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}: {Adequacy(a.InstalledAdequate)}"));
+                $"Installed {a.InstalledProtection ?? "type " + installed.ToTradeName()}, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}: {Adequacy(a.InstalledAdequate)}"));
         }
 
         if (a.Blinding.Blinded == true)
@@ -33,14 +33,14 @@ internal static class VerdictPrinter
         types.AddColumn("evidence");
         foreach (var t in a.Types)
         {
-            types.AddRow(new Text(t.Type), new Text(Suitability(t.Suitable)), new Text(string.Join("\n", t.Reasons)));
+            types.AddRow(new Text(t.Type.ToTradeName()), new Text(Suitability(t.Suitable)), new Text(string.Join("\n", t.Reasons)));
         }
 
         console.Write(types);
 
         var n = a.NuisanceTrip;
         var margins = new Table().Border(plain ? TableBorder.Ascii : TableBorder.Rounded)
-            .Title(string.Create(CultureInfo.InvariantCulture, $"Margins for type {n.DeviceType}, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}"));
+            .Title(string.Create(CultureInfo.InvariantCulture, $"Margins for type {n.DeviceType.ToTradeName()}, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}"));
         margins.AddColumn("check");
         margins.AddColumn(new TableColumn("figure").RightAligned());
         margins.AddColumn("finding");

@@ -25,56 +25,56 @@ public class EvaluationTests
 
     [Theory]
     // IEC 61008-1: type AC is tested with sinusoidal AC residual current.
-    [InlineData("AC", new[] { "sine:rms=20mA" })]
+    [InlineData(DeviceType.AC, new[] { "sine:rms=20mA" })]
     // IEC 61008-1 / 61009-1: type A adds pulsating DC at current-delay angles 0°, 90°, 135°.
-    [InlineData("A", new[] { "halfwave:peak=30mA,angle=0" })]
-    [InlineData("A", new[] { "halfwave:peak=30mA,angle=90" })]
-    [InlineData("A", new[] { "halfwave:peak=30mA,angle=135" })]
-    [InlineData("A", new[] { "halfwave:peak=30mA,polarity=neg" })]
+    [InlineData(DeviceType.A, new[] { "halfwave:peak=30mA,angle=0" })]
+    [InlineData(DeviceType.A, new[] { "halfwave:peak=30mA,angle=90" })]
+    [InlineData(DeviceType.A, new[] { "halfwave:peak=30mA,angle=135" })]
+    [InlineData(DeviceType.A, new[] { "halfwave:peak=30mA,polarity=neg" })]
     // Type A still trips with up to 6 mA smooth DC superimposed, type F with up to 10 mA (IEC 62423): tolerance, not
     // fitness. A circuit that itself produces smooth DC can produce a smooth DC fault, which only type B detects
     // (REFERENCE.md "tolerance is not fitness"; IEC 60364-5-53 §531.3.3).
-    [InlineData("B", new[] { "halfwave:peak=30mA", "dc:level=4mA" })]
-    [InlineData("B", new[] { "halfwave:peak=30mA", "dc:level=8mA" })]
-    [InlineData("B", new[] { "halfwave:peak=30mA", "dc:level=14mA" })]
+    [InlineData(DeviceType.B, new[] { "halfwave:peak=30mA", "dc:level=4mA" })]
+    [InlineData(DeviceType.B, new[] { "halfwave:peak=30mA", "dc:level=8mA" })]
+    [InlineData(DeviceType.B, new[] { "halfwave:peak=30mA", "dc:level=14mA" })]
     // IEC 62423: type F's composite test current of 10 Hz, 50 Hz and 1 kHz components.
-    [InlineData("F", new[] { "composite:rms=20mA,motor=10Hz,switch=1kHz" })]
+    [InlineData(DeviceType.F, new[] { "composite:rms=20mA,motor=10Hz,switch=1kHz" })]
     // IEC 62423: type B adds smooth DC and rectified current from two or more phases.
-    [InlineData("B", new[] { "dc:level=20mA" })]
-    [InlineData("B", new[] { "dc:level=-20mA" })]
-    [InlineData("B", new[] { "sixpulse:mean=20mA" })]
+    [InlineData(DeviceType.B, new[] { "dc:level=20mA" })]
+    [InlineData(DeviceType.B, new[] { "dc:level=-20mA" })]
+    [InlineData(DeviceType.B, new[] { "sixpulse:mean=20mA" })]
     // Rectified current from two or more phases never rests at zero for 150° (IEC 61008-1 definition of pulsating
     // DC, from memory): type B at any level, below 6 mA too (IEC 62423).
-    [InlineData("B", new[] { "rectified:mean=2mA,pulses=2" })]
-    [InlineData("B", new[] { "rectified:mean=2mA,pulses=3" })]
-    [InlineData("B", new[] { "rectified:mean=2mA,pulses=6" })]
-    [InlineData("B", new[] { "rectified:mean=5mA,pulses=3" })]
-    [InlineData("B", new[] { "rectified:mean=8mA,pulses=3" })]
-    [InlineData("B", new[] { "rectified:mean=50mA,pulses=6" })]
-    [InlineData("B", new[] { "rectified:mean=3mA,pulses=3", "sine:rms=10mA" })]
-    [InlineData("B", new[] { "rectified:mean=3mA,pulses=6", "sine:rms=20mA" })]
+    [InlineData(DeviceType.B, new[] { "rectified:mean=2mA,pulses=2" })]
+    [InlineData(DeviceType.B, new[] { "rectified:mean=2mA,pulses=3" })]
+    [InlineData(DeviceType.B, new[] { "rectified:mean=2mA,pulses=6" })]
+    [InlineData(DeviceType.B, new[] { "rectified:mean=5mA,pulses=3" })]
+    [InlineData(DeviceType.B, new[] { "rectified:mean=8mA,pulses=3" })]
+    [InlineData(DeviceType.B, new[] { "rectified:mean=50mA,pulses=6" })]
+    [InlineData(DeviceType.B, new[] { "rectified:mean=3mA,pulses=3", "sine:rms=10mA" })]
+    [InlineData(DeviceType.B, new[] { "rectified:mean=3mA,pulses=6", "sine:rms=20mA" })]
     // Sinusoidal AC up to 1 kHz at a frequency other than mains is type B's (IEC 62423), with or without a motor
     // frequency beside it: adding a component never weakens the verdict.
-    [InlineData("B", new[] { "sine:rms=10mA,freq=150", "sine:rms=2mA" })]
-    [InlineData("B", new[] { "sine:rms=10mA,freq=150", "sine:rms=2mA", "sine:rms=3mA,freq=23" })]
+    [InlineData(DeviceType.B, new[] { "sine:rms=10mA,freq=150", "sine:rms=2mA" })]
+    [InlineData(DeviceType.B, new[] { "sine:rms=10mA,freq=150", "sine:rms=2mA", "sine:rms=3mA,freq=23" })]
     // Extended-frequency type B (B+, DIN VDE 0664-400): tripping defined up to 20 kHz; switching leakage at 16 kHz.
-    [InlineData("B+", new[] { "sine:rms=5mA", "switching:rms=10mA,freq=16kHz" })]
-    public void Each_test_current_of_the_standards_gets_its_type(string expected, string[] parts)
+    [InlineData(DeviceType.BPlus, new[] { "sine:rms=5mA", "switching:rms=10mA,freq=16kHz" })]
+    public void Each_test_current_of_the_standards_gets_its_type(DeviceType expected, string[] parts)
     {
         var result = Evaluate(parts);
         Assert.True(expected == result.Assessment.RequiredType,
-            $"{string.Join(" + ", parts)}: expected {expected}, got {result.Assessment.RequiredType ?? "null"}: {result.Assessment.Headline}");
+            $"{string.Join(" + ", parts)}: expected {expected.ToTradeName()}, got {result.Assessment.RequiredType?.ToTradeName() ?? "null"}: {result.Assessment.Headline}");
     }
 
     [Theory]
-    [InlineData("AC", new[] { "sine:rms=20mA" })]
-    [InlineData("A", new[] { "halfwave:peak=30mA,angle=90" })]
+    [InlineData(DeviceType.AC, new[] { "sine:rms=20mA" })]
+    [InlineData(DeviceType.A, new[] { "halfwave:peak=30mA,angle=90" })]
     // A mains sine on top of a two-pulse current stays below half its peak here: a two-pulse current less an in-phase
     // sine of its own peak is a half-wave, pulsating DC by definition (closed form |sin θ| − sin θ).
-    [InlineData("B", new[] { "rectified:mean=4mA,pulses=3", "sine:rms=5mA" })]
-    [InlineData("B", new[] { "rectified:mean=4mA,pulses=2", "sine:rms=2mA" })]
-    [InlineData("B", new[] { "rectified:mean=4mA,pulses=6", "sine:rms=5mA" })]
-    public void The_same_holds_at_60_Hz(string expected, string[] parts)
+    [InlineData(DeviceType.B, new[] { "rectified:mean=4mA,pulses=3", "sine:rms=5mA" })]
+    [InlineData(DeviceType.B, new[] { "rectified:mean=4mA,pulses=2", "sine:rms=2mA" })]
+    [InlineData(DeviceType.B, new[] { "rectified:mean=4mA,pulses=6", "sine:rms=5mA" })]
+    public void The_same_holds_at_60_Hz(DeviceType expected, string[] parts)
     {
         // IEC 61000-4-7: 12-cycle windows at 60 Hz; the verdict must not depend on the mains frequency.
         var result = Evaluate(parts, mainsHz: 60);
@@ -90,10 +90,10 @@ public class EvaluationTests
         // falls back to 50 Hz and says so; with --mains 60 the windows are 12 cycles and the verdict is the same.
         var auto = Evaluate(["sixpulse:mean=20mA"], mainsHz: 60);
         Assert.Equal("fallback", auto.Analysis.Mains.Source);
-        Assert.Equal("B", auto.Assessment.RequiredType);
+        Assert.Equal(DeviceType.B, auto.Assessment.RequiredType);
         var given = Evaluate(["sixpulse:mean=20mA"], mainsHz: 60, givenMainsHz: 60);
         Assert.Equal(12, given.Analysis.Windows.CyclesPerWindow);
-        Assert.Equal("B", given.Assessment.RequiredType);
+        Assert.Equal(DeviceType.B, given.Assessment.RequiredType);
     }
 
     [Theory]
@@ -114,7 +114,7 @@ public class EvaluationTests
         var result = Evaluate([.. parts]);
         // With real DC beside it, the circuit produces DC residual current: type B (REFERENCE.md, "tolerance is not
         // fitness").
-        Assert.Equal(dcA == 0 ? "F" : "B", result.Assessment.RequiredType);
+        Assert.Equal(dcA == 0 ? DeviceType.F : DeviceType.B, result.Assessment.RequiredType);
         Assert.Equal(dcA, result.Analysis.Components.SmoothDcMaxA, 0.0002);
 
         // Nor may it drag the mains tracking: the synthesized mains is exactly 50 Hz; the windows must stay within
@@ -130,7 +130,7 @@ public class EvaluationTests
         // test currents cannot decide between F and B, and the caution says what to measure instead.
         var result = Evaluate(["sine:rms=10mA"], sensor: SensorCoupling.Ac);
         Assert.Null(result.Assessment.RequiredType);
-        Assert.Contains(result.Assessment.Types, t => t.Type == "B" && t.Suitable != false);
+        Assert.Contains(result.Assessment.Types, t => t.Type == DeviceType.B && t.Suitable != false);
         Assert.Contains(result.Assessment.Cautions, c => c.Contains("DC", StringComparison.Ordinal));
     }
 
@@ -142,9 +142,9 @@ public class EvaluationTests
         // suitable.
         var result = Evaluate(["sine:rms=10mA"], rateHz: 10_000);
         Assert.Null(result.Assessment.RequiredType);
-        Assert.Equal("AC", result.Assessment.MinimumType);
-        Assert.Null(result.Assessment.Types.Single(t => t.Type == "B").Suitable);
-        Assert.True(result.Assessment.Types.Single(t => t.Type == "B+").Suitable);
+        Assert.Equal(DeviceType.AC, result.Assessment.MinimumType);
+        Assert.Null(result.Assessment.Types.Single(t => t.Type == DeviceType.B).Suitable);
+        Assert.True(result.Assessment.Types.Single(t => t.Type == DeviceType.BPlus).Suitable);
         Assert.Contains("at least type AC", result.Assessment.Headline, StringComparison.Ordinal);
     }
 

@@ -155,32 +155,32 @@ internal static class ResultBuilder
     /// <summary>A verdict that goes with <see cref="Typical"/>: type A required, installed type AC not adequate.</summary>
     public static AssessmentResult Assessment(bool blinded = false) => new()
     {
-        RequiredType = "A",
-        MinimumType = "A",
+        RequiredType = DeviceType.A,
+        MinimumType = DeviceType.A,
         Headline = "Pulsating DC from a phase-controlled half-wave (α = 90°): type A or better is required.",
         RatedResidualCurrentA = RatedA,
-        InstalledType = "AC",
+        InstalledType = DeviceType.AC,
         InstalledAdequate = false,
         Regime = Regime.Iec,
         Accuracy = "2%+0.1mA",
         Classes =
         [
-            new ClassResult("mainsAc", "sinusoidal AC at mains frequency", "present", 0.005, 0.001, "AC", false, "mains-frequency component 5.00 mA"),
-            new ClassResult("pulsatingDc", "pulsating DC", "present", 0.0024, 0.001, "A", false, "pulsating DC: pulses with a mean of 2.40 mA"),
-            new ClassResult("smoothDc", "smooth DC or multi-phase rectified current", "at limit", 0.00095, 0.001, "B", true, "smooth DC 0.950 mA at the limit"),
+            new ClassResult(ResidualCurrentClass.MainsAc, "sinusoidal AC at mains frequency", ClassPresence.Present, 0.005, 0.001, DeviceType.AC, false, "mains-frequency component 5.00 mA"),
+            new ClassResult(ResidualCurrentClass.PulsatingDc, "pulsating DC", ClassPresence.Present, 0.0024, 0.001, DeviceType.A, false, "pulsating DC: pulses with a mean of 2.40 mA"),
+            new ClassResult(ResidualCurrentClass.SmoothDc, "smooth DC or multi-phase rectified current", ClassPresence.AtLimit, 0.00095, 0.001, DeviceType.B, true, "smooth DC 0.950 mA at the limit"),
         ],
         Types =
         [
-            new TypeVerdict("AC", false, ["pulsating DC 98 % of windows; type AC is not specified for it (IEC 61008-1)"]),
-            new TypeVerdict("A", true, ["smooth DC 2.30 mA within the 6 mA type A tolerance (IEC 61008-1)"]),
-            new TypeVerdict("F", true, ["covers type A (IEC 62423)"]),
-            new TypeVerdict("B", true, ["covers type F (IEC 62423)"]),
-            new TypeVerdict("B+", null, ["content above 12.5 kHz cannot be seen at this sample rate"]),
+            new TypeVerdict(DeviceType.AC, false, ["pulsating DC 98 % of windows; type AC is not specified for it (IEC 61008-1)"]),
+            new TypeVerdict(DeviceType.A, true, ["smooth DC 2.30 mA within the 6 mA type A tolerance (IEC 61008-1)"]),
+            new TypeVerdict(DeviceType.F, true, ["covers type A (IEC 62423)"]),
+            new TypeVerdict(DeviceType.B, true, ["covers type F (IEC 62423)"]),
+            new TypeVerdict(DeviceType.BPlus, null, ["content above 12.5 kHz cannot be seen at this sample rate"]),
         ],
-        NuisanceTrip = new NuisanceTripResult(RiskLevel.Low, "A", 0.0068, 0.015, 0.0082, 54.7, 0.009, true,
+        NuisanceTrip = new NuisanceTripResult(RiskLevel.Low, DeviceType.A, 0.0068, 0.015, 0.0082, 54.7, 0.009, true,
             [new FrequencyContribution("mains", 45, 55, 0.005, 1, 0.005), new FrequencyContribution("1-20 kHz", 1000, 20000, 0.0006, double.PositiveInfinity, 0)],
             "standing current 6.80 mA is 45 % of the 15.0 mA non-operating limit"),
-        Blinding = new BlindingResult("A", blinded ? 0.0084 : 0.0023, 0.006, blinded, blinded ? "smooth DC above the 6 mA tolerance of type A" : "smooth DC 2.30 mA within 6 mA"),
+        Blinding = new BlindingResult(DeviceType.A, blinded ? 0.0084 : 0.0023, 0.006, blinded, blinded ? "smooth DC above the 6 mA tolerance of type A" : "smooth DC 2.30 mA within 6 mA"),
         EvCharging = new EvChargingResult(0.006, 0.0023, false, "type A with an RDC-DD (IEC 62955) suffices while DC stays below 6 mA"),
         Gfci = new GfciResult(0.0073, true, 3.1, false, null, ["UL 943 states no DC sensitivity requirement"]),
         TouchCurrent = new TouchCurrentAssessment(

@@ -9,18 +9,12 @@ internal sealed record ClassFinding(ResidualCurrentClass Class, ClassPresence Pr
     string Text)
 {
     public ClassResult ToResult() => new(
-        char.ToLowerInvariant(Class.ToString()[0]) + Class.ToString()[1..],
+        Class,
         Class.Describe(),
-        Presence switch
-        {
-            ClassPresence.Absent => "absent",
-            ClassPresence.AtLimit => "at limit",
-            ClassPresence.Present => "present",
-            _ => "open",
-        },
+        Presence,
         FigureA,
         ThresholdA,
-        Class.LeastType().ToTradeName(),
+        Class.LeastType(),
         Class.CoveredByDcDetection(),
         Text);
 }

@@ -73,11 +73,11 @@ public static class DeviceTypeAssessor
         var pulsatingForWeights = pulsatingSeen && m.PulsatingFlag;
         return new AssessmentResult
         {
-            RequiredType = required?.ToTradeName(),
-            MinimumType = level.ToTradeName(),
+            RequiredType = required,
+            MinimumType = level,
             Headline = Headline(required, level, present, open, m, options.EvChargingPoint, dcReachesRdcDd),
             RatedResidualCurrentA = th.RatedA,
-            InstalledType = options.InstalledType?.ToTradeName(),
+            InstalledType = options.InstalledType,
             InstalledProtection = options.InstalledType is { } it ? ProtectionText(it, dcDetection) : null,
             InstalledAdequate = options.InstalledType is { } installed
                 ? Adequate(installed, dcDetection, present, open, options.EvChargingPoint, dcReachesRdcDd)
@@ -177,13 +177,13 @@ public static class DeviceTypeAssessor
 
         if (against.Count > 0)
         {
-            return new TypeVerdict(t.ToTradeName(), false, against);
+            return new TypeVerdict(t, false, against);
         }
 
         var unknown = open.Where(c => c.Class.LeastType() > t).Select(c => c.Text).ToList();
         if (unknown.Count > 0)
         {
-            return new TypeVerdict(t.ToTradeName(), null, unknown);
+            return new TypeVerdict(t, null, unknown);
         }
 
         var reasons = new List<string>();
@@ -196,7 +196,7 @@ public static class DeviceTypeAssessor
             reasons.Add($"smooth DC {Ma(m.SmoothDcA)} reaches the {Ma(th.TypeBDcA)} (max of {Limits.TypeBSmoothDcToleranceFraction:0.#} IΔn and {Ma(Limits.TypeBSmoothDcToleranceMinA)}) with which type B's tripping on superimposed currents is specified (IEC 62423): see blinding");
         }
 
-        return new TypeVerdict(t.ToTradeName(), true, reasons);
+        return new TypeVerdict(t, true, reasons);
     }
 
     private static string Headline(DeviceType? required, DeviceType level, List<ClassFinding> present,

@@ -66,7 +66,7 @@ internal static class Margins
             + $"leakage budget {th.LeakageBudgetFraction:0.##} IΔn = {Ma(budget)} (IEC 60364-5-53 §531.3.2) {(withinBudget ? "kept" : "exceeded or at its limit")}. "
             + $"Risk {VerdictText.Of(risk)}: likely from {th.LikelyFraction:0.##} IΔn, possible from {th.PossibleFraction:0.##} IΔn (engineering choice), each within the measurement uncertainty ({acc}) counted as reached. "
             + $"A typical type {name} device responds as to {Ma(typical)} (each range weighted by the type's tripping factor, second figure).";
-        return new NuisanceTripResult(risk, name, standing, limit, margin, margin / limit * 100, budget, withinBudget,
+        return new NuisanceTripResult(risk, type, standing, limit, margin, margin / limit * 100, budget, withinBudget,
             parts, explanation, typical);
     }
 
@@ -99,7 +99,7 @@ internal static class Margins
             false => $"Smooth DC {Ma(m.SmoothDcA)} within {limitText} ({source}): no blinding expected.",
             null => $"Smooth DC cannot be determined with this sensor (seen: {Ma(m.SmoothDcA)}); whether it exceeds {limitText} is open. Measure with a DC-coupled clamp.",
         };
-        return new BlindingResult(name, m.SmoothDcA, tolerance, blinded, explanation);
+        return new BlindingResult(type, m.SmoothDcA, tolerance, blinded, explanation);
     }
 
     /// <summary>The 6 mA DC criterion (IEC 62955) and the protection it implies per IEC 60364-7-722.</summary>

@@ -39,13 +39,14 @@ public enum ResidualCurrentClass
     Clipping,
 }
 
-/// <summary>Presence of a class in a capture.</summary>
+/// <summary>Presence of a class in a capture (JSON <c>absent</c>, <c>at limit</c>, <c>present</c>, <c>open</c>).</summary>
 public enum ClassPresence
 {
     /// <summary>Not seen: its figure is below the threshold by more than the measurement uncertainty.</summary>
     Absent,
 
     /// <summary>Its figure is within the measurement uncertainty of the threshold: counted as present (safe side).</summary>
+    [System.Text.Json.Serialization.JsonStringEnumMemberName("at limit")]
     AtLimit,
 
     /// <summary>Seen: its figure reaches the threshold beyond the uncertainty, or a rule states it regardless of figures.</summary>

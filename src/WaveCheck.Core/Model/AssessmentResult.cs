@@ -15,13 +15,13 @@ public sealed record AssessmentResult
     private string FractionText(double amperes) => string.Create(System.Globalization.CultureInfo.InvariantCulture,
         $"{(RatedResidualCurrentA > 0 ? amperes / RatedResidualCurrentA : 0):0.##} IΔn");
 
-    /// <summary>Least capable type that covers the waveform: <c>AC</c>, <c>A</c>, <c>F</c>, <c>B</c>, <c>B+</c>;
-    /// null when it cannot be determined from this capture.</summary>
-    public required string? RequiredType { get; init; }
+    /// <summary>Least capable type that covers the waveform (JSON: the trade name <c>AC</c>, <c>A</c>, <c>F</c>,
+    /// <c>B</c>, <c>B+</c>); null when it cannot be determined from this capture.</summary>
+    public required DeviceType? RequiredType { get; init; }
 
     /// <summary>Lowest type that may be required once what the capture could not show is measured (e.g. with a DC-coupled sensor).
     /// Equals <see cref="RequiredType"/> when everything was determinable.</summary>
-    public required string MinimumType { get; init; }
+    public required DeviceType MinimumType { get; init; }
 
     /// <summary>The one-line deciding reason, for the top of the output.</summary>
     public required string Headline { get; init; }
@@ -29,8 +29,8 @@ public sealed record AssessmentResult
     /// <summary>Rated residual operating current IΔn of the device assessed, amperes.</summary>
     public required double RatedResidualCurrentA { get; init; }
 
-    /// <summary>Installed type as given by <c>--device</c>; null when not given.</summary>
-    public string? InstalledType { get; init; }
+    /// <summary>Installed type as given (<see cref="Assessment.AssessmentOptions.InstalledType"/>); null when not given.</summary>
+    public DeviceType? InstalledType { get; init; }
 
     /// <summary>Installed protection in full: the type and any DC fault detection beside it (<c>A+RDC-DD</c>, or
     /// <c>A + charger DC detection</c>); null when no device was given.</summary>
@@ -80,22 +80,22 @@ public sealed record AssessmentResult
 }
 
 /// <summary>One class of residual current as judged in a capture.</summary>
-/// <param name="Class">Identifier (<c>pulsatingDc</c>, <c>smoothDc</c>, ...).</param>
+/// <param name="Class">The class (JSON <c>pulsatingDc</c>, <c>smoothDc</c>, ...).</param>
 /// <param name="Name">In words.</param>
-/// <param name="Presence"><c>absent</c>, <c>at limit</c> (within the uncertainty: counted as present), <c>present</c>, <c>open</c> (the capture cannot show it).</param>
+/// <param name="Presence">JSON <c>absent</c>, <c>at limit</c> (within the uncertainty: counted as present), <c>present</c>, <c>open</c> (the capture cannot show it).</param>
 /// <param name="FigureA">The measured figure compared, amperes; null for a rule that applies regardless of figures.</param>
 /// <param name="ThresholdA">The threshold it was compared with, amperes; null likewise.</param>
-/// <param name="LeastType">Least type specified to detect the class.</param>
+/// <param name="LeastType">Least type specified to detect the class (JSON: the trade name).</param>
 /// <param name="CoveredByDcDetection">A 6 mA DC detection device beside type A or stronger covers it in place of type B.</param>
 /// <param name="Text">The finding with its figure, limit and source.</param>
-public sealed record ClassResult(string Class, string Name, string Presence, double? FigureA, double? ThresholdA,
-    string LeastType, bool CoveredByDcDetection, string Text);
+public sealed record ClassResult(Assessment.ResidualCurrentClass Class, string Name, Assessment.ClassPresence Presence,
+    double? FigureA, double? ThresholdA, DeviceType LeastType, bool CoveredByDcDetection, string Text);
 
 /// <summary>One type's verdict.</summary>
-/// <param name="Type">Trade name.</param>
+/// <param name="Type">The type (JSON: the trade name).</param>
 /// <param name="Suitable">True suitable, false not suitable, null cannot be determined.</param>
 /// <param name="Reasons">Each quotes the measured figure, the limit and its source.</param>
-public sealed record TypeVerdict(string Type, bool? Suitable, IReadOnlyList<string> Reasons);
+public sealed record TypeVerdict(DeviceType Type, bool? Suitable, IReadOnlyList<string> Reasons);
 
 /// <summary>A threshold as applied.</summary>
 /// <param name="Name">Its name in docs/methods.md (e.g. <c>dcSignificanceA</c>).</param>
@@ -116,7 +116,7 @@ public sealed record ThresholdUse(string Name, double Value, string Unit, string
 /// <param name="Contributions">Per frequency range: measured RMS, the type's tripping factor, weighted RMS.</param>
 /// <param name="Explanation">For a person.</param>
 /// <param name="TypicalStandingA">Second figure: the standing current as a typical device of the type responds to it (each range weighted by its tripping factor), amperes.</param>
-public sealed record NuisanceTripResult(RiskLevel Risk, string DeviceType, double StandingA, double NonOperatingLimitA,
+public sealed record NuisanceTripResult(RiskLevel Risk, DeviceType DeviceType, double StandingA, double NonOperatingLimitA,
     double MarginA, double MarginPercent, double LeakageBudgetA, bool WithinLeakageBudget,
     IReadOnlyList<FrequencyContribution> Contributions, string Explanation, double TypicalStandingA = 0);
 
@@ -136,7 +136,7 @@ public sealed record FrequencyContribution(string Label, double LowHz, double Hi
 /// <param name="ToleranceA">What the type is specified to work with (6 mA A, 10 mA F; B: max of 0.4 IΔn and 10 mA), amperes; null for AC (none).</param>
 /// <param name="Blinded">True: the DC exceeds the tolerance; null: DC not determinable with this sensor.</param>
 /// <param name="Explanation">For a person.</param>
-public sealed record BlindingResult(string DeviceType, double SmoothDcA, double? ToleranceA, bool? Blinded, string Explanation);
+public sealed record BlindingResult(DeviceType DeviceType, double SmoothDcA, double? ToleranceA, bool? Blinded, string Explanation);
 
 /// <summary>EV charging point guidance.</summary>
 /// <param name="RdcDdThresholdA">6 mA smooth DC (IEC 62955), amperes.</param>

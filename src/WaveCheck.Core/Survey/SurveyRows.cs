@@ -18,7 +18,7 @@ public static class SurveyRows
         ArgumentNullException.ThrowIfNull(analysis);
         ArgumentNullException.ThrowIfNull(assessment);
         // The protection in full (A+RDC-DD): at a charging point a plain A and an A with DC detection differ in verdict.
-        var installed = assessment.InstalledProtection ?? assessment.InstalledType ?? settings.InstalledType?.ToTradeName();
+        var installed = assessment.InstalledProtection ?? (assessment.InstalledType ?? settings.InstalledType)?.ToTradeName();
         var worstRms = analysis.Windows.Statistics.TryGetValue("rmsA", out var rms) ? rms.Max : analysis.Summary.RmsA;
         return new SurveyRow
         {
@@ -26,8 +26,8 @@ public static class SurveyRows
             Circuit = settings.Circuit,
             InstalledType = installed,
             RatedResidualCurrentA = assessment.RatedResidualCurrentA,
-            RequiredType = DeviceTypeNames.TryParse(assessment.RequiredType, out var required) ? required : null,
-            MinimumType = DeviceTypeNames.TryParse(assessment.MinimumType, out var minimum) ? minimum : null,
+            RequiredType = assessment.RequiredType,
+            MinimumType = assessment.MinimumType,
             Verdict = SurveyRow.VerdictOf(installed, assessment.InstalledAdequate),
             RmsA = analysis.Summary.RmsA,
             WorstWindowRmsA = worstRms,

@@ -52,7 +52,7 @@ public static class TrendPlot
         DeviceLines.Add(model, assessment, mirrored: false);
         if (assessment?.Blinding.ToleranceA is double toleranceA)
         {
-            DeviceLines.Line(model, toleranceA, $"type {assessment.Blinding.DeviceType} smooth-DC tolerance {CurrentText.WithUnit(toleranceA)}",
+            DeviceLines.Line(model, toleranceA, $"type {assessment.Blinding.DeviceType.ToTradeName()} smooth-DC tolerance {CurrentText.WithUnit(toleranceA)}",
                 PlotStyle.BluishGreen, LineStyle.LongDash, mirrored: false);
         }
 

@@ -144,28 +144,28 @@ public static class ReportWriter
         html.Raw("<section id=\"verdict\">\n<h2>Verdict</h2>\n<div class=\"verdict\">\n<p class=\"required\">");
         if (a.RequiredType is { } required)
         {
-            html.Text($"Required RCD type: {required}");
+            html.Text($"Required RCD type: {required.ToTradeName()}");
         }
         else
         {
-            html.Text($"Required RCD type: cannot be determined from this capture (at least type {a.MinimumType})");
+            html.Text($"Required RCD type: cannot be determined from this capture (at least type {a.MinimumType.ToTradeName()})");
         }
 
         html.Raw("</p>\n<p class=\"headline\">").Text(a.Headline).Raw("</p>\n");
-        if (a.AcceptedProtection is { } accepted && accepted != $"type {a.RequiredType}")
+        if (a.AcceptedProtection is { } accepted && accepted != $"type {a.RequiredType?.ToTradeName()}")
         {
             html.Raw("<p>").Text($"Accepted protection: {accepted}.").Raw("</p>\n");
         }
         if (a.InstalledType is { } installed)
         {
-            html.Raw("<p><strong>").Text($"Installed {a.InstalledProtection ?? "type " + installed}: {AdequacyText(a.InstalledAdequate)}").Raw("</strong></p>\n");
+            html.Raw("<p><strong>").Text($"Installed {a.InstalledProtection ?? "type " + installed.ToTradeName()}: {AdequacyText(a.InstalledAdequate)}").Raw("</strong></p>\n");
         }
 
         html.Raw("<p class=\"muted\">").Text($"Rated residual operating current assessed: IΔn = {CurrentText.WithUnit(a.RatedResidualCurrentA)}; rules: {RegimeText(a.Regime)}.").Raw("</p>\n");
         html.Raw("</div>\n");
         if (a.Blinding.Blinded == true)
         {
-            html.Raw("<div class=\"alert\">").Text($"Blinding: the smooth DC of {CurrentText.WithUnit(a.Blinding.SmoothDcA)} exceeds what a type {a.Blinding.DeviceType} device is specified to work with ({Current(a.Blinding.ToleranceA)}). It may fail to trip on a real earth fault.").Raw("</div>\n");
+            html.Raw("<div class=\"alert\">").Text($"Blinding: the smooth DC of {CurrentText.WithUnit(a.Blinding.SmoothDcA)} exceeds what a type {a.Blinding.DeviceType.ToTradeName()} device is specified to work with ({Current(a.Blinding.ToleranceA)}). It may fail to trip on a real earth fault.").Raw("</div>\n");
         }
 
         html.Raw("</section>\n");
@@ -184,10 +184,10 @@ public static class ReportWriter
             .Raw("</p>\n<table class=\"wide\">\n<thead><tr><th>Class</th><th>Found</th><th class=\"num\">Figure</th><th class=\"num\">Threshold</th><th>Least type</th><th>Evidence</th></tr></thead>\n<tbody>\n");
         foreach (var c in a.Classes)
         {
-            html.Raw("<tr><td>").Text(c.Name).Raw("</td><td>").Text(c.Presence).Raw("</td><td class=\"num\">")
+            html.Raw("<tr><td>").Text(c.Name).Raw("</td><td>").Text(VerdictText.Of(c.Presence)).Raw("</td><td class=\"num\">")
                 .Text(c.FigureA is { } f ? CurrentText.WithUnit(f) : "rule").Raw("</td><td class=\"num\">")
                 .Text(c.ThresholdA is { } t ? CurrentText.WithUnit(t) : "–").Raw("</td><td>")
-                .Text(c.CoveredByDcDetection ? $"{c.LeastType} (or A + 6 mA DC detection)" : c.LeastType).Raw("</td><td>")
+                .Text(c.CoveredByDcDetection ? $"{c.LeastType.ToTradeName()} (or A + 6 mA DC detection)" : c.LeastType.ToTradeName()).Raw("</td><td>")
                 .Text(c.Text).Raw("</td></tr>\n");
         }
 
@@ -199,7 +199,7 @@ public static class ReportWriter
         html.Raw("<section id=\"types\">\n<h2>Each device type</h2>\n<table class=\"wide\">\n<thead><tr><th>Type</th><th>Verdict</th><th>Evidence</th></tr></thead>\n<tbody>\n");
         foreach (var type in a.Types)
         {
-            html.Raw("<tr><td><strong>").Text(type.Type).Raw("</strong></td><td class=\"verdict-cell\">").Text(SuitabilityText(type.Suitable)).Raw("</td><td>");
+            html.Raw("<tr><td><strong>").Text(type.Type.ToTradeName()).Raw("</strong></td><td class=\"verdict-cell\">").Text(SuitabilityText(type.Suitable)).Raw("</td><td>");
             List(html, type.Reasons, "reasons");
             html.Raw("</td></tr>\n");
         }
@@ -210,7 +210,7 @@ public static class ReportWriter
     private static void DeviceMargins(HtmlWriter html, AnalysisResult analysis, AssessmentResult a)
     {
         var trip = a.NuisanceTrip;
-        html.Raw("<section id=\"device\">\n<h2>").Text($"Margins for a type {trip.DeviceType} device, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}").Raw("</h2>\n");
+        html.Raw("<section id=\"device\">\n<h2>").Text($"Margins for a type {trip.DeviceType.ToTradeName()} device, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}").Raw("</h2>\n");
         html.Raw("<h3>Nuisance tripping</h3>\n<table><tbody>\n");
         Row(html, "Risk", RiskText(trip.Risk));
         Row(html, "Standing residual current (unweighted, each range's worst window)", CurrentText.WithUnit(trip.StandingA));
@@ -239,7 +239,7 @@ public static class ReportWriter
         var blinding = a.Blinding;
         html.Raw("<h3>Smooth-DC blinding</h3>\n<table><tbody>\n");
         Row(html, "Smooth DC (worst window)", CurrentText.WithUnit(blinding.SmoothDcA));
-        Row(html, $"Type {blinding.DeviceType} tolerance", blinding.ToleranceA is double t ? CurrentText.WithUnit(t) : "none specified");
+        Row(html, $"Type {blinding.DeviceType.ToTradeName()} tolerance", blinding.ToleranceA is double t ? CurrentText.WithUnit(t) : "none specified");
         Row(html, "Blinded", blinding.Blinded switch { true => "✘ yes: may not trip on a fault", false => "✔ no", null => "? cannot be determined with this sensor" });
         html.Raw("</tbody></table>\n<p>").Text(blinding.Explanation).Raw("</p>\n");
 

@@ -17,16 +17,16 @@ public class DeviceTypeAssessorTests
     private static AssessmentResult Assess(AnalysisBuilder b, AssessmentOptions? o = null) =>
         DeviceTypeAssessor.Assess(b.Build(), o ?? Defaults);
 
-    private static bool? Suitable(AssessmentResult r, string type) => r.Types.Single(t => t.Type == type).Suitable;
+    private static bool? Suitable(AssessmentResult r, DeviceType type) => r.Types.Single(t => t.Type == type).Suitable;
 
     private static void AssertVerdicts(AssessmentResult r, bool? ac, bool? a, bool? f, bool? b, bool? bPlus)
     {
-        Assert.Equal(["AC", "A", "F", "B", "B+"], r.Types.Select(t => t.Type));
-        Assert.Equal(ac, Suitable(r, "AC"));
-        Assert.Equal(a, Suitable(r, "A"));
-        Assert.Equal(f, Suitable(r, "F"));
-        Assert.Equal(b, Suitable(r, "B"));
-        Assert.Equal(bPlus, Suitable(r, "B+"));
+        Assert.Equal([DeviceType.AC, DeviceType.A, DeviceType.F, DeviceType.B, DeviceType.BPlus], r.Types.Select(t => t.Type));
+        Assert.Equal(ac, Suitable(r, DeviceType.AC));
+        Assert.Equal(a, Suitable(r, DeviceType.A));
+        Assert.Equal(f, Suitable(r, DeviceType.F));
+        Assert.Equal(b, Suitable(r, DeviceType.B));
+        Assert.Equal(bPlus, Suitable(r, DeviceType.BPlus));
         Assert.All(r.Types, t => Assert.NotEmpty(t.Reasons));
     }
 
@@ -35,8 +35,8 @@ public class DeviceTypeAssessorTests
     {
         // IEC 61008-1: type AC detects sinusoidal AC residual current.
         var r = Assess(new AnalysisBuilder().Sine(0.010));
-        Assert.Equal("AC", r.RequiredType);
-        Assert.Equal("AC", r.MinimumType);
+        Assert.Equal(DeviceType.AC, r.RequiredType);
+        Assert.Equal(DeviceType.AC, r.MinimumType);
         AssertVerdicts(r, true, true, true, true, true);
         Assert.StartsWith("Type AC sufficient", r.Headline);
     }
@@ -50,7 +50,7 @@ public class DeviceTypeAssessorTests
         // IEC 61008-1: type A detects pulsating DC (half-wave at 0°, 90°, 135°); AC does not.
         var b = new AnalysisBuilder().HalfWave(0.020, angleDeg);
         var r = Assess(b);
-        Assert.Equal("A", r.RequiredType);
+        Assert.Equal(DeviceType.A, r.RequiredType);
         AssertVerdicts(r, false, true, true, true, true);
         Assert.Contains("pulsating DC", r.Types[0].Reasons[0]);
         Assert.Contains("pulsating DC", r.Headline);
@@ -64,22 +64,22 @@ public class DeviceTypeAssessorTests
         var analysis = new AnalysisBuilder().HalfWave(0.020, 135).Build();
         Assert.True(analysis.Components.Above1kHzRmsA > 0.10 * analysis.Summary.RmsA, "premise: edge content is above the 10 % significance");
         var r = DeviceTypeAssessor.Assess(analysis, Defaults);
-        Assert.Equal("A", r.RequiredType);
+        Assert.Equal(DeviceType.A, r.RequiredType);
 
         // Real switching content on top of the same dimmer is still seen.
         var withSwitching = DeviceTypeAssessor.Assess(new AnalysisBuilder().HalfWave(0.020, 135).HighFrequency(16_000, 0.004).Build(), Defaults);
-        Assert.Equal("B+", withSwitching.RequiredType);
+        Assert.Equal(DeviceType.BPlus, withSwitching.RequiredType);
     }
 
     [Theory]
     // IEC 61008-1: A works with 6 mA smooth DC; IEC 62423: F with 10 mA. That is tolerance, not fitness: a circuit
     // producing smooth DC needs type B at any significant level (REFERENCE.md; IEC 60364-5-53 §531.3.3).
-    [InlineData(0.004, "B")]
-    [InlineData(0.008, "B")]
-    [InlineData(0.014, "B")]
-    [InlineData(-0.014, "B")] // type B: smooth DC of either polarity
-    [InlineData(0.0005, "A")] // below the 1 mA significance (engineering choice): pulsating DC alone
-    public void HalfWaveOnSmoothDcNeedsTypeBAtAnySignificantLevel(double smoothDcA, string expected)
+    [InlineData(0.004, DeviceType.B)]
+    [InlineData(0.008, DeviceType.B)]
+    [InlineData(0.014, DeviceType.B)]
+    [InlineData(-0.014, DeviceType.B)] // type B: smooth DC of either polarity
+    [InlineData(0.0005, DeviceType.A)] // below the 1 mA significance (engineering choice): pulsating DC alone
+    public void HalfWaveOnSmoothDcNeedsTypeBAtAnySignificantLevel(double smoothDcA, DeviceType expected)
     {
         var r = Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(smoothDcA));
         Assert.Equal(expected, r.RequiredType);
@@ -108,11 +108,11 @@ public class DeviceTypeAssessorTests
         // IEC 62423 composite test current: 10 Hz (motor) + 50 Hz (rated) + 1 kHz (switching) components.
         var b = new AnalysisBuilder().Sine(0.010).BelowMains(0.003).Harmonic(20, 0.003);
         var r = Assess(b);
-        Assert.Equal("F", r.RequiredType);
+        Assert.Equal(DeviceType.F, r.RequiredType);
         AssertVerdicts(r, false, false, true, true, true);
         Assert.Contains(r.Types[1].Reasons, t => t.Contains("composite current", StringComparison.Ordinal));
         // Sub-mains content alone (no 1 kHz part) is the same class.
-        Assert.Equal("F", Assess(new AnalysisBuilder().Sine(0.010).BelowMains(0.003)).RequiredType);
+        Assert.Equal(DeviceType.F, Assess(new AnalysisBuilder().Sine(0.010).BelowMains(0.003)).RequiredType);
     }
 
     [Fact]
@@ -120,7 +120,7 @@ public class DeviceTypeAssessorTests
     {
         // A 70 Hz motor frequency is not a 50 Hz harmonic: a converter's signature (IEC 62423 composite current).
         var r = Assess(new AnalysisBuilder().Sine(0.010).Tone(70, 0.004));
-        Assert.Equal("F", r.RequiredType);
+        Assert.Equal(DeviceType.F, r.RequiredType);
     }
 
     [Fact]
@@ -129,11 +129,11 @@ public class DeviceTypeAssessorTests
         // Three-phase bridge: smooth DC with 300 Hz ripple (harmonic 6 at 50 Hz), no fundamental (IEC 60364-5-53
         // guidance). The DC alone (5 mA) is within type F's 10 mA: the ripple signature decides.
         var r = Assess(new AnalysisBuilder().SmoothDc(0.005).Harmonic(6, 0.002).Sine(0.0002));
-        Assert.Equal("B", r.RequiredType);
+        Assert.Equal(DeviceType.B, r.RequiredType);
         Assert.Contains("rectified current from", r.Headline);
 
         var large = Assess(new AnalysisBuilder().SmoothDc(0.020).Harmonic(6, 0.002));
-        Assert.Equal("B", large.RequiredType);
+        Assert.Equal(DeviceType.B, large.RequiredType);
     }
 
     [Fact]
@@ -143,10 +143,10 @@ public class DeviceTypeAssessorTests
         // carries 0.36 mA at 300 Hz. A filter's 2 mA mains leakage beside it must not hide the signature, and 9 mA is
         // within type F's 10 mA tolerance (IEC 62423): only the ripple says type B.
         var r = Assess(new AnalysisBuilder().SmoothDc(0.009).Harmonic(6, 0.009 * 0.0404).Sine(0.002));
-        Assert.Equal("B", r.RequiredType);
+        Assert.Equal(DeviceType.B, r.RequiredType);
 
         // Without the ripple the same DC is still the circuit's own smooth DC: type B, not type F's tolerance.
-        Assert.Equal("B", Assess(new AnalysisBuilder().SmoothDc(0.009).Sine(0.002)).RequiredType);
+        Assert.Equal(DeviceType.B, Assess(new AnalysisBuilder().SmoothDc(0.009).Sine(0.002)).RequiredType);
     }
 
     [Fact]
@@ -155,9 +155,9 @@ public class DeviceTypeAssessorTests
         // IEC 60364-7-722 (REFERENCE.md, installation rules): DC ≥ 6 mA at a charging point: type B, or type A with an
         // RDC-DD; type F is not a choice there even though it tolerates 10 mA (IEC 62423).
         var builder = new AnalysisBuilder().SmoothDc(0.008).Sine(0.002);
-        Assert.Equal("B", Assess(builder).RequiredType);
+        Assert.Equal(DeviceType.B, Assess(builder).RequiredType);
         var ev = DeviceTypeAssessor.Assess(builder.Build(), new AssessmentOptions { EvChargingPoint = true });
-        Assert.Equal("B", ev.RequiredType);
+        Assert.Equal(DeviceType.B, ev.RequiredType);
         // At 8 mA an RDC-DD would disconnect (IEC 62955): type B only.
         Assert.Equal("type B", ev.AcceptedProtection);
         Assert.Contains("fit type B", ev.EvCharging.Recommendation);
@@ -168,7 +168,7 @@ public class DeviceTypeAssessorTests
     {
         // IEC 62423: type B adds sinusoidal AC up to 1 kHz; 400 Hz (order 8) dominates, no sub-mains part.
         var r = Assess(new AnalysisBuilder().Sine(0.001).Harmonic(8, 0.008));
-        Assert.Equal("B", r.RequiredType);
+        Assert.Equal(DeviceType.B, r.RequiredType);
     }
 
     [Fact]
@@ -176,7 +176,7 @@ public class DeviceTypeAssessorTests
     {
         // 20 % third harmonic of a 10 mA leakage, 2 mA: below max(1 mA, 0.1 IΔn) = 3 mA (engineering choice, Limits).
         var r = Assess(new AnalysisBuilder().Sine(0.010).Harmonic(3, 0.002));
-        Assert.Equal("AC", r.RequiredType);
+        Assert.Equal(DeviceType.AC, r.RequiredType);
     }
 
     [Fact]
@@ -185,7 +185,7 @@ public class DeviceTypeAssessorTests
         // DIN VDE 0664-400: B+ tripping defined up to 20 kHz; type B only to 1 kHz (IEC 62423).
         var b = new AnalysisBuilder().Sine(0.005).BelowMains(0.002).HighFrequency(16_000, 0.003);
         var r = Assess(b);
-        Assert.Equal("B+", r.RequiredType);
+        Assert.Equal(DeviceType.BPlus, r.RequiredType);
         AssertVerdicts(r, false, false, false, false, true);
         Assert.Contains("type B's tripping is defined only up to 1 kHz", r.Headline);
     }
@@ -196,7 +196,7 @@ public class DeviceTypeAssessorTests
         var r = Assess(new AnalysisBuilder().Sine(0.010).Coupling(SensorCoupling.Ac));
         AssertVerdicts(r, null, null, null, true, true);
         Assert.Null(r.RequiredType);
-        Assert.Equal("AC", r.MinimumType);
+        Assert.Equal(DeviceType.AC, r.MinimumType);
         Assert.Contains(r.Cautions, c => c.Contains("DC-coupled clamp"));
         Assert.Null(r.Blinding.Blinded);
         Assert.Null(r.EvCharging.DcAboveRdcDdThreshold);
@@ -209,7 +209,7 @@ public class DeviceTypeAssessorTests
         // Composite current is seen through any sensor: AC and A are out, F stays open on DC.
         var r = Assess(new AnalysisBuilder().Sine(0.010).BelowMains(0.003).Coupling(SensorCoupling.Ac));
         AssertVerdicts(r, false, false, null, true, true);
-        Assert.Equal("F", r.MinimumType);
+        Assert.Equal(DeviceType.F, r.MinimumType);
         Assert.Null(r.RequiredType);
     }
 
@@ -217,7 +217,7 @@ public class DeviceTypeAssessorTests
     public void UnknownCouplingThatShowsDcIsJudgedOnIt()
     {
         var r = Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.014).Coupling(SensorCoupling.Unknown));
-        Assert.Equal("B", r.RequiredType);
+        Assert.Equal(DeviceType.B, r.RequiredType);
 
         var open = Assess(new AnalysisBuilder().Sine(0.010).Coupling(SensorCoupling.Unknown));
         Assert.Null(open.RequiredType);
@@ -230,9 +230,9 @@ public class DeviceTypeAssessorTests
         // Nyquist: 20 kS/s shows only 10 kHz, not the 20 kHz B+ is defined to.
         var r = Assess(new AnalysisBuilder().Sine(0.010).SampleRate(20_000));
         Assert.Null(r.RequiredType);
-        Assert.Equal("AC", r.MinimumType);
-        Assert.Null(Suitable(r, "B"));
-        Assert.True(Suitable(r, "B+"));
+        Assert.Equal(DeviceType.AC, r.MinimumType);
+        Assert.Null(Suitable(r, DeviceType.B));
+        Assert.True(Suitable(r, DeviceType.BPlus));
         Assert.Contains("at least type AC", r.Headline);
         Assert.Contains("shows content only up to 10 kHz", r.Headline);
         Assert.Contains(r.NuisanceTrip.Contributions, p => p.Label == "1-10 kHz" && p.HighHz == 10_000);
@@ -240,11 +240,11 @@ public class DeviceTypeAssessorTests
 
         var dc = Assess(new AnalysisBuilder().SmoothDc(0.014).Sine(0.005).SampleRate(20_000));
         Assert.Null(dc.RequiredType);
-        Assert.Equal("B", dc.MinimumType);
-        Assert.Null(Suitable(dc, "B"));
+        Assert.Equal(DeviceType.B, dc.MinimumType);
+        Assert.Null(Suitable(dc, DeviceType.B));
 
         var all = Assess(new AnalysisBuilder().Sine(0.005).HighFrequency(5_000, 0.003).SampleRate(20_000));
-        Assert.Equal("B+", all.RequiredType);
+        Assert.Equal(DeviceType.BPlus, all.RequiredType);
     }
 
     [Fact]
@@ -252,9 +252,9 @@ public class DeviceTypeAssessorTests
     {
         // 1.5 mA smooth DC on a 10 mA sine: default significance 1 mA (engineering choice) -> present, type B.
         var b = new AnalysisBuilder().Sine(0.010).SmoothDc(0.0015);
-        Assert.Equal("B", Assess(b).RequiredType);
+        Assert.Equal(DeviceType.B, Assess(b).RequiredType);
         var r = Assess(b, new AssessmentOptions { DcThresholdA = 0.002 });
-        Assert.Equal("AC", r.RequiredType);
+        Assert.Equal(DeviceType.AC, r.RequiredType);
         Assert.Contains(r.Thresholds, t => t.Name == "dcSignificanceA" && t.Value == 0.002 && t.Source.EndsWith("(overridden)"));
     }
 
@@ -263,8 +263,8 @@ public class DeviceTypeAssessorTests
     {
         // Finding: a threshold scaled by the RMS let a larger sine hide 3 mA of DC. The threshold is now fixed
         // (engineering choice, Limits.DcSignificanceA): 3 mA of DC is type B on a 10 mA or a 100 mA sine alike.
-        Assert.Equal("B", Assess(new AnalysisBuilder().Sine(0.100).SmoothDc(0.003)).RequiredType);
-        Assert.Equal("B", Assess(new AnalysisBuilder().Sine(0.010).SmoothDc(0.003)).RequiredType);
+        Assert.Equal(DeviceType.B, Assess(new AnalysisBuilder().Sine(0.100).SmoothDc(0.003)).RequiredType);
+        Assert.Equal(DeviceType.B, Assess(new AnalysisBuilder().Sine(0.010).SmoothDc(0.003)).RequiredType);
     }
 
     [Fact]
@@ -283,7 +283,7 @@ public class DeviceTypeAssessorTests
     {
         // Tolerances move the blinding of an installed device, not the required type (tolerance is not fitness).
         var nearA = new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.0055);
-        Assert.Equal("B", Assess(nearA).RequiredType);
+        Assert.Equal(DeviceType.B, Assess(nearA).RequiredType);
         // 5.5 mA ± (2 % + 0.1 mA) = ± 0.21 mA stays below type A's 6 mA (IEC 61008-1): not blinded; below a 5 mA
         // tolerance it is; with a tolerance of 6.5 mA it is not.
         Assert.False(Assess(nearA, new AssessmentOptions { InstalledType = DeviceType.A }).Blinding.Blinded);
@@ -291,27 +291,27 @@ public class DeviceTypeAssessorTests
         Assert.False(Assess(nearA, new AssessmentOptions { InstalledType = DeviceType.A, TypeASmoothDcToleranceA = 0.0065 }).Blinding.Blinded);
 
         var hf = new AnalysisBuilder().Sine(0.005).BelowMains(0.002).HighFrequency(16_000, 0.003);
-        Assert.Equal("B+", Assess(hf).RequiredType);
-        Assert.Equal("F", Assess(hf, new AssessmentOptions { HighFrequencyThresholdA = 0.005 }).RequiredType);
+        Assert.Equal(DeviceType.BPlus, Assess(hf).RequiredType);
+        Assert.Equal(DeviceType.F, Assess(hf, new AssessmentOptions { HighFrequencyThresholdA = 0.005 }).RequiredType);
 
         var composite = new AnalysisBuilder().Sine(0.010).BelowMains(0.003);
-        Assert.Equal("AC", Assess(composite, new AssessmentOptions { BelowMainsThresholdA = 0.004 }).RequiredType);
+        Assert.Equal(DeviceType.AC, Assess(composite, new AssessmentOptions { BelowMainsThresholdA = 0.004 }).RequiredType);
 
         var harmonic = new AnalysisBuilder().Sine(0.010).Harmonic(3, 0.002);
-        Assert.Equal("B", Assess(harmonic, new AssessmentOptions { HarmonicThresholdA = 0.0015 }).RequiredType);
+        Assert.Equal(DeviceType.B, Assess(harmonic, new AssessmentOptions { HarmonicThresholdA = 0.0015 }).RequiredType);
     }
 
     [Fact]
     public void InstalledTypeABlindedByDcIsStatedFirst()
     {
         var r = Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.014), new AssessmentOptions { InstalledType = DeviceType.A });
-        Assert.Equal("A", r.InstalledType);
+        Assert.Equal(DeviceType.A, r.InstalledType);
         Assert.False(r.InstalledAdequate);
         Assert.True(r.Blinding.Blinded);
         Assert.Equal(0.006, r.Blinding.ToleranceA);
         Assert.Contains("MAY NOT TRIP ON A REAL FAULT", r.Blinding.Explanation);
         Assert.StartsWith("WARNING", r.Cautions[0]);
-        Assert.Equal("A", r.NuisanceTrip.DeviceType);
+        Assert.Equal(DeviceType.A, r.NuisanceTrip.DeviceType);
     }
 
     [Fact]
@@ -375,15 +375,15 @@ public class DeviceTypeAssessorTests
         // capture is a clean sine; and type A is enough only with an RDC-DD, which the cautions must say beside the
         // headline.
         var sine = Assess(new AnalysisBuilder().Sine(0.005), new AssessmentOptions { EvChargingPoint = true });
-        Assert.Equal("B", sine.RequiredType);
+        Assert.Equal(DeviceType.B, sine.RequiredType);
         Assert.Contains("IEC 60364-7-722", sine.Headline);
         Assert.Contains("or type A with 6 mA DC fault detection", sine.Headline);
         Assert.Equal(false, sine.Types[0].Suitable);
         Assert.Contains(sine.Cautions, c => c.Contains("type B, or type A with a 6.00 mA DC detection device"));
         var declared = Assess(new AnalysisBuilder().Sine(0.005), new AssessmentOptions { EvChargingPoint = true, ChargerDcDetection = true });
-        Assert.Equal("A", declared.RequiredType);
+        Assert.Equal(DeviceType.A, declared.RequiredType);
         Assert.Equal(false, declared.Types[0].Suitable);
-        Assert.Equal("AC", Assess(new AnalysisBuilder().Sine(0.005)).RequiredType);
+        Assert.Equal(DeviceType.AC, Assess(new AnalysisBuilder().Sine(0.005)).RequiredType);
     }
 
     [Fact]
@@ -480,7 +480,7 @@ public class DeviceTypeAssessorTests
         var r = Assess(new AnalysisBuilder().HalfWave(0.020, 90), new AssessmentOptions { InstalledType = installed, InstalledRdcDd = rdcDd });
         Assert.Equal(adequate, r.InstalledAdequate);
         Assert.Equal(installed.ToTradeName() + (rdcDd ? "+RDC-DD" : ""), r.InstalledProtection);
-        Assert.Equal(installed.ToTradeName(), r.InstalledType);
+        Assert.Equal(installed, r.InstalledType);
     }
 
     [Fact]
@@ -601,7 +601,7 @@ public class DeviceTypeAssessorTests
             Assess(new AnalysisBuilder().SampleRate(30_000).Sine(0.005)).Cautions);
         // Exactly 40 kS/s shows 20 kHz: covered, no caution, no open class.
         var at40 = Assess(new AnalysisBuilder().SampleRate(40_000).Sine(0.005));
-        Assert.Equal("AC", at40.RequiredType);
+        Assert.Equal(DeviceType.AC, at40.RequiredType);
         Assert.DoesNotContain(at40.Cautions, c => c.Contains("sample rate", StringComparison.Ordinal));
         // Content above 20 kHz at the threshold (3 mA on 30 mA): a caution, no type defined there.
         Assert.Contains($"Content above 20 kHz ({Ma(0.003)}): no RCD type's tripping is defined there; ask the equipment's maker about its leakage and the device to use.",
@@ -646,9 +646,9 @@ public class DeviceTypeAssessorTests
             return a with { Components = a.Components with { PulsatingDcShare = share } };
         }
 
-        Assert.Equal("A", DeviceTypeAssessor.Assess(Share(0.001), Defaults).RequiredType);
-        Assert.Equal("A", DeviceTypeAssessor.Assess(Share(0.31), new AssessmentOptions { PulsatingShareThreshold = 0.3 }).RequiredType);
-        Assert.NotEqual("A", DeviceTypeAssessor.Assess(Share(0.3), new AssessmentOptions { PulsatingShareThreshold = 0.3 }).RequiredType);
+        Assert.Equal(DeviceType.A, DeviceTypeAssessor.Assess(Share(0.001), Defaults).RequiredType);
+        Assert.Equal(DeviceType.A, DeviceTypeAssessor.Assess(Share(0.31), new AssessmentOptions { PulsatingShareThreshold = 0.3 }).RequiredType);
+        Assert.NotEqual(DeviceType.A, DeviceTypeAssessor.Assess(Share(0.3), new AssessmentOptions { PulsatingShareThreshold = 0.3 }).RequiredType);
     }
 
     [Fact]
@@ -659,7 +659,7 @@ public class DeviceTypeAssessorTests
         Assert.Equal(Regime.Iec, r.Regime);
         Assert.Equal(0.1, r.RatedResidualCurrentA);
         Assert.Contains(r.Thresholds, t => t.Name == "rdcDdThresholdA" && t.Value == 0.006);
-        Assert.Equal("AC", r.MinimumType);
+        Assert.Equal(DeviceType.AC, r.MinimumType);
     }
 
     [Fact]
@@ -675,14 +675,14 @@ public class DeviceTypeAssessorTests
         // No pulsating DC, smooth DC 5 mA seen: the sensor shows DC, so it is taken as DC-coupled (said so) and the
         // DC decides type B (IEC 62423).
         var r = Assess(new AnalysisBuilder().Coupling(SensorCoupling.Unknown).Sine(0.005).SmoothDc(0.005));
-        Assert.Equal("B", r.RequiredType);
+        Assert.Equal(DeviceType.B, r.RequiredType);
         Assert.False(r.Blinding.Blinded is null);
         // A DC that averages out over the capture (windows of either sign) with no pulsating window is no sign of a
         // current transformer: the AC-coupling signature needs pulses on a floor.
         var a = new AnalysisBuilder().Coupling(SensorCoupling.Unknown).Sine(0.005).SmoothDc(0.005).Build();
         a = a with { Summary = a.Summary with { DcA = 0 } };
         var zeroMean = DeviceTypeAssessor.Assess(a, Defaults);
-        Assert.Equal("B", zeroMean.RequiredType);
+        Assert.Equal(DeviceType.B, zeroMean.RequiredType);
         Assert.DoesNotContain(zeroMean.Cautions, c => c.Contains("signature of an AC-coupled sensor", StringComparison.Ordinal));
     }
 
@@ -692,7 +692,7 @@ public class DeviceTypeAssessorTests
         // AC-coupled sensor (smooth DC open, type B) at 25 kS/s (1-20 kHz open, B+), with harmonics that need type B:
         // the level is B, and B+ stays open, so no required type; the headline gives the reason above B.
         var r = Assess(new AnalysisBuilder().Coupling(SensorCoupling.Ac).SampleRate(25_000).Sine(0.005).Harmonic(5, 0.005));
-        Assert.Equal("B", r.MinimumType);
+        Assert.Equal(DeviceType.B, r.MinimumType);
         Assert.Null(r.RequiredType);
         Assert.StartsWith("Required type cannot be determined from this capture: at least type B; whether content between 1 and 20 kHz needs B+ cannot be determined", r.Headline, StringComparison.Ordinal);
     }
@@ -725,8 +725,8 @@ public class DeviceTypeAssessorTests
         // 4 mA at 8 kHz seen at 25 kS/s: the high-frequency class is present (DIN VDE 0664-400: B+ to 20 kHz), so
         // B+ is required, and nothing above it is left open.
         var r = Assess(new AnalysisBuilder().SampleRate(25_000).Sine(0.005).HighFrequency(8000, 0.004));
-        Assert.Equal("B+", r.RequiredType);
-        Assert.Equal("Type B+ required: " + r.Classes.Single(c => c.Class == "highFrequency").Text, r.Headline);
+        Assert.Equal(DeviceType.BPlus, r.RequiredType);
+        Assert.Equal("Type B+ required: " + r.Classes.Single(c => c.Class == ResidualCurrentClass.HighFrequency).Text, r.Headline);
     }
 }
 

@@ -93,8 +93,8 @@ public class MarginsTests
     public void RequiredTypeIsAssessedWhenNoneInstalled()
     {
         var r = DeviceTypeAssessor.Assess(new AnalysisBuilder().HalfWave(0.020, 0).SmoothDc(0.014).Build(), new AssessmentOptions());
-        Assert.Equal("B", r.NuisanceTrip.DeviceType);
-        Assert.Equal("B", r.Blinding.DeviceType);
+        Assert.Equal(DeviceType.B, r.NuisanceTrip.DeviceType);
+        Assert.Equal(DeviceType.B, r.Blinding.DeviceType);
         Assert.True(r.Blinding.Blinded); // 14 mA > max(0.4 x 30, 10) = 12 mA (IEC 62423)
     }
 

@@ -47,10 +47,10 @@ public class RequiredTypeTests
                 }
 
                 var r = Evaluate(parts, analysis: new AnalysisOptions { MainsHz = mainsHz });
-                Assert.True(r.Assessment.RequiredType == "B",
+                Assert.True(r.Assessment.RequiredType == DeviceType.B,
                     $"{pulses}-pulse {meanA * 1e3} mA + sine {sineA * 1e3} mA at {mainsHz} Hz: {r.Assessment.Headline}");
                 Assert.Equal(meanA, Math.Abs(r.Analysis.Components.SmoothDcMaxA), (0.02 * meanA) + 0.0001);
-                Assert.Contains(r.Assessment.Classes, c => c.Class == "smoothDc" && c.Presence == "present");
+                Assert.Contains(r.Assessment.Classes, c => c.Class == ResidualCurrentClass.SmoothDc && c.Presence == ClassPresence.Present);
             }
         }
     }
@@ -61,7 +61,7 @@ public class RequiredTypeTests
         // REFERENCE.md "tolerance is not fitness": 2.5 mA smooth DC is within the 6 mA type A tolerates (IEC 61008-1)
         // but the circuit produces DC, which only type B detects. The text says both.
         var r = Evaluate("sine:rms=5mA", "dc:level=2.5mA");
-        Assert.Equal("B", r.Assessment.RequiredType);
+        Assert.Equal(DeviceType.B, r.Assessment.RequiredType);
         Assert.Contains("only type B detects", r.Assessment.Headline, StringComparison.Ordinal);
         Assert.Contains("would still work", r.Assessment.Headline, StringComparison.Ordinal);
         var withA = Evaluate(SynthesisSpec.Parse("sine:rms=5mA", 50).Concat(SynthesisSpec.Parse("dc:level=2.5mA", 50)),
@@ -77,9 +77,9 @@ public class RequiredTypeTests
         // gave F. Adding a component must never weaken the verdict (REFERENCE.md "required type").
         var without = Evaluate("sine:rms=10mA,freq=150", "sine:rms=2mA");
         var with = Evaluate("sine:rms=10mA,freq=150", "sine:rms=2mA", "sine:rms=3mA,freq=23");
-        Assert.Equal("B", without.Assessment.RequiredType);
-        Assert.Equal("B", with.Assessment.RequiredType);
-        Assert.Contains(with.Assessment.Classes, c => c.Class == "composite" && c.Presence == "present");
+        Assert.Equal(DeviceType.B, without.Assessment.RequiredType);
+        Assert.Equal(DeviceType.B, with.Assessment.RequiredType);
+        Assert.Contains(with.Assessment.Classes, c => c.Class == ResidualCurrentClass.Composite && c.Presence == ClassPresence.Present);
     }
 
     [Fact]
@@ -93,8 +93,8 @@ public class RequiredTypeTests
         List<WaveformComponent> dimmer = [new SineComponent(0.000661, 50, 0), new HalfWaveComponent(0.010204, 50, 45)];
         var before = Evaluate(dimmer);
         var after = Evaluate([.. dimmer, new HalfWaveComponent(0.025641, 50, 90)]);
-        Assert.Equal("A", before.Assessment.RequiredType);
-        Assert.Equal("A", after.Assessment.RequiredType);
+        Assert.Equal(DeviceType.A, before.Assessment.RequiredType);
+        Assert.Equal(DeviceType.A, after.Assessment.RequiredType);
     }
 
     [Fact]
@@ -102,7 +102,7 @@ public class RequiredTypeTests
     {
         // IEC 62423: type F's composite test current, 10 Hz + 50 Hz + 1 kHz; its 1 kHz part is credited to F.
         var r = Evaluate("composite:rms=20mA,motor=10Hz,switch=1kHz");
-        Assert.Equal("F", r.Assessment.RequiredType);
+        Assert.Equal(DeviceType.F, r.Assessment.RequiredType);
     }
 
     [Fact]
@@ -113,7 +113,7 @@ public class RequiredTypeTests
         var parts = SynthesisSpec.Parse("sine:rms=3mA", 50).Concat(SynthesisSpec.Parse("dc:level=2.5mA", 50)).ToList();
         var plain = Evaluate(parts, new AssessmentOptions { EvChargingPoint = true, InstalledType = DeviceType.A });
         Assert.False(plain.Assessment.InstalledAdequate);
-        Assert.Equal("B", plain.Assessment.RequiredType);
+        Assert.Equal(DeviceType.B, plain.Assessment.RequiredType);
         var rdc = Evaluate(parts, new AssessmentOptions { EvChargingPoint = true, InstalledType = DeviceType.A, InstalledRdcDd = true });
         Assert.True(rdc.Assessment.InstalledAdequate);
         Assert.Equal("A+RDC-DD", rdc.Assessment.InstalledProtection);
@@ -124,7 +124,7 @@ public class RequiredTypeTests
         Assert.False(Evaluate(ac, new AssessmentOptions { EvChargingPoint = true, InstalledType = DeviceType.A }).Assessment.InstalledAdequate);
         var charger = Evaluate(ac, new AssessmentOptions { EvChargingPoint = true, ChargerDcDetection = true, InstalledType = DeviceType.A });
         Assert.True(charger.Assessment.InstalledAdequate);
-        Assert.Equal("A", charger.Assessment.RequiredType);
+        Assert.Equal(DeviceType.A, charger.Assessment.RequiredType);
         // Never type AC at a charging point (IEC 60364-7-722: at least type A).
         Assert.False(Evaluate(ac, new AssessmentOptions { EvChargingPoint = true, ChargerDcDetection = true, InstalledType = DeviceType.AC })
             .Assessment.InstalledAdequate);
@@ -136,7 +136,7 @@ public class RequiredTypeTests
         // IEC 62423: type F adds the composite current, so beside 6 mA DC detection (IEC 62955) a circuit with a motor
         // frequency and 3 mA of smooth DC needs F; the headline and the accepted protection must say the same.
         var r = Evaluate("composite:rms=12mA,motor=12Hz,switch=1kHz", "dc:level=3mA");
-        Assert.Equal("B", r.Assessment.RequiredType);
+        Assert.Equal(DeviceType.B, r.Assessment.RequiredType);
         Assert.Contains("or type F with 6 mA DC fault detection", r.Assessment.Headline, StringComparison.Ordinal);
         Assert.StartsWith("type B, or type F with 6 mA DC fault detection", r.Assessment.AcceptedProtection, StringComparison.Ordinal);
     }
@@ -160,13 +160,13 @@ public class RequiredTypeTests
         List<WaveformComponent> parts = [new HalfWaveComponent(0.030, 50), new SmoothDcComponent(-0.030 / Math.PI)];
         var declared = Evaluate(parts, sensor: SensorCoupling.Ac);
         Assert.Null(declared.Assessment.RequiredType);
-        Assert.Equal("A", declared.Assessment.MinimumType);
+        Assert.Equal(DeviceType.A, declared.Assessment.MinimumType);
         Assert.Null(declared.Assessment.Blinding.Blinded);
 
         // Coupling not stated: mean zero with one-sided pulses is the signature of AC coupling; said and treated so.
         var unknown = Evaluate(parts, sensor: SensorCoupling.Unknown);
         Assert.Null(unknown.Assessment.RequiredType);
-        Assert.Equal("A", unknown.Assessment.MinimumType);
+        Assert.Equal(DeviceType.A, unknown.Assessment.MinimumType);
         Assert.Contains(unknown.Assessment.Cautions, c => c.Contains("signature of an AC-coupled sensor", StringComparison.Ordinal));
         Assert.DoesNotContain(unknown.Assessment.Cautions, c => c.Contains("MAY NOT TRIP", StringComparison.Ordinal));
     }
@@ -178,7 +178,7 @@ public class RequiredTypeTests
         // clipped half-wave, with the clipping named and a larger range asked for.
         var r = Evaluate([new HalfWaveComponent(0.030, 50)], clipA: 0.010);
         Assert.Null(r.Assessment.RequiredType);
-        Assert.Equal("A", r.Assessment.MinimumType);
+        Assert.Equal(DeviceType.A, r.Assessment.MinimumType);
         Assert.Contains("full scale", r.Assessment.Headline, StringComparison.Ordinal);
         Assert.Contains("larger range", r.Assessment.Headline, StringComparison.Ordinal);
     }
@@ -195,7 +195,7 @@ public class RequiredTypeTests
         var kept = Evaluate(parts, analysis: new AnalysisOptions { MainsHz = 50, KeepGivenMains = true });
         Assert.Equal(50, kept.Analysis.Mains.NominalHz);
         // The declared frequency that agrees is accepted as before.
-        Assert.Equal("AC", Evaluate(parts, analysis: new AnalysisOptions { MainsHz = 60 }).Assessment.RequiredType);
+        Assert.Equal(DeviceType.AC, Evaluate(parts, analysis: new AnalysisOptions { MainsHz = 60 }).Assessment.RequiredType);
     }
 
     [Theory]
@@ -218,13 +218,13 @@ public class RequiredTypeTests
         // present with the reason; with a tighter stated accuracy of 0.5 % + 0.01 mA it is absent.
         var parts = new WaveformComponent[] { new SineComponent(0.005, 50), new SmoothDcComponent(0.00095) };
         var r = Evaluate(parts);
-        var dc = r.Assessment.Classes.Single(c => c.Class == "smoothDc");
-        Assert.Equal("at limit", dc.Presence);
+        var dc = r.Assessment.Classes.Single(c => c.Class == ResidualCurrentClass.SmoothDc);
+        Assert.Equal(ClassPresence.AtLimit, dc.Presence);
         Assert.Contains("safe side", dc.Text, StringComparison.Ordinal);
-        Assert.Equal("B", r.Assessment.RequiredType);
+        Assert.Equal(DeviceType.B, r.Assessment.RequiredType);
         var tight = Evaluate(parts, new AssessmentOptions { Accuracy = new MeasurementAccuracy(0.005, 0.00001) });
-        Assert.Equal("absent", tight.Assessment.Classes.Single(c => c.Class == "smoothDc").Presence);
-        Assert.Equal("AC", tight.Assessment.RequiredType);
+        Assert.Equal(ClassPresence.Absent, tight.Assessment.Classes.Single(c => c.Class == ResidualCurrentClass.SmoothDc).Presence);
+        Assert.Equal(DeviceType.AC, tight.Assessment.RequiredType);
     }
 
     [Fact]

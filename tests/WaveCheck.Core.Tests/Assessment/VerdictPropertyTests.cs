@@ -70,8 +70,7 @@ public class VerdictPropertyTests
     private static DeviceType Level(IEnumerable<Part> parts, double sign, double scale = 1, int shiftSamples = 0,
         bool negate = false, double rateHz = RateHz)
     {
-        DeviceTypeNames.TryParse(Assess(parts, sign, scale, shiftSamples, negate, rateHz).MinimumType, out var level);
-        return level;
+        return Assess(parts, sign, scale, shiftSamples, negate, rateHz).MinimumType;
     }
 
     private static WaveCheck.Core.Model.AssessmentResult Assess(IEnumerable<Part> parts, double sign, double scale = 1, int shiftSamples = 0,
@@ -107,7 +106,7 @@ public class VerdictPropertyTests
 
         return true;
 
-        static bool Present(WaveCheck.Core.Model.ClassResult c) => c.Presence is "present" or "at limit";
+        static bool Present(WaveCheck.Core.Model.ClassResult c) => c.Presence is ClassPresence.Present or ClassPresence.AtLimit;
         static bool NearLimit(WaveCheck.Core.Model.ClassResult c) =>
             c is { FigureA: { } f, ThresholdA: { } t } && Math.Abs(f) >= 0.75 * t && Math.Abs(f) <= 1.25 * t;
     }

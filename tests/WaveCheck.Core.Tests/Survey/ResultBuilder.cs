@@ -21,11 +21,11 @@ internal sealed record ResultBuilder
 
     public double SampleRateHz { get; init; } = 50_000;
 
-    public string? RequiredType { get; init; } = "A";
+    public DeviceType? RequiredType { get; init; } = DeviceType.A;
 
-    public string MinimumType { get; init; } = "A";
+    public DeviceType MinimumType { get; init; } = DeviceType.A;
 
-    public string? InstalledType { get; init; } = "A";
+    public DeviceType? InstalledType { get; init; } = DeviceType.A;
 
     public bool? InstalledAdequate { get; init; } = true;
 
@@ -96,9 +96,9 @@ internal sealed record ResultBuilder
         InstalledAdequate = InstalledAdequate,
         Regime = Regime.Iec,
         Types = [],
-        NuisanceTrip = new NuisanceTripResult(NuisanceRisk, InstalledType ?? "A", WorstWindowRmsA, 0.5 * RatedResidualCurrentA,
+        NuisanceTrip = new NuisanceTripResult(NuisanceRisk, InstalledType ?? DeviceType.A, WorstWindowRmsA, 0.5 * RatedResidualCurrentA,
             NuisanceMarginA, 0, 0.3 * RatedResidualCurrentA, true, [], "test"),
-        Blinding = new BlindingResult(InstalledType ?? "A", Math.Abs(SmoothDcMaxA), 0.006, Blinded, "test"),
+        Blinding = new BlindingResult(InstalledType ?? DeviceType.A, Math.Abs(SmoothDcMaxA), 0.006, Blinded, "test"),
         EvCharging = new EvChargingResult(0.006, Math.Abs(SmoothDcMaxA), Blinded is null ? null : Math.Abs(SmoothDcMaxA) >= 0.006, "test"),
         Cautions = [],
         Thresholds = [],

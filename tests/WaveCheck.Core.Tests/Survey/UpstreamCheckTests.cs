@@ -10,8 +10,8 @@ public class UpstreamCheckTests
     // Sums of amperes built from mA figures: 1e-12 A is far below any rounding a person would see (CurrentText shows 0.001 mA).
     private const double Tolerance = 1e-12;
 
-    private static SurveyRow Member(string file, double worstRmsA, double smoothDcA = 0, string? required = "A",
-        string minimum = "A", bool dcKnown = true) =>
+    private static SurveyRow Member(string file, double worstRmsA, double smoothDcA = 0, DeviceType? required = DeviceType.A,
+        DeviceType minimum = DeviceType.A, bool dcKnown = true) =>
         new ResultBuilder
         {
             WorstWindowRmsA = worstRmsA,
@@ -113,14 +113,14 @@ public class UpstreamCheckTests
     {
         // A type B circuit behind a type A upstream device (practice: its smooth DC passes the upstream device).
         var result = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav", "c2.wav"),
-            [Member("c1.wav", 0.001, required: "A"), Member("c2.wav", 0.001, required: "B", minimum: "B")]);
+            [Member("c1.wav", 0.001, required: DeviceType.A), Member("c2.wav", 0.001, required: DeviceType.B, minimum: DeviceType.B)]);
         Assert.True(result.TypeMismatch);
         Assert.Equal(TypeCheck.Mismatch, result.TypeRisk);
         Assert.Contains("c2 needs type B", result.TypeExplanation, StringComparison.Ordinal);
 
         // Behind a type B device the same circuits are fine.
         var b = UpstreamCheck.Evaluate(Group(DeviceType.B, 0.100, "c1.wav", "c2.wav"),
-            [Member("c1.wav", 0.001, required: "A"), Member("c2.wav", 0.001, required: "B", minimum: "B")]);
+            [Member("c1.wav", 0.001, required: DeviceType.A), Member("c2.wav", 0.001, required: DeviceType.B, minimum: DeviceType.B)]);
         Assert.False(b.TypeMismatch);
         Assert.Equal(TypeCheck.Ok, b.TypeRisk);
     }
@@ -129,11 +129,11 @@ public class UpstreamCheckTests
     public void Undetermined_required_type_uses_the_minimum_as_a_lower_bound()
     {
         // Minimum already B behind A: a mismatch whatever the rest shows.
-        var surely = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav"), [Member("c1.wav", 0.001, required: null, minimum: "B")]);
+        var surely = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav"), [Member("c1.wav", 0.001, required: null, minimum: DeviceType.B)]);
         Assert.True(surely.TypeMismatch);
 
         // Minimum A behind A, required unknown: cannot tell.
-        var unsure = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav"), [Member("c1.wav", 0.001, required: null, minimum: "A")]);
+        var unsure = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c1.wav"), [Member("c1.wav", 0.001, required: null, minimum: DeviceType.A)]);
         Assert.Null(unsure.TypeMismatch);
         Assert.Equal(TypeCheck.CannotTell, unsure.TypeRisk);
     }
