@@ -116,7 +116,9 @@ internal static class ResultBuilder
             Warnings = [new CaptureWarning("nyquist", "Content above 12.5 kHz (Nyquist) cannot be seen at 25 kHz sampling.")],
             Spectrum = new SpectrumResult(resolutionHz, freqs, rms),
             Envelope = new EnvelopeResult(DurationS / buckets, min, max),
-            WorstWindow = new WaveformExcerpt(36.4, RateHz, samples, "window with the highest RMS"),
+            // The window's own figures as the analysis measures them: its extremes are its samples' extremes.
+            WorstWindow = new WaveformExcerpt(36.4, RateHz, samples, "window with the highest RMS",
+                trend[182] with { PeakPositiveA = samples.Max(), PeakNegativeA = samples.Min() }),
             Trend = trend,
             TouchCurrent = new TouchCurrentResult(0.0073, 0.0148, 0.0009, 0.0004, 0.0011, 0.0005, 0.0051),
         };

@@ -50,7 +50,8 @@ public sealed record AnalysisResult
     /// <summary>Min/max envelope of the whole capture, for the overview plot.</summary>
     public required EnvelopeResult Envelope { get; init; }
 
-    /// <summary>Raw samples of the window with the highest RMS, for the cycles plot.</summary>
+    /// <summary>The window with the highest RMS: its raw samples, for the cycles plot, and its figures as measured
+    /// (<see cref="WaveformExcerpt.Figures"/>; JSON <c>worstWindow.figures</c>).</summary>
     public required WaveformExcerpt WorstWindow { get; init; }
 
     /// <summary>Per-window rows for trend plots; decimated (worst value kept) when the capture has more windows than fit.</summary>
@@ -261,7 +262,10 @@ public sealed record EnvelopeResult(double BucketDurationS, IReadOnlyList<double
 /// <param name="SampleRateHz">Sample rate, hertz.</param>
 /// <param name="SamplesA">Samples, amperes.</param>
 /// <param name="Reason">Why this stretch was kept (e.g. <c>window with the highest RMS</c>).</param>
-public sealed record WaveformExcerpt(double StartS, double SampleRateHz, IReadOnlyList<double> SamplesA, string Reason);
+/// <param name="Figures">When the stretch is one analysis window: that window's figures as measured (RMS, DC, peaks,
+/// harmonic groups), never a merged row of the decimated <see cref="AnalysisResult.Trend"/>; null otherwise.</param>
+public sealed record WaveformExcerpt(double StartS, double SampleRateHz, IReadOnlyList<double> SamplesA, string Reason,
+    WindowResult? Figures = null);
 
 /// <summary>IEC 60990 touch-current readings: the network's output voltage divided by 500 Ω.</summary>
 /// <param name="UnweightedRmsA">Unweighted network (Fig. 3), RMS, amperes.</param>

@@ -22,7 +22,7 @@ public static class CyclesPlot
     private static readonly OxyColor[] CycleColours = [PlotStyle.Blue, PlotStyle.Vermillion, PlotStyle.SkyBlue, PlotStyle.ReddishPurple];
 
     /// <summary>Builds the cycles plot.</summary>
-    /// <param name="analysis">Reads <see cref="AnalysisResult.WorstWindow"/>, <see cref="AnalysisResult.Mains"/>, <see cref="AnalysisResult.Components"/>, the matching <see cref="AnalysisResult.Trend"/> row.</param>
+    /// <param name="analysis">Reads <see cref="AnalysisResult.WorstWindow"/>, <see cref="AnalysisResult.Mains"/>, <see cref="AnalysisResult.Components"/>, and the worst window's own figures (<see cref="WaveformExcerpt.Figures"/>) for its peaks.</param>
     /// <param name="assessment">Adds the 0.5 IΔn line; null omits it.</param>
     public static PlotModel Build(AnalysisResult analysis, AssessmentResult? assessment)
     {
@@ -126,18 +126,10 @@ public static class CyclesPlot
         return series;
     }
 
-    private static (double PositiveA, double NegativeA, string Source) Peaks(AnalysisResult analysis)
-    {
-        var start = analysis.WorstWindow.StartS;
-        var tolerance = analysis.Windows.LengthS > 0 ? analysis.Windows.LengthS / 2 : 1e-6;
-        foreach (var row in analysis.Trend)
-        {
-            if (Math.Abs(row.StartS - start) <= tolerance)
-            {
-                return (row.PeakPositiveA, row.PeakNegativeA, "this window");
-            }
-        }
-
-        return (analysis.Summary.PeakPositiveA, analysis.Summary.PeakNegativeA, "whole capture");
-    }
+    /// <summary>The peaks of the window drawn, as measured; the whole capture's when the excerpt carries no figures
+    /// (a merged row of the decimated trend table is not this window's, so it is never used).</summary>
+    private static (double PositiveA, double NegativeA, string Source) Peaks(AnalysisResult analysis) =>
+        analysis.WorstWindow.Figures is { } window
+            ? (window.PeakPositiveA, window.PeakNegativeA, "this window")
+            : (analysis.Summary.PeakPositiveA, analysis.Summary.PeakNegativeA, "whole capture");
 }

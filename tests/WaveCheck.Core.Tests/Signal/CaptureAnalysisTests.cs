@@ -243,6 +243,40 @@ public class CaptureAnalysisTests
     }
 
     [Fact]
+    public void The_worst_window_carries_its_own_figures_even_when_the_trend_is_decimated()
+    {
+        // 30 minutes at 1 kS/s are 9000 windows, more than the trend table's 2000 rows: its rows are merged windows.
+        // One second (t = 600 to 601 s, five windows) carries a 20 mA sine on 5 mA DC; the rest a 10 mA sine.
+        const double fs = 1000;
+        var samples = Synth.Make(fs, 1800, t => t >= 600 && t < 601
+            ? 0.005 + (0.020 * Math.Sin(2 * Math.PI * F * t))
+            : 0.010 * Math.Sin(2 * Math.PI * F * t));
+        var result = Analyzer.Analyze(new MemoryCaptureSource(samples, fs), new AnalysisOptions { MainsHz = F });
+        Assert.True(result.Trend.Count < result.Windows.Count, "the trend table must be decimated for this test");
+        var worst = result.WorstWindow;
+        var figures = Assert.IsType<WindowResult>(worst.Figures);
+        Assert.InRange(worst.StartS, 600 - 1e-9, 600.8 + 1e-9); // a window wholly inside the loud second
+        Assert.Equal(worst.StartS, figures.StartS);
+
+        // The figures are those of the samples carried: RMS, mean and extremes by their definitions.
+        var x = worst.SamplesA;
+        var sumSq = 0.0;
+        foreach (var v in x)
+        {
+            sumSq += v * v;
+        }
+
+        Assert.Equal(Math.Sqrt(sumSq / x.Count), figures.RmsA, 1e-12);
+        Assert.Equal(x.Average(), figures.DcA, 1e-12);
+        Assert.Equal(x.Max(), figures.PeakPositiveA);
+        Assert.Equal(x.Min(), figures.PeakNegativeA);
+        // Closed form: a 20 mA-peak sine on 5 mA DC has RMS √(5² + 20²/2) mA, harmonic group 1 = 20/√2 mA.
+        Assert.Equal(Math.Sqrt((0.005 * 0.005) + (0.020 * 0.020 / 2)), figures.RmsA, 1e-4);
+        Assert.Equal(0.020 / Math.Sqrt(2), figures.MainsRmsA, 1e-4);
+        Assert.Equal(0.005, figures.DcA, 1e-4);
+    }
+
+    [Fact]
     public void StatisticsCoverEveryWindowMetric()
     {
         var result = Analyze(Synth.Make(Fs, 1, t => 0.01 * Math.Sin(2 * Math.PI * F * t)));

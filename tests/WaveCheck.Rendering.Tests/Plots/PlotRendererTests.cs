@@ -1,5 +1,6 @@
 using System.Buffers.Binary;
 using System.Xml.Linq;
+using WaveCheck.Core.Text;
 using WaveCheck.Rendering.Plots;
 
 namespace WaveCheck.Rendering.Tests.Plots;
@@ -53,6 +54,22 @@ public sealed class PlotRendererTests : IDisposable
 
         Assert.DoesNotContain(drawn, t => t.Contains("IΔn", StringComparison.Ordinal));
         Assert.Contains("time [s]", drawn);
+    }
+
+    [Fact]
+    public void The_cycles_plot_draws_the_peaks_of_the_window_it_shows()
+    {
+        var analysis = ResultBuilder.Typical();
+        var window = analysis.WorstWindow.Figures!;
+        // A decimated trend row covering the same time holds a merged window's peaks, not this one's: never drawn.
+        analysis = analysis with { Trend = [.. analysis.Trend.Select(r => r with { PeakPositiveA = 0.5, PeakNegativeA = -0.5 })] };
+        var drawn = SvgTexts(XDocument.Parse(PlotRenderer.RenderSvg(PlotKind.Cycles, analysis, null)).Root!);
+        Assert.Contains($"peaks: highest {CurrentText.WithUnit(window.PeakPositiveA)}, lowest {CurrentText.WithUnit(window.PeakNegativeA)} (this window)", drawn);
+
+        // An excerpt without figures: the whole capture's peaks, said so.
+        var bare = analysis with { WorstWindow = analysis.WorstWindow with { Figures = null } };
+        drawn = SvgTexts(XDocument.Parse(PlotRenderer.RenderSvg(PlotKind.Cycles, bare, null)).Root!);
+        Assert.Contains($"peaks: highest {CurrentText.WithUnit(bare.Summary.PeakPositiveA)}, lowest {CurrentText.WithUnit(bare.Summary.PeakNegativeA)} (whole capture)", drawn);
     }
 
     [Fact]

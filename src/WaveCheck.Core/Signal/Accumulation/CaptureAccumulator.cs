@@ -51,6 +51,7 @@ internal sealed class CaptureAccumulator
     private int _worstLength;
     private double _worstRms = -1;
     private long _worstStart;
+    private WindowResult? _worstWindow;
 
     /// <summary>Sets up the figures of one capture.</summary>
     /// <param name="sampleRateHz">Sample rate, hertz.</param>
@@ -177,6 +178,7 @@ internal sealed class CaptureAccumulator
             _worstRms = window.RmsA;
             _worstStart = slot.Start;
             _worstLength = slot.Length;
+            _worstWindow = window;
             slot.Window.CopyTo(_worst);
         }
     }
@@ -302,9 +304,10 @@ internal sealed class CaptureAccumulator
         };
     }
 
-    /// <summary>The samples of the window with the highest RMS.</summary>
+    /// <summary>The samples of the window with the highest RMS, with its figures as measured (before any merging of
+    /// the trend table).</summary>
     public WaveformExcerpt WorstWindow() =>
-        new(_worstStart / _fs, _fs, _worst.AsSpan(0, _worstLength).ToArray(), "window with the highest RMS");
+        new(_worstStart / _fs, _fs, _worst.AsSpan(0, _worstLength).ToArray(), "window with the highest RMS", _worstWindow);
 
     /// <summary>The trend table (windows merged pairwise when full).</summary>
     public IReadOnlyList<WindowResult> Trend() => _trend.Result();

@@ -85,6 +85,9 @@ public class CaptureAccumulatorTests
         var worst = acc.WorstWindow();
         Assert.Equal(4 / Fs, worst.StartS);
         Assert.Equal([0.1, 0.2, 0.3, 0.4], worst.SamplesA);
+        // Its figures are the window's own, the ones measured for it.
+        Assert.Equal(0.003, worst.Figures!.RmsA);
+        Assert.Equal(4 / Fs, worst.Figures.StartS);
         Assert.Equal(3, acc.Trend().Count);
     }
 
