@@ -3,87 +3,84 @@ using System.Globalization;
 using WaveCheck.Core;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Model;
 
 namespace WaveCheck.Cli;
 
 /// <summary>The options that say what device the waveform is judged against and which thresholds the user overrides.</summary>
 internal sealed class AssessmentOptionSet
 {
-    public Option<string> Rated { get; } = new("--rated")
-    {
-        Description = "Rated residual operating current IΔn of the device, e.g. 30mA, 100mA, 300mA.",
-        DefaultValueFactory = _ => "30mA",
-    };
+    public Option<double?> Rated { get; } = ValueOptions.Current("--rated",
+        $"Rated residual operating current IΔn of the device, e.g. 30mA, 100mA, 300mA (default {Quantity.CurrentAsTyped(Limits.DefaultRatedResidualCurrentA)}).",
+        positive: true);
 
-    public Option<string?> Device { get; } = new("--device")
-    {
-        Description = "Installed device type: AC, A, F, B or B+, with +RDC-DD when a 6 mA DC detection device (IEC 62955) is fitted beside it, e.g. A+RDC-DD (margins and the adequacy verdict are for it).",
-    };
+    public Option<Protection?> Device { get; } = ValueOptions.Device("--device",
+        "Installed device type: AC, A, F, B or B+, with +RDC-DD when a 6 mA DC detection device (IEC 62955) is fitted beside it, e.g. A+RDC-DD (margins and the adequacy verdict are for it).");
 
     public Option<bool> ChargerDcDetection { get; } = new("--charger-dc-detection")
     {
         Description = "With --ev: the charging equipment provides 6 mA DC fault detection itself, as its maker declares (IEC 60364-7-722).",
     };
 
-    public Option<string?> Accuracy { get; } = new("--accuracy")
-    {
-        Description = "Accuracy of the clamp and logger, as a share of the reading plus a current, e.g. 3%+0.5mA (default 2%+0.1mA). A figure within it of a limit is at the limit and resolved to the safe side.",
-    };
+    public Option<MeasurementAccuracy?> Accuracy { get; } = ValueOptions.Accuracy("--accuracy",
+        $"Accuracy of the clamp and logger, as a share of the reading plus a current, e.g. 3%+0.5mA (default {MeasurementAccuracy.Default}). A figure within it of a limit is at the limit and resolved to the safe side.");
 
-    public Option<string> Regime { get; } = new("--regime")
-    {
-        Description = "iec (residual-current devices) or na (also UL 943 GFCI classes).",
-        DefaultValueFactory = _ => "iec",
-    };
+    public Option<Regime?> Regime { get; } = ValueOptions.Choice("--regime",
+        $"iec (residual-current devices) or na (also UL 943 GFCI classes) (default {new AssessmentOptions().Regime.ToText()}).",
+        ValueOptions.RegimeWords);
 
     public Option<bool> Ev { get; } = new("--ev")
     {
         Description = "The circuit feeds an EV charging point (IEC 60364-7-722 and the 6 mA DC of IEC 62955).",
     };
 
-    public Option<string?> FrequencyFactors { get; } = new("--frequency-factors")
+    public Option<double[]?> FrequencyFactors { get; } = new("--frequency-factors")
     {
-        Description = "Type F/B tripping limits at 150 Hz, 400 Hz and 1 kHz as multiples of IΔn (default 2.4,6,14: IEC 62423 §5.3, from memory).",
+        Description = $"Type F/B tripping limits at 150 Hz, 400 Hz and 1 kHz as multiples of IΔn (default {Number(Limits.FrequencyFactor150Hz)},{Number(Limits.FrequencyFactor400Hz)},{Number(Limits.FrequencyFactor1kHz)}: IEC 62423 §5.3, from memory).",
+        HelpName = "F150,F400,F1K",
+        Arity = ArgumentArity.ExactlyOne,
+        CustomParser = result =>
+        {
+            var text = result.Tokens.Count > 0 ? result.Tokens[^1].Value : string.Empty;
+            var parts = text.Split(',', StringSplitOptions.TrimEntries);
+            var values = new double[parts.Length];
+            if (parts.Length != 3 || !parts.Select((p, i) => double.TryParse(p, NumberStyles.Float, CultureInfo.InvariantCulture, out values[i])).All(ok => ok))
+            {
+                result.AddError(new OptionValueException("--frequency-factors", text, "three numbers separated by commas, such as 2.4,6,14").Message);
+                return null;
+            }
+
+            return values;
+        },
     };
 
-    public Option<string?> BPlusLimit { get; } = new("--bplus-limit")
-    {
-        Description = "B+ upper tripping limit up to 20 kHz (default 420mA: DIN VDE 0664-400, from memory).",
-    };
+    public Option<double?> BPlusLimit { get; } = ValueOptions.Current("--bplus-limit",
+        $"B+ upper tripping limit up to 20 kHz (default {Quantity.CurrentAsTyped(Limits.BPlusUpperLimitA)}: DIN VDE 0664-400, from memory).");
 
-    private readonly (Option<string?> Option, bool Fraction, Func<AssessmentOptions, double, AssessmentOptions> Apply)[] _thresholds;
-
-    public AssessmentOptionSet()
-    {
-        _thresholds =
-        [
-            (Threshold("--dc-threshold", "Smooth DC counted as present (type B), e.g. 2mA (default 1mA)."),
-                false, (o, v) => o with { DcThresholdA = v }),
-            (Threshold("--below-mains-threshold", "Motor-frequency content (sub-mains, tones up to 2 x mains) counted as a converter's composite current, type F (default: max(1 mA, 0.05 IΔn))."),
-                false, (o, v) => o with { BelowMainsThresholdA = v }),
-            (Threshold("--harmonic-threshold", "AC at other frequencies up to 1 kHz counted as present, type B (default: max(1 mA, 0.1 IΔn))."),
-                false, (o, v) => o with { HarmonicThresholdA = v }),
-            (Threshold("--hf-threshold", "Content 1-20 kHz counted as present, type B+, e.g. 3mA (default: max(1 mA, 0.1 IΔn))."),
-                false, (o, v) => o with { HighFrequencyThresholdA = v }),
-            (Threshold("--type-a-dc", "Smooth DC a type A device tolerates (default 6mA, IEC 61008-1)."),
-                false, (o, v) => o with { TypeASmoothDcToleranceA = v }),
-            (Threshold("--type-f-dc", "Smooth DC a type F device tolerates (default 10mA, IEC 62423)."),
-                false, (o, v) => o with { TypeFSmoothDcToleranceA = v }),
-            (Threshold("--rdc-dd", "DC threshold of an RDC-DD (default 6mA, IEC 62955)."),
-                false, (o, v) => o with { RdcDdThresholdA = v }),
-            (Threshold("--pulsating-share", "Share of windows (0 to 1) that must be pulsating DC to count (default: any window)."),
-                true, (o, v) => o with { PulsatingShareThreshold = v }),
-            (Threshold("--leakage-budget", "Leakage budget as a fraction of IΔn (default 0.3, IEC 60364-5-53 §531.3.2)."),
-                true, (o, v) => o with { LeakageBudgetFraction = v }),
-            (Threshold("--risk-possible", "Nuisance risk 'possible' from this fraction of IΔn (default 0.3)."),
-                true, (o, v) => o with { PossibleRiskFraction = v }),
-            (Threshold("--risk-likely", "Nuisance risk 'likely' from this fraction of IΔn (default 0.5)."),
-                true, (o, v) => o with { LikelyRiskFraction = v }),
-        ];
-    }
-
-    private static Option<string?> Threshold(string name, string description) => new(name) { Description = description };
+    private readonly (Option<double?> Option, Func<AssessmentOptions, double, AssessmentOptions> Apply)[] _thresholds =
+    [
+        (ValueOptions.Current("--dc-threshold", $"Smooth DC counted as present (type B), e.g. 2mA (default {Quantity.CurrentAsTyped(Limits.DcSignificanceA)})."),
+            (o, v) => o with { DcThresholdA = v }),
+        (ValueOptions.Current("--below-mains-threshold", $"Motor-frequency content (sub-mains, tones up to {Number(Limits.MotorFrequencyTopMultiple)} x mains) counted as a converter's composite current, type F (default: max({Quantity.CurrentAsTyped(Limits.SignificanceFloorA)}, {Number(Limits.MotorFrequencySignificanceFraction)} IΔn))."),
+            (o, v) => o with { BelowMainsThresholdA = v }),
+        (ValueOptions.Current("--harmonic-threshold", $"AC at other frequencies up to 1 kHz counted as present, type B (default: max({Quantity.CurrentAsTyped(Limits.SignificanceFloorA)}, {Number(Limits.HarmonicSignificanceFraction)} IΔn))."),
+            (o, v) => o with { HarmonicThresholdA = v }),
+        (ValueOptions.Current("--hf-threshold", $"Content 1-20 kHz counted as present, type B+, e.g. 3mA (default: max({Quantity.CurrentAsTyped(Limits.SignificanceFloorA)}, {Number(Limits.HighFrequencySignificanceFraction)} IΔn))."),
+            (o, v) => o with { HighFrequencyThresholdA = v }),
+        (ValueOptions.Current("--type-a-dc", $"Smooth DC a type A device tolerates (default {Quantity.CurrentAsTyped(Limits.TypeASmoothDcToleranceA)}, IEC 61008-1)."),
+            (o, v) => o with { TypeASmoothDcToleranceA = v }),
+        (ValueOptions.Current("--type-f-dc", $"Smooth DC a type F device tolerates (default {Quantity.CurrentAsTyped(Limits.TypeFSmoothDcToleranceA)}, IEC 62423)."),
+            (o, v) => o with { TypeFSmoothDcToleranceA = v }),
+        (ValueOptions.Current("--rdc-dd", $"DC threshold of an RDC-DD (default {Quantity.CurrentAsTyped(Limits.RdcDdThresholdA)}, IEC 62955)."),
+            (o, v) => o with { RdcDdThresholdA = v }),
+        (ValueOptions.Number("--pulsating-share", $"Share of windows (0 to 1) that must be pulsating DC to count (default {Number(Limits.PulsatingShareThreshold)}: any window).", "0.3"),
+            (o, v) => o with { PulsatingShareThreshold = v }),
+        (ValueOptions.Number("--leakage-budget", $"Leakage budget as a fraction of IΔn (default {Number(Limits.LeakageBudgetFraction)}, IEC 60364-5-53 §531.3.2).", "0.3"),
+            (o, v) => o with { LeakageBudgetFraction = v }),
+        (ValueOptions.Number("--risk-possible", $"Nuisance risk 'possible' from this fraction of IΔn (default {Number(Limits.PossibleRiskFraction)}).", "0.3"),
+            (o, v) => o with { PossibleRiskFraction = v }),
+        (ValueOptions.Number("--risk-likely", $"Nuisance risk 'likely' from this fraction of IΔn (default {Number(Limits.LikelyRiskFraction)}).", "0.5"),
+            (o, v) => o with { LikelyRiskFraction = v }),
+    ];
 
     public void AddTo(Command command)
     {
@@ -93,7 +90,7 @@ internal sealed class AssessmentOptionSet
         command.Options.Add(Ev);
         command.Options.Add(ChargerDcDetection);
         command.Options.Add(Accuracy);
-        foreach (var (option, _, _) in _thresholds)
+        foreach (var (option, _) in _thresholds)
         {
             command.Options.Add(option);
         }
@@ -102,67 +99,68 @@ internal sealed class AssessmentOptionSet
         command.Options.Add(BPlusLimit);
     }
 
-    /// <summary>Parses the typed values once; checks ranges.</summary>
-    /// <exception cref="OptionValueException">A value cannot be parsed or is out of range.</exception>
+    /// <summary>Gathers the values System.CommandLine parsed; checks ranges and combinations.</summary>
+    /// <exception cref="OptionValueException">A value is out of range.</exception>
+    /// <exception cref="UserInputException">Options that do not go together.</exception>
     public AssessmentOptions Read(ParseResult parse)
     {
-        var ratedText = parse.GetValue(Rated) ?? "30mA";
-        var options = new AssessmentOptions { RatedResidualCurrentA = Quantity.ParseCurrentA("--rated", ratedText, bareUnit: "mA") };
-        if (parse.GetValue(Device) is { } deviceText)
+        var options = new AssessmentOptions();
+        if (parse.GetValue(Rated) is { } rated)
         {
-            options = DeviceTypeNames.TryParseProtection(deviceText, out var type, out var rdcDd)
-                ? options with { InstalledType = type, InstalledRdcDd = rdcDd }
-                : throw new OptionValueException("--device", deviceText, "AC, A, F, B or B+, optionally with +RDC-DD (e.g. A+RDC-DD)");
+            options = options with { RatedResidualCurrentA = rated };
         }
 
-        var regimeText = parse.GetValue(Regime) ?? "iec";
-        options = RegimeNames.TryParse(regimeText, out var regime)
-            ? options with { Regime = regime }
-            : throw new OptionValueException("--regime", regimeText, "iec or na");
+        if (parse.GetValue(Device) is { } device)
+        {
+            options = options with { InstalledType = device.Type, InstalledRdcDd = device.RdcDd };
+        }
+
+        if (parse.GetValue(Regime) is { } regime)
+        {
+            options = options with { Regime = regime };
+        }
+
         options = options with { EvChargingPoint = parse.GetValue(Ev), ChargerDcDetection = parse.GetValue(ChargerDcDetection) };
         if (options.ChargerDcDetection && !options.EvChargingPoint)
         {
             throw new UserInputException("--charger-dc-detection: declares a charging point's own DC detection, so it goes with --ev; add --ev or leave it out");
         }
 
-        if (parse.GetValue(Accuracy) is { } accuracyText)
+        if (parse.GetValue(Accuracy) is { } accuracy)
         {
-            options = options with { Accuracy = MeasurementAccuracy.Parse(accuracyText) };
+            options = options with { Accuracy = accuracy };
         }
 
-        foreach (var (option, fraction, apply) in _thresholds)
+        foreach (var (option, apply) in _thresholds)
         {
-            if (parse.GetValue(option) is not { } text)
+            if (parse.GetValue(option) is { } value)
             {
-                continue;
+                options = apply(options, value);
             }
-
-            var value = fraction
-                ? double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out var f)
-                    ? f
-                    : throw new OptionValueException(option.Name, text, "a number such as 0.3")
-                : Quantity.ParseCurrentA(option.Name, text, bareUnit: "mA");
-            options = apply(options, value);
         }
 
-        if (parse.GetValue(FrequencyFactors) is { } factorsText)
+        if (parse.GetValue(FrequencyFactors) is { Length: 3 } factors)
         {
-            var parts = factorsText.Split(',', StringSplitOptions.TrimEntries);
-            var values = new double[parts.Length];
-            if (parts.Length != 3 || !parts.Select((p, i) => double.TryParse(p, NumberStyles.Float, CultureInfo.InvariantCulture, out values[i])).All(ok => ok))
-            {
-                throw new OptionValueException("--frequency-factors", factorsText, "three numbers separated by commas, such as 2.4,6,14");
-            }
-
-            options = options with { FrequencyFactor150Hz = values[0], FrequencyFactor400Hz = values[1], FrequencyFactor1kHz = values[2] };
+            options = options with { FrequencyFactor150Hz = factors[0], FrequencyFactor400Hz = factors[1], FrequencyFactor1kHz = factors[2] };
         }
 
-        if (parse.GetValue(BPlusLimit) is { } limitText)
+        if (parse.GetValue(BPlusLimit) is { } limit)
         {
-            options = options with { BPlusUpperLimitA = Quantity.ParseCurrentA("--bplus-limit", limitText, bareUnit: "mA") };
+            options = options with { BPlusUpperLimitA = limit };
         }
 
         options.Validate();
         return options;
     }
+
+    /// <summary>A stderr line when IΔn is off the ratings in use (the result carries the same caution).</summary>
+    public static void WarnAboutRating(double ratedA)
+    {
+        if (!Limits.IsRatingInUse(ratedA))
+        {
+            Console.Error.WriteLine("wavecheck: warning: " + TerminalText.Clean(DeviceTypeAssessor.RatingCaution(ratedA)));
+        }
+    }
+
+    private static string Number(double value) => value.ToString("G6", CultureInfo.InvariantCulture);
 }

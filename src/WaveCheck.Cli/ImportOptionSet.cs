@@ -7,41 +7,27 @@ namespace WaveCheck.Cli;
 /// <summary>The options that describe how to read a capture, shared by every command that reads one.</summary>
 internal sealed class ImportOptionSet
 {
-    public Option<string?> Scale { get; } = new("--scale")
-    {
-        Description = "Amperes that WAV full scale stands for, e.g. 0.1A or 100mA (a bare number is amperes).",
-    };
+    public Option<double?> Scale { get; } = ValueOptions.Current("--scale",
+        "Amperes that WAV full scale stands for, e.g. 0.1A or 100mA.", positive: true);
 
-    public Option<string?> Sensitivity { get; } = new("--sensitivity")
-    {
-        Description = "Clamp sensitivity, e.g. \"10 mV/mA\"; with --range gives the WAV scale, alone converts voltage columns.",
-    };
+    public Option<double?> Sensitivity { get; } = ValueOptions.Sensitivity("--sensitivity",
+        "Clamp sensitivity, e.g. \"10 mV/mA\"; with --range gives the WAV scale, alone converts voltage columns.");
 
-    public Option<string?> Range { get; } = new("--range")
-    {
-        Description = "Logger input range (volts at full scale), e.g. \"1 V\".",
-    };
+    public Option<double?> Range { get; } = ValueOptions.Voltage("--range",
+        "Logger input range (volts at full scale), e.g. \"1 V\".");
 
-    public Option<string?> Rate { get; } = new("--rate")
-    {
-        Description = "Sample rate of a CSV without a time column, e.g. 10kHz.",
-    };
+    public Option<double?> Rate { get; } = ValueOptions.Frequency("--rate",
+        "Sample rate of a CSV without a time column, e.g. 10kHz.");
 
-    public Option<string?> Channel { get; } = new("--channel")
-    {
-        Description = "Channel holding the residual current, by name or 1-based number.",
-    };
+    public Option<string?> Channel { get; } = ValueOptions.Text("--channel",
+        "Channel holding the residual current: its name (L1, or the header as written, L1_A) or its 1-based number.", "CHANNEL");
 
-    public Option<string?> Sum { get; } = new("--sum")
-    {
-        Description = "Form the residual current as the sum of these live-conductor channels, e.g. L1,L2,L3,N.",
-    };
+    public Option<string[]?> Sum { get; } = ValueOptions.Channels("--sum",
+        "Form the residual current as the sum of these live-conductor channels, e.g. L1,L2,L3,N (or L1_A,L2_A,L3_A,N_A as the header writes them).");
 
-    public Option<string> Sensor { get; } = new("--sensor")
-    {
-        Description = "Sensor coupling: dc (sees DC), ac (blind to DC) or unknown.",
-        DefaultValueFactory = _ => "unknown",
-    };
+    public Option<SensorCoupling?> Sensor { get; } = ValueOptions.Choice("--sensor",
+        $"Sensor coupling: dc (sees DC), ac (blind to DC) or unknown (default {new ImportOptions().Sensor.ToString().ToLowerInvariant()}).",
+        ValueOptions.SensorWords);
 
     public Option<bool> Primary { get; } = new("--primary")
     {
@@ -60,64 +46,44 @@ internal sealed class ImportOptionSet
         command.Options.Add(Primary);
     }
 
-    /// <summary>Parses the typed values once into SI quantities.</summary>
-    /// <exception cref="OptionValueException">A value cannot be parsed, or options conflict.</exception>
+    /// <summary>Gathers the values System.CommandLine parsed into SI quantities; checks bounds and combinations.</summary>
+    /// <exception cref="OptionValueException">A value is out of bounds, or options conflict.</exception>
     public ImportOptions Read(ParseResult parse)
     {
-        var scaleText = parse.GetValue(Scale);
-        var sensitivityText = parse.GetValue(Sensitivity);
-        var rangeText = parse.GetValue(Range);
-        var rateText = parse.GetValue(Rate);
+        var scale = parse.GetValue(Scale);
+        var sensitivity = parse.GetValue(Sensitivity);
+        var range = parse.GetValue(Range);
+        var rate = parse.GetValue(Rate);
         var channel = parse.GetValue(Channel);
-        var sumText = parse.GetValue(Sum);
-        var sensorText = parse.GetValue(Sensor) ?? "unknown";
-
-        double? scale = scaleText is null ? null : Quantity.ParsePositiveCurrentA("--scale", scaleText);
-        double? sensitivity = sensitivityText is null ? null : Quantity.ParseSensitivityVPerA("--sensitivity", sensitivityText);
-        double? range = rangeText is null ? null : Quantity.ParseVoltageV("--range", rangeText);
-        double? rate = rateText is null ? null : Quantity.ParseFrequencyHz("--rate", rateText);
+        var sum = parse.GetValue(Sum) is { Length: > 0 } names ? names : null;
 
         if (scale is not null && (sensitivity is not null || range is not null))
         {
-            throw new OptionValueException("--scale", scaleText!, "either --scale or --sensitivity with --range, not both");
+            throw new OptionValueException("--scale", Typed(parse, Scale), "either --scale or --sensitivity with --range, not both");
         }
 
         if (sensitivity is <= 0)
         {
-            throw new OptionValueException("--sensitivity", sensitivityText!, "a positive sensitivity");
+            throw new OptionValueException("--sensitivity", Typed(parse, Sensitivity), "a positive sensitivity");
         }
 
         if (range is <= 0)
         {
-            throw new OptionValueException("--range", rangeText!, "a positive voltage");
+            throw new OptionValueException("--range", Typed(parse, Range), "a positive voltage");
         }
 
-        foreach (var (key, value, text) in new[] { ("scale", scale, scaleText), ("sensitivity", sensitivity, sensitivityText), ("range", range, rangeText), ("rate", rate, rateText) })
+        foreach (var (key, value, option) in new[] { ("scale", scale, Scale), ("sensitivity", sensitivity, Sensitivity), ("range", range, Range), ("rate", rate, Rate) })
         {
             if (value is { } v && CaptureLimits.SettingProblem(key, v) is { } expected)
             {
-                throw new OptionValueException("--" + key, text!, expected);
+                throw new OptionValueException("--" + key, Typed(parse, option), expected);
             }
         }
 
-        if (channel is not null && sumText is not null)
+        if (channel is not null && sum is not null)
         {
-            throw new OptionValueException("--sum", sumText, "either --channel or --sum, not both");
+            throw new OptionValueException("--sum", string.Join(',', sum), "either --channel or --sum, not both");
         }
-
-        IReadOnlyList<string>? sum = null;
-        if (sumText is not null)
-        {
-            var names = sumText.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries);
-            if (names.Length < 2)
-            {
-                throw new OptionValueException("--sum", sumText, "two or more channel names separated by commas, e.g. L1,L2,L3,N");
-            }
-
-            sum = names;
-        }
-
-        var sensor = SensorCouplingNames.Parse("--sensor", sensorText);
 
         return new ImportOptions
         {
@@ -127,8 +93,12 @@ internal sealed class ImportOptionSet
             RateHz = rate,
             Channel = channel,
             SumChannels = sum,
-            Sensor = sensor,
+            Sensor = parse.GetValue(Sensor) ?? new ImportOptions().Sensor,
             Primary = parse.GetValue(Primary),
         };
     }
+
+    /// <summary>The text the user typed for an option, for a message about its value.</summary>
+    internal static string Typed(ParseResult parse, Option option) =>
+        parse.GetResult(option) is { Tokens: [.., var last] } ? last.Value : string.Empty;
 }

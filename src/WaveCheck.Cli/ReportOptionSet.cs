@@ -8,29 +8,29 @@ namespace WaveCheck.Cli;
 /// <summary>What a person asked to get out besides the console summary: report, plots, exit-code policy, progress.</summary>
 internal sealed class ReportOptionSet
 {
-    public Option<string?> Report { get; } = new("--report") { Description = "Write a self-contained HTML report to this file." };
+    public Option<string?> Report { get; } = ValueOptions.Text("--report", "Write a self-contained HTML report to this file.", "FILE");
 
-    public Option<string?> Plots { get; } = new("--plots") { Description = "Write the plots into this folder." };
+    public Option<string?> Plots { get; } = ValueOptions.Text("--plots", "Write the plots into this folder.", "DIR");
 
-    public Option<string> PlotFormat { get; } = new("--plot-format")
-    {
-        Description = "Plot files: png or svg.",
-        DefaultValueFactory = _ => "png",
-    };
+    public Option<PlotFormat?> PlotFormat { get; } = ValueOptions.Choice("--plot-format",
+        $"Plot files: png or svg (default {DefaultPlotFormat.ToString().ToLowerInvariant()}).",
+        ("png", Rendering.Plots.PlotFormat.Png), ("svg", Rendering.Plots.PlotFormat.Svg));
 
-    public Option<string?> Site { get; } = new("--site") { Description = "Site named in the report header, e.g. \"Unit 4, Fernbrook estate\"." };
+    public Option<string?> Site { get; } = ValueOptions.Text("--site", "Site named in the report header, e.g. \"Unit 4, Fernbrook estate\".", "TEXT");
 
-    public Option<string?> Circuit { get; } = new("--circuit") { Description = "Circuit named in the report header, e.g. \"C2 extractor fan\"." };
+    public Option<string?> Circuit { get; } = ValueOptions.Text("--circuit", "Circuit named in the report header, e.g. \"C2 extractor fan\".", "TEXT");
 
-    public Option<string?> Note { get; } = new("--note") { Description = "A note printed in the report header." };
+    public Option<string?> Note { get; } = ValueOptions.Text("--note", "A note printed in the report header.", "TEXT");
 
-    public Option<string?> FailOn { get; } = new("--fail-on")
-    {
-        Description = "Exit with code 1 on these findings, comma-separated: upgrade (installed type not adequate), " +
-                      "nuisance (nuisance-trip risk possible or likely), alarm (a window above --alarm).",
-    };
+    public Option<Finding?> FailOn { get; } = ValueOptions.Findings("--fail-on",
+        "Exit with code 1 on these findings, comma-separated: upgrade (installed type not adequate; needs --device), " +
+        "nuisance (nuisance-trip risk possible or likely), alarm (a window above --alarm).",
+        ("upgrade", Finding.Upgrade), ("nuisance", Finding.Nuisance), ("alarm", Finding.Alarm));
 
     public Option<bool> Quiet { get; } = new("--quiet", "-q") { Description = "No progress display." };
+
+    /// <summary>Plot files when <c>--plot-format</c> is not given.</summary>
+    private const PlotFormat DefaultPlotFormat = Rendering.Plots.PlotFormat.Png;
 
     public void AddTo(Command command)
     {
@@ -44,35 +44,27 @@ internal sealed class ReportOptionSet
         command.Options.Add(Quiet);
     }
 
-    public PlotFormat ReadPlotFormat(ParseResult parse) => (parse.GetValue(PlotFormat) ?? "png").Trim().ToLowerInvariant() switch
-    {
-        "png" => Rendering.Plots.PlotFormat.Png,
-        "svg" => Rendering.Plots.PlotFormat.Svg,
-        var other => throw new OptionValueException("--plot-format", other, "png or svg"),
-    };
+    public PlotFormat ReadPlotFormat(ParseResult parse) => parse.GetValue(PlotFormat) ?? DefaultPlotFormat;
 
-    public FailOnFindings ReadFailOn(ParseResult parse)
+    /// <summary>The findings to fail on; <c>upgrade</c> without an installed device is refused, as it could never
+    /// fire (there is nothing to upgrade) and a pipeline would read exit 0 as "adequate".</summary>
+    /// <param name="parse">The parse result.</param>
+    /// <param name="deviceGiven">Whether an installed device is known for the capture(s).</param>
+    /// <exception cref="UserInputException"><c>upgrade</c> without a device.</exception>
+    public FailOnFindings ReadFailOn(ParseResult parse, bool deviceGiven)
     {
-        var text = parse.GetValue(FailOn);
-        var findings = FailOnFindings.None;
-        if (text is null)
+        var findings = (FailOnFindings)(parse.GetValue(FailOn) ?? Finding.None);
+        if (findings.HasFlag(FailOnFindings.Upgrade) && !deviceGiven)
         {
-            return findings;
-        }
-
-        foreach (var word in text.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries))
-        {
-            findings |= word.ToLowerInvariant() switch
-            {
-                "upgrade" => FailOnFindings.Upgrade,
-                "nuisance" => FailOnFindings.Nuisance,
-                "alarm" => FailOnFindings.Alarm,
-                _ => throw new OptionValueException("--fail-on", text, "upgrade, nuisance and/or alarm, comma-separated"),
-            };
+            throw new UserInputException(UpgradeWithoutDevice);
         }
 
         return findings;
     }
+
+    /// <summary>Why <c>--fail-on upgrade</c> needs a device.</summary>
+    public const string UpgradeWithoutDevice =
+        "--fail-on upgrade: judges the installed device, so it needs --device (e.g. --device A); without one nothing can need an upgrade and the exit code would always be 0";
 }
 
 /// <summary>Findings that turn the exit code to 1.</summary>

@@ -51,9 +51,29 @@ public sealed record Evaluation(AnalysisResult Analysis)
             };
         }
 
+        if (analysis.Components.MainsRmsA >= Limits.ImplausibleResidualMainsRmsA)
+        {
+            // First in the list: a verdict on a load current would read "type AC sufficient" and must not be trusted.
+            analysis = analysis with
+            {
+                Warnings = [ImplausibleResidual(analysis.Components.MainsRmsA, source.Info.ResidualSource), .. analysis.Warnings],
+            };
+        }
+
         var assessment = DeviceTypeAssessor.Assess(analysis, assessmentOptions);
         return new Evaluation(analysis with { Assessment = assessment });
     }
+
+    /// <summary>Code of the warning for a residual current too large at mains frequency to be one.</summary>
+    public const string ImplausibleResidualCode = "implausible-residual";
+
+    /// <summary>The warning for a residual current whose mains-frequency RMS reaches
+    /// <see cref="Limits.ImplausibleResidualMainsRmsA"/>.</summary>
+    /// <param name="mainsRmsA">Mains-frequency RMS, amperes.</param>
+    /// <param name="source">The channel or sum that formed it.</param>
+    public static CaptureWarning ImplausibleResidual(double mainsRmsA, string source) =>
+        new(ImplausibleResidualCode,
+            $"'{source}' carries {Text.CurrentText.WithUnit(mainsRmsA)} at mains frequency, at or above {Text.CurrentText.WithUnit(Limits.ImplausibleResidualMainsRmsA)} (an engineering choice: more than any residual-current device in use would hold): it looks like one conductor's load current, not a residual current; clamp all live conductors together, or add every live conductor's channel with --sum, before trusting any verdict");
 
     /// <summary>Opens <paramref name="path"/> and runs <see cref="Run(ICaptureSource, AnalysisOptions, AssessmentOptions, IProgress{double}?, CancellationToken)"/>.</summary>
     /// <exception cref="CaptureFormatException">The file cannot be read as a capture.</exception>

@@ -100,12 +100,12 @@ public sealed class AnalyzeCommandTests : IDisposable
     {
         // A 60 Hz capture declared 50 Hz: exit 2, one line naming the file and the frequency found (IEC 61000-4-7
         // windows would be the wrong length); --mains-as-given keeps the declaration.
-        var wav = Synth("sixty.wav", "sine:rms=10mA", "--mains", "60");
-        var (exit, _, error) = CliHarness.Run("analyze", wav, "--mains", "50");
+        var wav = Synth("sixty.wav", "sine:rms=10mA", "--mains", "60Hz");
+        var (exit, _, error) = CliHarness.Run("analyze", wav, "--mains", "50Hz");
         Assert.Equal(2, exit);
         Assert.Contains("sixty.wav: mains given as 50 Hz", error, StringComparison.Ordinal);
         Assert.Single(error.Trim().Split('\n'));
-        Assert.Equal(0, CliHarness.Run("analyze", wav, "--mains", "50", "--mains-as-given", "-q").Exit);
+        Assert.Equal(0, CliHarness.Run("analyze", wav, "--mains", "50Hz", "--mains-as-given", "-q").Exit);
     }
 
     [Theory]

@@ -56,7 +56,8 @@ internal static class BadInputCorpus
         yield return WavCase("wav-fmt-tag", Bad, s => s.Tag = 2, _ => [Byte(WavSpec.TagOffset), "encoding tag 2"]);
         yield return WavCase("wav-channels-zero", Bad, s => s.Channels = 0, _ => [Byte(WavSpec.ChannelsOffset), "channel count 0"]);
         yield return WavCase("wav-channels-300", Bad, s => s.Channels = 300, _ => [Byte(WavSpec.ChannelsOffset), "channel count 300"]);
-        yield return WavCase("wav-channels-2", Ok, s => s.Channels = 2, _ => []);
+        // Two channels and nothing says which is the residual current: refused, naming both ways out (issue 14).
+        yield return WavCase("wav-channels-2", Bad, s => s.Channels = 2, _ => ["2 channels could carry the residual current (ch1, ch2)", "--sum ch1,ch2", "--channel ch1"]);
         yield return WavCase("wav-rate-zero", Bad, s => s.Rate = 0, _ => [Byte(WavSpec.RateOffset), "outside 1 Hz to 10 MHz"]);
         yield return WavCase("wav-rate-int-max", Bad, s => s.Rate = int.MaxValue, _ => [Byte(WavSpec.RateOffset), "outside 1 Hz to 10 MHz"]);
         yield return WavCase("wav-rate-20MHz", Bad, s => s.Rate = 20_000_000, _ => [Byte(WavSpec.RateOffset)]);
@@ -192,7 +193,7 @@ internal static class BadInputCorpus
         // The look-ahead reads its time cells as the reader reads every later row: the same words for one fault.
         yield return CsvCase("csv-time-text", Bad, () => header + Rows(0, 5) + "x,1\n" + Rows(6, 10), _ => ["csv-time-text.csv:7:1", "'x' is not a number"]);
         yield return CsvCase("csv-time-text-late", Bad, () => header + Rows(0, 1000) + "x,1\n" + Rows(1001, 1100), _ => ["csv-time-text-late.csv:1002:1", "'x' is not a number"]);
-        yield return CsvCase("csv-short-row", Bad, () => "time [s],I1 [mA],I2 [mA]\n0,1,2\n0.001,2\n", _ => ["csv-short-row.csv:3:3", "row has 2 fields"]);
+        yield return CsvCase("csv-short-row", Bad, () => "time [s],I1 [mA],U [mV]\n0,1,2\n0.001,2\n", _ => ["csv-short-row.csv:3:3", "row has 2 fields"]);
         yield return CsvCase("csv-cell-text", Bad, () => InputFiles.Csv(n => n == 1200 ? "0.3,abc" : null), _ => ["csv-cell-text.csv:1202:2", "'abc' is not a number"]);
         yield return CsvCase("csv-cell-nan", Bad, () => InputFiles.Csv(n => n == 3 ? $"{3 / 4000.0:R},nan" : null), _ => ["csv-cell-nan.csv:5:2", "not a finite number"]);
         yield return CsvCase("csv-cell-infinity", Bad, () => InputFiles.Csv(n => n == 1500 ? "0.375,Infinity" : null), _ => ["csv-cell-infinity.csv:1502:2", "not a finite number"]);
@@ -369,7 +370,7 @@ internal static class BadInputCorpus
         yield return SiteCase("site-rated-200A", Bad, () => InputFiles.Site(entry: "\"rated\": \"200A\""),
             t => [.. At(t, "\"200A\""), "\"rated\"", "up to 100 A"]);
         yield return SiteCase("site-rated-zero", Bad, () => InputFiles.Site(entry: "\"rated\": \"0mA\""), t => [.. At(t, "\"0mA\""), "\"rated\""]);
-        yield return SiteCase("site-rated-bare", Bad, () => InputFiles.Site(entry: "\"rated\": 30"), t => [.. At(t, "30 }"), "without a unit"]);
+        yield return SiteCase("site-rated-bare", Bad, () => InputFiles.Site(entry: "\"rated\": 30"), t => [.. At(t, "30 }"), "has no unit", "did you mean \"30mA\"?"]);
         yield return SiteCase("site-rated-text", Bad, () => InputFiles.Site(entry: "\"rated\": \"lots\""), t => [.. At(t, "\"lots\""), "\"rated\""]);
         yield return SiteCase("site-rated-1e400", Bad, () => InputFiles.Site(entry: "\"rated\": 1e400"), t => [.. At(t, "1e400"), "out of range"]);
         yield return SiteCase("site-scale-1e300", Bad, () => InputFiles.Site(entry: "\"scale\": \"1e300A\""), t => [.. At(t, "\"1e300A\""), "\"scale\""]);

@@ -94,7 +94,8 @@ public sealed class SurveyCommandTests : IDisposable
     [InlineData(new[] { "info" }, "wavecheck info")]
     [InlineData(new[] { "survey", "--parkett" }, "did you mean '--parquet'")]
     [InlineData(new[] { "survey", "x.wav", "--scale", "-100mA" }, "--scale: cannot use '-100mA': expected a positive current")]
-    [InlineData(new[] { "survey", "x.wav", "--rated", "0" }, "--rated: cannot use '0': expected a positive current")]
+    [InlineData(new[] { "survey", "x.wav", "--rated", "0mA" }, "--rated: cannot use '0mA': expected a positive current")]
+    [InlineData(new[] { "survey", "x.wav", "--rated", "30" }, "--rated: cannot use '30': expected a current with its unit, such as 30mA, 0.3A or 300uA; did you mean 30mA?")]
     public void Usage_errors_give_one_line_and_exit_2(string[] args, string expected)
     {
         var (exit, _, error) = CliHarness.Run(args);

@@ -102,7 +102,7 @@ public sealed class SynthCommandTests : IDisposable
         // RIFF/WAVE (closed form): chunk sizes are 32-bit, so a float32 mono file holds at most about 2^32 / 4 =
         // 1.07e9 samples; 2.4e9 (8 h at 80 kS/s) must be refused at once, with one line and no file.
         var path = FilePath("huge.wav");
-        var (exit, _, error) = CliHarness.Run(["synth", "sine", "-o", path, "--rate", "80000", "--duration", "8h", "--format", "float32"]);
+        var (exit, _, error) = CliHarness.Run(["synth", "sine", "-o", path, "--rate", "80kHz", "--duration", "8h", "--format", "float32"]);
         Assert.Equal(2, exit);
         Assert.Contains("--duration", error, StringComparison.Ordinal);
         Assert.Contains("4 GiB", error, StringComparison.Ordinal);

@@ -55,8 +55,8 @@ public class EvaluationTests
     [InlineData(DeviceType.B, new[] { "rectified:mean=3mA,pulses=6", "sine:rms=20mA" })]
     // Sinusoidal AC up to 1 kHz at a frequency other than mains is type B's (IEC 62423), with or without a motor
     // frequency beside it: adding a component never weakens the verdict.
-    [InlineData(DeviceType.B, new[] { "sine:rms=10mA,freq=150", "sine:rms=2mA" })]
-    [InlineData(DeviceType.B, new[] { "sine:rms=10mA,freq=150", "sine:rms=2mA", "sine:rms=3mA,freq=23" })]
+    [InlineData(DeviceType.B, new[] { "sine:rms=10mA,freq=150Hz", "sine:rms=2mA" })]
+    [InlineData(DeviceType.B, new[] { "sine:rms=10mA,freq=150Hz", "sine:rms=2mA", "sine:rms=3mA,freq=23Hz" })]
     // Extended-frequency type B (B+, DIN VDE 0664-400): tripping defined up to 20 kHz; switching leakage at 16 kHz.
     [InlineData(DeviceType.BPlus, new[] { "sine:rms=5mA", "switching:rms=10mA,freq=16kHz" })]
     public void Each_test_current_of_the_standards_gets_its_type(DeviceType expected, string[] parts)
@@ -176,5 +176,37 @@ public class EvaluationTests
         var result = Evaluate(["sine:rms=5mA", "dc:level=9mA"], assessment: new AssessmentOptions { InstalledType = DeviceType.A });
         Assert.True(result.Assessment.Blinding.Blinded);
         Assert.False(result.Assessment.InstalledAdequate);
+    }
+
+    [Fact]
+    public void A_load_current_taken_for_the_residual_current_is_warned_about_first()
+    {
+        // Engineering choice (Limits.ImplausibleResidualMainsRmsA, 1 A): 10 A rms at 50 Hz is a phase conductor's
+        // load current, not a residual current any RCD in use would hold (REFERENCE.md: ratings to 1 A, practice).
+        var load = Evaluate(["sine:rms=10A", "dc:level=2mA"]);
+        var first = load.Analysis.Warnings[0];
+        Assert.Equal(Evaluation.ImplausibleResidualCode, first.Code);
+        Assert.Contains("10000 mA at mains frequency", first.Message, StringComparison.Ordinal);
+        Assert.Contains(load.Assessment.Cautions, c => c.Contains("not a residual current", StringComparison.Ordinal));
+
+        // Just below the threshold (0.9 A rms): a large residual current, but no such warning.
+        var large = Evaluate(["sine:rms=0.9A"]);
+        Assert.DoesNotContain(large.Analysis.Warnings, w => w.Code == Evaluation.ImplausibleResidualCode);
+    }
+
+    [Theory]
+    // REFERENCE.md "rated IΔn values in use": 10, 30, 100, 300, 500 mA (1 A for some), practice; 6 mA from memory.
+    [InlineData(0.030, false)]
+    [InlineData(0.3, false)]
+    [InlineData(1.0, false)]
+    [InlineData(0.006, false)]
+    [InlineData(0.025, true)]
+    [InlineData(0.00003, true)]   // "30" read as µA-scale slip: 0.03 mA
+    [InlineData(30.0, true)]      // "30" read as amperes
+    public void A_rating_off_the_ones_in_use_is_cautioned_about(double ratedA, bool cautioned)
+    {
+        var result = Evaluate(["sine:rms=2mA"], assessment: new AssessmentOptions { RatedResidualCurrentA = ratedA });
+        Assert.Equal(cautioned, !Limits.IsRatingInUse(ratedA));
+        Assert.Equal(cautioned, result.Assessment.Cautions.Any(c => c.StartsWith("IΔn ", StringComparison.Ordinal) && c.Contains("not a rating in use", StringComparison.Ordinal)));
     }
 }

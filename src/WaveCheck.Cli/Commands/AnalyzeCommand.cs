@@ -23,31 +23,26 @@ internal static class AnalyzeCommand
         var imports = new ImportOptionSet();
         var assessment = new AssessmentOptionSet();
         var outputs = new ReportOptionSet();
-        var mains = new Option<string>("--mains")
-        {
-            Description = "Mains frequency: auto (find 50 or 60 Hz), 50, 60 or another frequency such as 400Hz; tracked within ±5 %.",
-            DefaultValueFactory = _ => "auto",
-        };
+        var mains = ValueOptions.FrequencyOrAuto("--mains",
+            "Mains frequency: auto (find 50 or 60 Hz), 50Hz, 60Hz or another frequency such as 400Hz; tracked within ±5 % (default auto).");
         var mainsAsGiven = new Option<bool>("--mains-as-given")
         {
             Description = "Keep the --mains frequency even where the capture's own mains content contradicts it (otherwise that stops with an error).",
         };
-        var restBand = new Option<string?>("--rest-band")
-        {
-            Description = "Band above its floor within which the current counts as at rest, for the 150° test of pulsating DC (default 2mA; IEC 61008-1 allows 6 mA).",
-        };
-        var alarm = new Option<string?>("--alarm")
-        {
-            Description = "Record windows whose RMS exceeds this current as alarm events, e.g. 15mA (with --fail-on alarm: exit code 1).",
-        };
-        var json = new Option<string?>("--json") { Description = "Write the full analysis and assessment as JSON to this file, or - for stdout." };
+        var restBand = ValueOptions.Current("--rest-band",
+            $"Band above its floor within which the current counts as at rest, for the 150° test of pulsating DC (default {Quantity.CurrentAsTyped(WaveformShape.DefaultRestBandA)}; IEC 61008-1 allows 6 mA).",
+            positive: true);
+        var alarm = ValueOptions.Current("--alarm",
+            "Record windows whose RMS exceeds this current as alarm events, e.g. 15mA (with --fail-on alarm: exit code 1).");
+        var json = ValueOptions.Text("--json", "Write the full analysis and assessment as JSON to this file, or - for stdout.", "FILE|-");
         var touch = new Option<bool>("--touch") { Description = "Also print the IEC 60990 weighted touch-current readings and common limits (equipment testing)." };
-        var windowsCsv = new Option<string?>("--windows-csv") { Description = "Write one CSV row per 10/12-cycle window (SI units) to this file." };
+        var windowsCsv = ValueOptions.Text("--windows-csv", "Write one CSV row per 10/12-cycle window (SI units) to this file.", "FILE");
 
         var command = new Command("analyze",
             "Measure a residual-current capture and tell which RCD type it demands. Examples:\n" +
             "  wavecheck analyze fan.wav --scale 100mA --sensor dc --device A --rated 30mA --report fan.html\n" +
             "  wavecheck analyze log.csv --sum L1,L2,L3,N --rate 10kHz --alarm 15mA --json result.json");
+        command.Aliases.Add("analyse");
         command.Arguments.Add(file);
         imports.AddTo(command);
         assessment.AddTo(command);
@@ -63,19 +58,17 @@ internal static class AnalyzeCommand
         {
             var import = imports.Read(parse);
             var assessmentOptions = assessment.Read(parse);
-            var mainsText = parse.GetValue(mains) ?? "auto";
+            AssessmentOptionSet.WarnAboutRating(assessmentOptions.RatedResidualCurrentA);
             var options = new AnalysisOptions
             {
-                MainsHz = mainsText.Trim().Equals("auto", StringComparison.OrdinalIgnoreCase)
-                    ? null
-                    : Quantity.ParseFrequencyHz("--mains", mainsText),
+                MainsHz = parse.GetValue(mains),
                 KeepGivenMains = parse.GetValue(mainsAsGiven),
-                RestBandA = parse.GetValue(restBand) is { } rb ? Quantity.ParsePositiveCurrentA("--rest-band", rb, bareUnit: "mA") : WaveformShape.DefaultRestBandA,
-                AlarmA = parse.GetValue(alarm) is { } alarmText ? Quantity.ParseCurrentA("--alarm", alarmText, bareUnit: "mA") : null,
+                RestBandA = parse.GetValue(restBand) ?? WaveformShape.DefaultRestBandA,
+                AlarmA = parse.GetValue(alarm),
             };
             options.Validate();
             var plotFormat = outputs.ReadPlotFormat(parse);
-            var failOn = outputs.ReadFailOn(parse);
+            var failOn = outputs.ReadFailOn(parse, deviceGiven: assessmentOptions.InstalledType is not null);
             var jsonPath = parse.GetValue(json);
             var csvPath = parse.GetValue(windowsCsv);
             var plotsDir = parse.GetValue(outputs.Plots);
@@ -144,6 +137,7 @@ internal static class AnalyzeCommand
             if (jsonPath != "-")
             {
                 var console = ConsoleOutput.Create();
+                PrintLoudWarnings(console, result);
                 VerdictPrinter.Print(console, evaluation.Assessment, parse.GetValue(touch));
                 Print(console, result);
             }
@@ -151,6 +145,16 @@ internal static class AnalyzeCommand
             return Exit(evaluation, failOn);
         }));
         return command;
+    }
+
+    /// <summary>Warnings that make every figure below them suspect, printed before the verdict (and repeated with the
+    /// other warnings after it).</summary>
+    private static void PrintLoudWarnings(IAnsiConsole console, AnalysisResult result)
+    {
+        foreach (var warning in result.Warnings.Where(w => w.Code == Evaluation.ImplausibleResidualCode))
+        {
+            console.MarkupLine($"[bold red]WARNING: not a residual current?[/] {Markup.Escape(warning.Message)}");
+        }
     }
 
     /// <summary>Exit code 1 only for the findings the user asked to fail on.</summary>

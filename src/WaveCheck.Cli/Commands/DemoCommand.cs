@@ -26,7 +26,7 @@ internal static class DemoCommand
                 parse.GetValue(quiet), run);
             Console.Out.WriteLine(TerminalText.Clean(
                 $"Open {Path.GetFullPath(Path.Combine(outputDirectory, "index.html"))} in a browser; each circuit links its report."));
-            return SurveyCommand.Exit(document, (false, false, false));
+            return SurveyCommand.Exit(document, Core.Model.Finding.None);
         }));
         return command;
     }

@@ -13,8 +13,8 @@ internal static class InfoCommand
 {
     public static Command Create()
     {
-        var file = new Argument<string>("file") { Description = "Capture file: WAV, CSV/TXT/TSV." };
-        var json = new Option<string?>("--json") { Description = "Also write the facts as JSON to this file, or '-' for stdout (then no table)." };
+        var file = new Argument<string>("file") { Description = "Capture file: WAV, CSV/TXT/TSV, or COMTRADE .cfg/.cff." };
+        var json = ValueOptions.Text("--json", "Also write the facts as JSON to this file, or '-' for stdout (then no table).", "FILE|-");
         var import = new ImportOptionSet();
         var command = new Command("info",
             "Show a capture's format, channels, rate, calibration, range and warnings. Examples:\n" +
@@ -25,7 +25,7 @@ internal static class InfoCommand
         import.AddTo(command);
         command.SetAction(parse => CliRun.Guard(run =>
         {
-            var options = import.Read(parse);
+            var options = import.Read(parse) with { DescribeOnly = true };
             var path = parse.GetValue(file)!;
             var jsonPath = parse.GetValue(json);
             var plan = new OutputPlan();

@@ -21,17 +21,23 @@ internal static class SurveyCommand
 
     public static Command Create()
     {
-        var paths = new Argument<string[]>("capture") { Description = "Capture files or folders of them (not with --config).", Arity = ArgumentArity.ZeroOrMore };
-        var config = new Option<string?>("--config") { Description = "Site file (JSON) mapping captures to circuits, devices and upstream devices." };
-        var output = new Option<string>("--output", "-o") { Description = "Folder for the summary and reports.", DefaultValueFactory = _ => "wavecheck-survey" };
+        var paths = new Argument<string[]>("capture")
+        {
+            Description = "Capture files or folders of them. With --config the site file names the captures (relative to itself); a folder may still be given beside it, as in 'survey site/ --config site/site.json', but files may not.",
+            Arity = ArgumentArity.ZeroOrMore,
+        };
+        var config = ValueOptions.Text("--config", "Site file (JSON) mapping captures to circuits, devices and upstream devices.", "FILE");
+        var output = new Option<string>("--output", "-o") { Description = "Folder for the summary and reports.", HelpName = "DIR", DefaultValueFactory = _ => "wavecheck-survey" };
         var parquet = new Option<bool>("--parquet") { Description = "Also write captures.parquet and windows.parquet." };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "No progress display." };
-        var failOn = new Option<string?>("--fail-on") { Description = "Exit with code 1 on: upgrade, nuisance, error (a capture that could not be read); comma-separated." };
-        var rated = new Option<string?>("--rated") { Description = "IΔn for every capture, e.g. 30mA (overrides the site file)." };
-        var device = new Option<string?>("--device") { Description = "Installed type for every capture: AC, A, F, B or B+ (overrides the site file)." };
-        var sensor = new Option<string?>("--sensor") { Description = "Sensor coupling for every capture: dc, ac or unknown (overrides the site file)." };
-        var scale = new Option<string?>("--scale") { Description = "WAV full scale for every capture, e.g. 100mA (overrides the site file)." };
-        var regime = new Option<string?>("--regime") { Description = "iec or na for every capture (overrides the site file)." };
+        var failOn = ValueOptions.Findings("--fail-on",
+            "Exit with code 1 on: upgrade (an installed device not adequate; needs --device or devices in the site file), nuisance, error (a capture that could not be read); comma-separated.",
+            ("upgrade", Finding.Upgrade), ("nuisance", Finding.Nuisance), ("error", Finding.Error));
+        var rated = ValueOptions.Current("--rated", "IΔn for every capture, e.g. 30mA (overrides the site file).", positive: true);
+        var device = ValueOptions.Device("--device", "Installed type for every capture: AC, A, F, B or B+, optionally with +RDC-DD (overrides the site file).");
+        var sensor = ValueOptions.Choice("--sensor", "Sensor coupling for every capture: dc, ac or unknown (overrides the site file).", ValueOptions.SensorWords);
+        var scale = ValueOptions.Current("--scale", "WAV full scale for every capture, e.g. 100mA (overrides the site file).", positive: true);
+        var regime = ValueOptions.Choice("--regime", "iec or na for every capture (overrides the site file).", ValueOptions.RegimeWords);
 
         var command = new Command("survey",
             "Judge every capture of a site in parallel and write a summary (CSV, JSON, HTML index, reports). Examples:\n" +
@@ -42,25 +48,22 @@ internal static class SurveyCommand
         };
         command.SetAction(parse => CliRun.Guard(run =>
         {
+            var protection = parse.GetValue(device);
             var overrides = new CaptureSettingsPatch
             {
-                RatedResidualCurrentA = parse.GetValue(rated) is { } r ? Quantity.ParsePositiveCurrentA("--rated", r, bareUnit: "mA") : null,
-                InstalledType = parse.GetValue(device) is { } d
-                    ? DeviceTypeNames.TryParseProtection(d, out var t, out _) ? t : throw new OptionValueException("--device", d, "AC, A, F, B or B+, optionally with +RDC-DD")
-                    : null,
-                InstalledRdcDd = parse.GetValue(device) is { } dd && DeviceTypeNames.TryParseProtection(dd, out _, out var rdc) ? rdc : null,
-                Sensor = parse.GetValue(sensor) is { } s ? SensorCouplingNames.Parse("--sensor", s) : null,
-                ScaleA = parse.GetValue(scale) is { } sc ? Quantity.ParsePositiveCurrentA("--scale", sc) : null,
-                Regime = parse.GetValue(regime) is { } rg
-                    ? RegimeNames.TryParse(rg, out var parsedRegime) ? parsedRegime : throw new OptionValueException("--regime", rg, "iec or na")
-                    : null,
+                RatedResidualCurrentA = parse.GetValue(rated),
+                InstalledType = protection?.Type,
+                InstalledRdcDd = protection?.RdcDd,
+                Sensor = parse.GetValue(sensor),
+                ScaleA = parse.GetValue(scale),
+                Regime = parse.GetValue(regime),
             };
-            var fail = ParseFailOn(parse.GetValue(failOn));
+            var fail = parse.GetValue(failOn) ?? Finding.None;
             var given = parse.GetValue(paths) ?? [];
             var configPath = parse.GetValue(config);
             if (configPath is not null && given.Length > 0 && !(given.Length == 1 && Directory.Exists(given[0])))
             {
-                throw new OptionValueException("--config", configPath, "a site file alone, or capture files without one: not both");
+                throw new OptionValueException("--config", configPath, "a site file alone (or beside the site's folder), or capture files without one: not both");
             }
 
             IReadOnlyList<SurveyJob> jobs;
@@ -78,6 +81,16 @@ internal static class SurveyCommand
                 var files = ExpandPaths(given);
                 var settings = overrides.ApplyTo(new CaptureSettings());
                 jobs = [.. files.Select(f => new SurveyJob(f, settings with { Circuit = Path.GetFileNameWithoutExtension(f) }))];
+            }
+
+            if (fail.HasFlag(Finding.Upgrade) && !jobs.Any(j => j.Settings.InstalledType is not null))
+            {
+                throw new UserInputException(ReportOptionSet.UpgradeWithoutDevice + (configPath is null ? "" : " (or \"device\" in the site file)"));
+            }
+
+            foreach (var ratedA in jobs.Select(j => j.Settings.RatedResidualCurrentA).Distinct())
+            {
+                AssessmentOptionSet.WarnAboutRating(ratedA);
             }
 
             var document = Run(jobs, upstream, site, configPath, parse.GetValue(output)!, parse.GetValue(parquet), parse.GetValue(quiet), run);
@@ -121,7 +134,7 @@ internal static class SurveyCommand
         return document;
     }
 
-    internal static int Exit(SurveyDocument document, (bool Upgrade, bool Nuisance, bool Error) fail)
+    internal static int Exit(SurveyDocument document, Finding asked)
     {
         if (document.Rows.Count > 0 && document.Rows.All(r => r.Verdict == SurveyVerdict.Error))
         {
@@ -129,8 +142,6 @@ internal static class SurveyCommand
             return CliRun.BadInput;
         }
 
-        var asked = (fail.Upgrade ? Finding.Upgrade : Finding.None) | (fail.Nuisance ? Finding.Nuisance : Finding.None)
-            | (fail.Error ? Finding.Error : Finding.None);
         return (Findings.Of(document) & asked) != Finding.None ? CliRun.Finding : CliRun.Ok;
     }
 
@@ -199,24 +210,6 @@ internal static class SurveyCommand
 
         return files;
     }
-
-    private static (bool Upgrade, bool Nuisance, bool Error) ParseFailOn(string? text)
-    {
-        var result = (Upgrade: false, Nuisance: false, Error: false);
-        foreach (var word in (text ?? "").Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries))
-        {
-            switch (word.ToLowerInvariant())
-            {
-                case "upgrade": result.Upgrade = true; break;
-                case "nuisance": result.Nuisance = true; break;
-                case "error": result.Error = true; break;
-                default: throw new OptionValueException("--fail-on", text!, "upgrade, nuisance and/or error, comma-separated");
-            }
-        }
-
-        return result;
-    }
-
 
     private sealed class SurveyProgress(Action<(int Done, int Total)> report) : IProgress<(int Done, int Total)>
     {

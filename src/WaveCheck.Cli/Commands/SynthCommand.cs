@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using WaveCheck.Core;
+using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Synthesis;
 using WaveCheck.Core.Model;
@@ -17,45 +18,47 @@ internal static class SynthCommand
         var parts = new Argument<string[]>("part")
         {
             Description = "Parts to add up, each kind[:key=value,...]: " +
-                          "sine:rms=30mA,freq=50 | halfwave:peak=30mA,angle=90[,polarity=neg] | dc:level=8mA | " +
+                          "sine:rms=30mA,freq=50Hz | halfwave:peak=30mA,angle=90[,polarity=neg] | dc:level=8mA | " +
                           "sixpulse:mean=20mA | switching:rms=5mA,freq=16kHz,motor=35Hz | composite:rms=20mA,motor=10Hz,switch=1kHz | " +
                           "noise:rms=0.1mA,seed=1",
             Arity = ArgumentArity.OneOrMore,
         };
-        var output = new Option<string>("--output", "-o") { Description = "File to write: .wav or .csv.", Required = true };
-        var rate = new Option<string>("--rate") { Description = "Sample rate, e.g. 50kHz.", DefaultValueFactory = _ => "50kHz" };
-        var duration = new Option<string>("--duration") { Description = "Length, e.g. 2s or 10min.", DefaultValueFactory = _ => "2s" };
-        var mains = new Option<string>("--mains") { Description = "Mains frequency for parts that do not state one, e.g. 50 or 60.", DefaultValueFactory = _ => "50" };
-        var fullScale = new Option<string?>("--full-scale")
-        {
-            Description = "WAV full scale, e.g. 100mA; samples beyond it clip as on a recorder. Default: the next 1-2-5 step above 1.25 × the peak.",
-        };
-        var format = new Option<string>("--format") { Description = "WAV encoding: pcm16, pcm24, pcm32, float32 or float64.", DefaultValueFactory = _ => "float32" };
-        var sensor = new Option<string>("--sensor") { Description = "Sensor coupling stored in the WAV: dc, ac or unknown.", DefaultValueFactory = _ => "dc" };
+        var output = new Option<string>("--output", "-o") { Description = "File to write: .wav or .csv.", HelpName = "FILE", Required = true };
+        var rate = ValueOptions.Frequency("--rate", $"Sample rate, e.g. 50kHz (default {Quantity.FrequencyAsTyped(DefaultRateHz)}).");
+        var duration = ValueOptions.Duration("--duration", $"Length, e.g. 2s or 10min (default {DefaultDurationS.ToString(CultureInfo.InvariantCulture)}s).");
+        var mains = ValueOptions.Frequency("--mains", $"Mains frequency for parts that do not state one, e.g. 50Hz or 60Hz (default {Quantity.FrequencyAsTyped(DefaultMainsHz)}).");
+        var fullScale = ValueOptions.Current("--full-scale",
+            "WAV full scale, e.g. 100mA; samples beyond it clip as on a recorder. Default: the next 1-2-5 step above 1.25 × the peak.",
+            positive: true);
+        var format = ValueOptions.Choice("--format", $"WAV encoding: pcm16, pcm24, pcm32, float32 or float64 (default {DefaultFormat.ToString().ToLowerInvariant()}).",
+            ("pcm16", WavSampleFormat.Pcm16), ("pcm24", WavSampleFormat.Pcm24), ("pcm32", WavSampleFormat.Pcm32),
+            ("float32", WavSampleFormat.Float32), ("float64", WavSampleFormat.Float64));
+        var sensor = ValueOptions.Choice("--sensor", $"Sensor coupling stored in the WAV: dc, ac or unknown (default {DefaultSensor.ToString().ToLowerInvariant()}).",
+            ValueOptions.SensorWords);
 
         var command = new Command("synth",
             "Write a test waveform (standard test currents, drive and charger leakage) to WAV or CSV. Examples:\n" +
             "  wavecheck synth halfwave:peak=30mA,angle=90 dc:level=8mA -o typeF-test.wav\n" +
-            "  wavecheck synth composite:rms=20mA,motor=10Hz,switch=1kHz --mains 60 --rate 50kHz -o drive.csv")
+            "  wavecheck synth composite:rms=20mA,motor=10Hz,switch=1kHz --mains 60Hz --rate 50kHz -o drive.csv")
         {
             parts, output, rate, duration, mains, fullScale, format, sensor,
         };
         command.SetAction(parse => CliRun.Guard(run =>
         {
-            var rateHz = Quantity.ParseFrequencyHz("--rate", parse.GetValue(rate)!);
-            var durationS = Quantity.ParseDurationS("--duration", parse.GetValue(duration)!);
-            var mainsHz = Quantity.ParseFrequencyHz("--mains", parse.GetValue(mains)!);
+            var rateHz = parse.GetValue(rate) ?? DefaultRateHz;
+            var durationS = parse.GetValue(duration) ?? DefaultDurationS;
+            var mainsHz = parse.GetValue(mains) ?? DefaultMainsHz;
             if (rateHz < 100 || rateHz > 10_000_000 || rateHz != Math.Round(rateHz))
             {
-                throw new OptionValueException("--rate", parse.GetValue(rate)!, "a whole number of hertz from 100 Hz to 10 MHz");
+                throw new OptionValueException("--rate", ImportOptionSet.Typed(parse, rate), "a whole number of hertz from 100 Hz to 10 MHz");
             }
 
             if (durationS <= 0 || durationS * rateHz > 4e9)
             {
-                throw new OptionValueException("--duration", parse.GetValue(duration)!, "a positive duration of at most 4e9 samples");
+                throw new OptionValueException("--duration", ImportOptionSet.Typed(parse, duration), "a positive duration of at most 4e9 samples");
             }
 
-            var sensorCoupling = SensorCouplingNames.Parse("--sensor", parse.GetValue(sensor)!);
+            var sensorCoupling = parse.GetValue(sensor) ?? DefaultSensor;
             var components = parse.GetValue(parts)!.SelectMany(p => SynthesisSpec.Parse(p, mainsHz)).ToList();
             var path = parse.GetValue(output)!;
             var plan = new OutputPlan();
@@ -74,18 +77,17 @@ internal static class SynthCommand
             }
             else if (extension == ".wav")
             {
-                var encoding = ParseFormat(parse.GetValue(format)!);
+                var encoding = parse.GetValue(format) ?? DefaultFormat;
                 if (durationS * rateHz > CaptureWriter.MaxWavFrames(encoding, 1))
                 {
-                    throw new OptionValueException("--duration", parse.GetValue(duration)!, string.Create(CultureInfo.InvariantCulture,
+                    throw new OptionValueException("--duration", ImportOptionSet.Typed(parse, duration), string.Create(CultureInfo.InvariantCulture,
                         $"at most {CaptureWriter.MaxWavFrames(encoding, 1):N0} samples in a {encoding} WAV (4 GiB of sample data): a shorter duration, or a .csv output"));
                 }
 
-                var fullScaleText = parse.GetValue(fullScale);
                 double fullScaleA;
-                if (fullScaleText is not null)
+                if (parse.GetValue(fullScale) is { } given)
                 {
-                    fullScaleA = Quantity.ParsePositiveCurrentA("--full-scale", fullScaleText);
+                    fullScaleA = given;
                 }
                 else
                 {
@@ -142,13 +144,18 @@ internal static class SynthCommand
         return 10 * decade;
     }
 
-    private static WavSampleFormat ParseFormat(string text) => text.Trim().ToLowerInvariant() switch
-    {
-        "pcm16" => WavSampleFormat.Pcm16,
-        "pcm24" => WavSampleFormat.Pcm24,
-        "pcm32" => WavSampleFormat.Pcm32,
-        "float32" => WavSampleFormat.Float32,
-        "float64" => WavSampleFormat.Float64,
-        _ => throw new OptionValueException("--format", text, "pcm16, pcm24, pcm32, float32 or float64"),
-    };
+    /// <summary>Sample rate when <c>--rate</c> is not given: the rate the cautions recommend.</summary>
+    private const double DefaultRateHz = Limits.RecommendedSampleRateHz;
+
+    /// <summary>Length when <c>--duration</c> is not given, seconds.</summary>
+    private const double DefaultDurationS = 2;
+
+    /// <summary>Mains frequency of parts that do not state one when <c>--mains</c> is not given.</summary>
+    private const double DefaultMainsHz = 50;
+
+    /// <summary>WAV encoding when <c>--format</c> is not given.</summary>
+    private const WavSampleFormat DefaultFormat = WavSampleFormat.Float32;
+
+    /// <summary>Sensor coupling stored when <c>--sensor</c> is not given: a synthesized current has its DC.</summary>
+    private const SensorCoupling DefaultSensor = SensorCoupling.Dc;
 }

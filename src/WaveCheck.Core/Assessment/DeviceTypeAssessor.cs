@@ -228,6 +228,11 @@ public static class DeviceTypeAssessor
         SensorCoupling coupling, bool acSignature, bool hfCovered, BlindingResult blinding, EvChargingResult? declaredChargingPoint)
     {
         var c = new List<string>();
+        if (!Limits.IsRatingInUse(th.RatedA))
+        {
+            c.Add(RatingCaution(th.RatedA));
+        }
+
         if (blinding.Blinded == true)
         {
             c.Add(blinding.Explanation);
@@ -281,4 +286,9 @@ public static class DeviceTypeAssessor
     }
 
     private static string Ma(double amperes) => CurrentText.WithUnit(amperes);
+
+    /// <summary>The caution for an IΔn off the list of ratings in use (<see cref="Limits.RatedResidualCurrentsInUseA"/>).</summary>
+    /// <param name="ratedA">IΔn, amperes.</param>
+    public static string RatingCaution(double ratedA) =>
+        $"IΔn {Ma(ratedA)} is not a rating in use ({string.Join(", ", Limits.RatedResidualCurrentsInUseA.Select(Quantity.CurrentAsTyped))}): check the device's marking and the unit of the value given; every margin here is a share of it.";
 }

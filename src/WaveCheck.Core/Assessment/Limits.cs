@@ -15,6 +15,28 @@ public static class Limits
     /// 10, 30, 100, 300, 500 mA.</remarks>
     public const double DefaultRatedResidualCurrentA = 0.030;
 
+    /// <summary>Rated residual operating currents IΔn in use: 6, 10, 30, 100, 300 and 500 mA, and 1 A.</summary>
+    /// <remarks>Practice (10, 30, 100, 300, 500 mA and 1 A for some, as in the project's reference table); 6 mA
+    /// from memory (devices for personal protection in some markets). A rating off this list is accepted but
+    /// cautioned about: it is more often a slip in the value or its unit than a device, and a unit slip changes every
+    /// margin a thousandfold.</remarks>
+    public static IReadOnlyList<double> RatedResidualCurrentsInUseA { get; } = [0.006, 0.010, 0.030, 0.100, 0.300, 0.500, 1.0];
+
+    /// <summary>Whether <paramref name="ratedA"/> is one of <see cref="RatedResidualCurrentsInUseA"/> (to 0.1 %, the
+    /// rounding of a value typed in another unit).</summary>
+    /// <param name="ratedA">IΔn, amperes.</param>
+    public static bool IsRatingInUse(double ratedA) =>
+        RatedResidualCurrentsInUseA.Any(r => Math.Abs(ratedA - r) <= 1e-3 * r);
+
+    /// <summary>A "residual current" whose mains-frequency RMS (harmonic group 1) reaches 1 A is implausible and
+    /// warned about loudly.</summary>
+    /// <remarks>Engineering choice: 1 A is the largest rating in <see cref="RatedResidualCurrentsInUseA"/>, twice its
+    /// non-operating current; a circuit that really leaked this much at mains frequency would trip any residual-current
+    /// device in use, so a capture showing it has almost always recorded one conductor's load current (a clamp round a
+    /// phase, a logger channel of a phase current) instead of the sum of all live conductors. Its verdict would read
+    /// "type AC sufficient" for a plain load current, which is why the warning comes first.</remarks>
+    public const double ImplausibleResidualMainsRmsA = 1.0;
+
     /// <summary>Rated residual non-operating current as a fraction of IΔn: 0.5.</summary>
     /// <remarks>IEC 61008-1 / IEC 61009-1 (Table 1: AC tripping range 0.5 to 1.0 IΔn), std. A standing current at or
     /// above it may trip a healthy device.</remarks>

@@ -90,7 +90,7 @@ public sealed record MeasurementAccuracy(double ReadingFraction, double OffsetA)
             {
                 try
                 {
-                    offset += Capture.Quantity.ParseCurrentA(option, part, "mA");
+                    offset += Capture.Quantity.ParseCurrentA(option, part);
                 }
                 catch (UserInputException)
                 {

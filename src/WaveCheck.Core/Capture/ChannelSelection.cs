@@ -5,12 +5,13 @@ namespace WaveCheck.Core.Capture;
 /// <summary>
 /// Which channels form the residual current, resolved once from <see cref="ImportOptions.Channel"/> or
 /// <see cref="ImportOptions.SumChannels"/> against the channels a file holds, and how each chosen channel's SI value
-/// becomes amperes. Every reader (WAV, CSV, COMTRADE) chooses through here, so a choice is refused, guessed and
-/// warned about in the same words whatever the format.
+/// becomes amperes. Every reader (WAV, CSV, COMTRADE) chooses through here, so a choice is refused and warned about
+/// in the same words whatever the format. Of several channels none named as the residual current, none is taken.
 /// </summary>
 /// <param name="Indices">Indices into the channel list, summed to form the residual current.</param>
 /// <param name="Source">What forms it, for a person: a channel name or <c>L1+L2+L3+N</c>.</param>
-/// <param name="Warning">A <c>channel-guessed</c> note when the choice was made for the user, else null.</param>
+/// <param name="Warning">A <c>channel-guessed</c> note when the only candidate was taken without the file naming it
+/// as the residual current, else null.</param>
 internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Source, CaptureWarning? Warning)
 {
     /// <summary>Code of the warning given when the residual channel was chosen for the user.</summary>
@@ -19,24 +20,27 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
     /// <summary>Resolves the user's choice.</summary>
     /// <param name="channels">Channels of the file.</param>
     /// <param name="options">The user's options.</param>
-    /// <param name="candidates">Channels that may carry the residual current when nothing is chosen, most likely
-    /// first; the first is used.</param>
+    /// <param name="candidates">Channels that may carry the residual current when nothing is chosen. One is used
+    /// (with a warning if <paramref name="unnamedReason"/> says why it is only a guess); several are refused.</param>
     /// <param name="noCandidate">The problem when nothing is chosen and <paramref name="candidates"/> is empty, in
     /// the words of the format.</param>
     /// <param name="fail">Builds the exception for a problem (the caller knows the place in the file).</param>
     /// <param name="unnamedReason">Null when the file's own labels make the candidates certain; otherwise why the
-    /// first candidate is only a guess, which is then warned about even when it is the only one.</param>
+    /// only candidate is a guess, which is then warned about.</param>
+    /// <param name="writtenNames">Per channel, its name exactly as written in the file (a CSV header cell such as
+    /// <c>L1_A</c>), accepted by <c>--channel</c> and <c>--sum</c> beside the parsed name; null where they are the same.</param>
     /// <exception cref="Exception">What <paramref name="fail"/> builds: an unknown channel name or number, a channel
-    /// summed twice, or no candidate.</exception>
+    /// summed twice, no candidate, or several candidates and none chosen.</exception>
     public static ChannelSelection Resolve(IReadOnlyList<ChannelInfo> channels, ImportOptions options,
-        IReadOnlyList<int> candidates, string noCandidate, Func<string, Exception> fail, string? unnamedReason = null)
+        IReadOnlyList<int> candidates, string noCandidate, Func<string, Exception> fail, string? unnamedReason = null,
+        IReadOnlyList<string>? writtenNames = null)
     {
         if (options.SumChannels is { Count: > 0 } sum)
         {
             var indices = new List<int>(sum.Count);
             foreach (var name in sum)
             {
-                var index = Find(channels, name, "--sum", fail);
+                var index = Find(channels, writtenNames, name, "--sum", fail);
                 if (indices.Contains(index))
                 {
                     throw fail($"--sum names channel '{channels[index].Name}' twice");
@@ -50,7 +54,7 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
 
         if (options.Channel is { } chosen)
         {
-            var index = Find(channels, chosen, "--channel", fail);
+            var index = Find(channels, writtenNames, chosen, "--channel", fail);
             return new ChannelSelection([index], channels[index].Name, null);
         }
 
@@ -69,14 +73,22 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
             return new ChannelSelection([candidates[0]], first, note);
         }
 
-        var others = string.Join(", ", candidates.Skip(1).Select(i => channels[i].Name));
-        var why = unnamedReason is null ? string.Empty : $", as {unnamedReason}";
-        var warning = new CaptureWarning(GuessedCode,
-            $"Several current channels; using the first, '{first}' (others: {others}){why}. Choose with --channel or add them with --sum.");
-        return new ChannelSelection([candidates[0]], first, warning);
+        // Several channels and none named as the residual current: conductor currents (L1, L2, L3, N) are the usual
+        // case, and taking one of them would judge a load current of amperes as if it were a residual current.
+        var names = candidates.Select(i => channels[i].Name).ToList();
+        var why = unnamedReason ?? "none is named as the residual current";
+        if (options.DescribeOnly)
+        {
+            return new ChannelSelection([candidates[0]], first, new CaptureWarning(GuessedCode,
+                $"{candidates.Count} channels could carry the residual current ({string.Join(", ", names)}) and {why}: shown here with '{first}', but an analysis needs --sum or --channel."));
+        }
+
+        throw fail($"{candidates.Count} channels could carry the residual current ({string.Join(", ", names)}) and {why}: " +
+                   $"give --sum {string.Join(',', names)} to add live conductors' currents, or --channel {names[0]} if that one is the residual current");
     }
 
-    private static int Find(IReadOnlyList<ChannelInfo> channels, string wanted, string option, Func<string, Exception> fail)
+    private static int Find(IReadOnlyList<ChannelInfo> channels, IReadOnlyList<string>? writtenNames, string wanted, string option,
+        Func<string, Exception> fail)
     {
         var text = wanted.Trim();
         for (var i = 0; i < channels.Count; i++)
@@ -84,6 +96,17 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
             if (string.Equals(channels[i].Name, text, StringComparison.OrdinalIgnoreCase))
             {
                 return i;
+            }
+        }
+
+        if (writtenNames is not null)
+        {
+            for (var i = 0; i < writtenNames.Count; i++)
+            {
+                if (string.Equals(writtenNames[i].Trim(), text, StringComparison.OrdinalIgnoreCase))
+                {
+                    return i;
+                }
             }
         }
 

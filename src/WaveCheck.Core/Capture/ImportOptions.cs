@@ -33,6 +33,11 @@ public sealed record ImportOptions
     /// <summary>COMTRADE: deliver primary values (<c>--primary</c>) instead of secondary.</summary>
     public bool Primary { get; init; }
 
+    /// <summary>The capture is only described (<c>info</c>), not judged: of several channels that could carry the
+    /// residual current, none chosen, the first is shown with a <c>channel-guessed</c> warning instead of the refusal
+    /// an analysis gets (<see cref="ChannelSelection"/>), so the file's channels can still be listed.</summary>
+    public bool DescribeOnly { get; init; }
+
     /// <summary>Checks each stated value against <see cref="CaptureLimits"/>; the message names the CLI option.</summary>
     /// <exception cref="OptionValueException">A value is out of bounds.</exception>
     public void Validate()

@@ -7,8 +7,9 @@ using WaveCheck.Core.Model;
 namespace WaveCheck.Core.Survey;
 
 /// <summary>
-/// Reads a site file: JSON written by a person, so comments and trailing commas are allowed, currents may be written
-/// with units (<c>"30mA"</c>) or as bare numbers in amperes, and every mistake is reported with its 1-based line and
+/// Reads a site file: JSON written by a person, so comments and trailing commas are allowed, currents, voltages and
+/// frequencies are written with their units (<c>"30mA"</c>, <c>"1V"</c>, <c>"10kHz"</c>; a bare number is refused
+/// with the reading it most likely meant, as on the command line), and every mistake is reported with its 1-based line and
 /// column and what was expected there.
 /// </summary>
 /// <remarks>
@@ -462,9 +463,9 @@ public static class SiteConfigReader
                     "ev" => patch with { Ev = BoolOf(value, key) },
                     "chargerDcDetection" => patch with { ChargerDcDetection = BoolOf(value, key) },
                     "scale" => patch with { ScaleA = Bounded(value, key, CurrentOf(value, key)) },
-                    "sensitivity" => patch with { SensitivityVPerA = Bounded(value, key, QuantityOf(value, key, "a sensitivity such as \"10 mV/mA\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseSensitivityVPerA(k, t))) },
-                    "range" => patch with { RangeV = Bounded(value, key, QuantityOf(value, key, "a voltage such as \"1V\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseVoltageV(k, t))) },
-                    "rate" => patch with { RateHz = Bounded(value, key, QuantityOf(value, key, "a frequency such as \"10kHz\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseFrequencyHz(k, t))) },
+                    "sensitivity" => patch with { SensitivityVPerA = Bounded(value, key, QuantityOf(value, key, "V/A", Quantity.SensitivityForm, static (k, t) => Quantity.ParseSensitivityVPerA(k, t))) },
+                    "range" => patch with { RangeV = Bounded(value, key, QuantityOf(value, key, "V", Quantity.VoltageForm, static (k, t) => Quantity.ParseVoltageV(k, t))) },
+                    "rate" => patch with { RateHz = Bounded(value, key, QuantityOf(value, key, "Hz", Quantity.FrequencyForm, static (k, t) => Quantity.ParseFrequencyHz(k, t))) },
                     "channel" => patch with { Channel = ChannelOf(value) },
                     "sum" => patch with { Sum = SumOf(value) },
                     _ => throw UnknownKey(keyNode, allowed, where),
@@ -507,27 +508,20 @@ public static class SiteConfigReader
 
         private double? CurrentOf(Node value, string key)
         {
-            // A bare number for IΔn is amperes here, but the command line's --rated 30 means 30 mA: a bare 1 or more
-            // (30 would be a 30 A device with a 9 A leakage budget) is refused and the unit asked for.
-            var bare = value.Kind == JsonTokenType.Number ? value.Number
-                : value.Kind == JsonTokenType.String && double.TryParse(value.Text, System.Globalization.NumberStyles.Float,
-                    System.Globalization.CultureInfo.InvariantCulture, out var n) ? n : (double?)null;
-            if (key == "rated" && bare >= 1)
-            {
-                throw Error(value, $"\"rated\": {value.Text} without a unit would be {value.Text} A; write the unit, e.g. \"30mA\" or \"1A\"");
-            }
-
-            var amperes = QuantityOf(value, key, "a current such as \"30mA\", \"0.3A\" or a number in amperes", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseCurrentA(k, t));
+            var amperes = QuantityOf(value, key, "A", Quantity.CurrentForm, static (k, t) => Quantity.ParseCurrentA(k, t));
             return amperes is null or > 0 ? amperes : throw Error(value, $"\"{key}\" must be a positive current (got {value.Text})");
         }
 
-        private double? QuantityOf(Node value, string key, string expected, Func<string, string, double> parse)
+        /// <summary>A quantity with its unit, by the one rule of <see cref="Quantity"/>: a bare number (a JSON number or
+        /// a string without a unit) is refused with the reading it most likely meant.</summary>
+        private double? QuantityOf(Node value, string key, string unit, string expected, Func<string, string, double> parse)
         {
             switch (value.Kind)
             {
                 case JsonTokenType.Null: return null;
                 case JsonTokenType.Number:
-                    return value.Number > 0 ? value.Number : throw Error(value, $"\"{key}\" must be positive (got {value.Text}): expected {expected}");
+                    var suggestion = Quantity.Suggestion(value.Text!, unit);
+                    throw Error(value, $"\"{key}\": {value.Text} has no unit: expected {expected}; did you mean \"{suggestion}\"?");
                 case JsonTokenType.String:
                     double parsed;
                     try
@@ -536,7 +530,8 @@ public static class SiteConfigReader
                     }
                     catch (OptionValueException)
                     {
-                        throw Error(value, $"\"{key}\": cannot use \"{value.Text}\": expected {expected}");
+                        var hint = Quantity.Suggestion(value.Text!, unit) is { } s ? $"; did you mean \"{s}\"?" : string.Empty;
+                        throw Error(value, $"\"{key}\": cannot use \"{value.Text}\": expected {expected}{hint}");
                     }
 
                     return parsed > 0 ? parsed : throw Error(value, $"\"{key}\" must be positive (got \"{value.Text}\"): expected {expected}");

@@ -75,8 +75,8 @@ public class RequiredTypeTests
     {
         // Finding: the 150 Hz-dominated leakage (AC up to 1 kHz: type B, IEC 62423) plus a small 23 Hz motor part
         // gave F. Adding a component must never weaken the verdict (REFERENCE.md "required type").
-        var without = Evaluate("sine:rms=10mA,freq=150", "sine:rms=2mA");
-        var with = Evaluate("sine:rms=10mA,freq=150", "sine:rms=2mA", "sine:rms=3mA,freq=23");
+        var without = Evaluate("sine:rms=10mA,freq=150Hz", "sine:rms=2mA");
+        var with = Evaluate("sine:rms=10mA,freq=150Hz", "sine:rms=2mA", "sine:rms=3mA,freq=23Hz");
         Assert.Equal(DeviceType.B, without.Assessment.RequiredType);
         Assert.Equal(DeviceType.B, with.Assessment.RequiredType);
         Assert.Contains(with.Assessment.Classes, c => c.Class == ResidualCurrentClass.Composite && c.Presence == ClassPresence.Present);

@@ -45,22 +45,41 @@ public sealed class ChannelSelectionTests
     }
 
     [Fact]
-    public void With_nothing_chosen_the_first_candidate_is_used_and_a_choice_among_several_is_warned_about()
+    public void With_nothing_chosen_the_only_candidate_is_used_and_several_are_refused_with_the_choices()
     {
         var one = Resolve(new ImportOptions(), [2]);
         Assert.Equal([2], one.Indices);
         Assert.Null(one.Warning);
 
-        var several = Resolve(new ImportOptions());
-        Assert.Equal([0], several.Indices);
-        Assert.Equal(ChannelSelection.GuessedCode, several.Warning!.Code);
-        Assert.Equal("Several current channels; using the first, 'L1' (others: L2, N). Choose with --channel or add them with --sum.", several.Warning.Message);
+        // Several channels and none named as the residual current: conductor currents are the usual case (issue 14),
+        // and taking the first would judge a load current as a residual current. Refused, naming both ways out.
+        var several = Assert.Throws<InvalidDataException>(() => Resolve(new ImportOptions()));
+        Assert.Equal("3 channels could carry the residual current (L1, L2, N) and none is named as the residual current: " +
+                     "give --sum L1,L2,N to add live conductors' currents, or --channel L1 if that one is the residual current", several.Message);
+        var reason = Assert.Throws<InvalidDataException>(() => Resolve(new ImportOptions(), [0, 1], "2 channels are named as the earth current, not one"));
+        Assert.Contains("(L1, L2) and 2 channels are named as the earth current, not one:", reason.Message, StringComparison.Ordinal);
 
         // A format whose labels say nothing about the residual current warns even about its only candidate.
         var unnamed = Resolve(new ImportOptions(), [1], "no channel is named as the residual current");
         Assert.Equal("The only current channel, 'L2', is used as the residual current, though no channel is named as the residual current. Choose another with --channel or add channels with --sum.", unnamed.Warning!.Message);
 
         Assert.Equal("nothing to choose", Assert.Throws<InvalidDataException>(() => Resolve(new ImportOptions(), [])).Message);
+    }
+
+    [Fact]
+    public void A_channel_is_also_found_by_its_name_as_written_in_the_file()
+    {
+        string[] written = ["L1_A", "L2 [A]", "N_A", "clamp (mV)", "freq_Hz"];
+        var sum = ChannelSelection.Resolve(Channels, new ImportOptions { SumChannels = ["L1_A", "l2 [a]", "N"] }, Currents,
+            "nothing to choose", Fail, writtenNames: written);
+        Assert.Equal([0, 1, 2], sum.Indices);
+        Assert.Equal("L1+L2+N", sum.Source);
+        var one = ChannelSelection.Resolve(Channels, new ImportOptions { Channel = "N_A" }, Currents, "nothing to choose", Fail,
+            writtenNames: written);
+        Assert.Equal([2], one.Indices);
+        Assert.Equal("--channel: no channel named 'N_B' (channels: L1, L2, N, clamp, freq)",
+            Assert.Throws<InvalidDataException>(() => ChannelSelection.Resolve(Channels, new ImportOptions { Channel = "N_B" },
+                Currents, "nothing to choose", Fail, writtenNames: written)).Message);
     }
 
     [Fact]

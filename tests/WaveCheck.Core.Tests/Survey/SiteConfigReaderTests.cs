@@ -19,7 +19,7 @@ public class SiteConfigReaderTests
           "captures": [
             { "file": "c1-panel-saw-drive.wav", "circuit": "C1 panel saw drive", "device": "A", "rated": "300mA",
               "sensor": "dc", "ev": false, "scale": "100mA", "channel": null, "sum": null },
-            { "file": "c2-extractor-fan.wav", "circuit": "C2 extractor fan", "device": "F", "rated": 0.03 },
+            { "file": "c2-extractor-fan.wav", "circuit": "C2 extractor fan", "device": "F", "rated": "0.03 A" },
             { "file": "sub/c5-heat-pump.csv", "circuit": "C5 heat pump", "sum": ["L1", "L2", "L3", "N"], "sensor": "ac" },
             { "file": "c6-charger.wav", "ev": true, "channel": 2, "device": "b+", "regime": "na" },
           ],
@@ -51,7 +51,7 @@ public class SiteConfigReaderTests
         Assert.Equal("C1 panel saw drive", c1.Circuit);
 
         var c2 = jobs[1].Settings;
-        Assert.Equal(0.03, c2.RatedResidualCurrentA);         // bare number: amperes
+        Assert.Equal(0.03, c2.RatedResidualCurrentA, 15);     // "0.03 A": amperes, space before the unit allowed
         Assert.Equal(DeviceType.F, c2.InstalledType);
         Assert.Equal(SensorCoupling.Dc, c2.Import.Sensor);    // from defaults
 
@@ -98,13 +98,25 @@ public class SiteConfigReaderTests
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"zzzzzz\": 1 } ] }",
         "\"zzzzzz\"", "unknown key \"zzzzzz\" in a capture entry: expected one of \"file\", \"circuit\", \"rated\"")]
     [InlineData("{ \"captures\": [\n { \"circuit\": \"Küche südlich\", \"file\": \"a.wav\", \"rated\": \"30 mAA\" } ] }",
-        "\"30 mAA\"", "\"rated\": cannot use \"30 mAA\": expected a current such as \"30mA\"")]
-    [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"rated\": -0.03 } ] }",
-        "-0.03", "\"rated\" must be positive (got -0.03)")]
+        "\"30 mAA\"", "\"rated\": cannot use \"30 mAA\": expected a current with its unit, such as 30mA")]
+    [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"rated\": \"-30mA\" } ] }",
+        "\"-30mA\"", "\"rated\" must be positive (got \"-30mA\")")]
+    // One rule for units (issue 14): a bare number is refused with the reading it most likely meant, whether a JSON
+    // number or a string, for currents, voltages, frequencies and sensitivities alike.
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"rated\": 30 } ] }",
-        "30", "\"rated\": 30 without a unit would be 30 A; write the unit, e.g. \"30mA\"")]
+        "30", "\"rated\": 30 has no unit: expected a current with its unit, such as 30mA, 0.3A or 300uA; did you mean \"30mA\"?")]
+    [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"rated\": 0.03 } ] }",
+        "0.03", "\"rated\": 0.03 has no unit: expected a current with its unit, such as 30mA, 0.3A or 300uA; did you mean \"0.03A\"?")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\" } ],\n \"upstream\": [ { \"name\": \"Q1\", \"device\": \"A\", \"rated\": \"100\", \"circuits\": [] } ] }",
-        "\"100\"", "\"rated\": 100 without a unit would be 100 A")]
+        "\"100\"", "\"rated\": cannot use \"100\": expected a current with its unit, such as 30mA, 0.3A or 300uA; did you mean \"100mA\"?")]
+    [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"scale\": 50 } ] }",
+        "50", "\"scale\": 50 has no unit: expected a current with its unit, such as 30mA, 0.3A or 300uA; did you mean \"50mA\"?")]
+    [InlineData("{ \"captures\": [ { \"file\": \"a.csv\", \"rate\": \"10000\" } ] }",
+        "\"10000\"", "\"rate\": cannot use \"10000\": expected a frequency with its unit, such as 50Hz or 20kHz; did you mean \"10000Hz\"?")]
+    [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"range\": 1 } ] }",
+        "1", "\"range\": 1 has no unit: expected a voltage with its unit, such as 1V or 500mV; did you mean \"1V\"?")]
+    [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"sensitivity\": 10 } ] }",
+        "10", "\"sensitivity\": 10 has no unit: expected a sensitivity with its units, such as 10 mV/mA, 100mV/A or 1 V/A; did you mean \"10 mV/mA\"?")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"rated\": true } ] }",
         "true", "\"rated\": cannot use the value true: expected a current")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"device\": \"G\" } ] }",
@@ -117,7 +129,7 @@ public class SiteConfigReaderTests
         "\"b.wav\"", "upstream device \"Q1\" names \"b.wav\", which is not under \"captures\": expected one of \"a.wav\"")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\" } ],\n \"upstream\": [ { \"name\": \"Q1\", \"device\": \"A\", \"rated\": \"100mA\", \"circuits\": [\"a.wav\", \"a.wav\"] } ] }",
         "\"a.wav\"] }", "upstream device \"Q1\" names \"a.wav\" twice")]
-    [InlineData("{ \"captures\": [ { \"file\": \"a.wav\" } ], \"upstream\": [\n { \"name\": \"Q1\", \"device\": \"A\", \"rated\": 0.1, \"circuits\": [] },\n { \"name\": \"q1\", \"device\": \"A\", \"rated\": 0.1, \"circuits\": [] } ] }",
+    [InlineData("{ \"captures\": [ { \"file\": \"a.wav\" } ], \"upstream\": [\n { \"name\": \"Q1\", \"device\": \"A\", \"rated\": \"0.1A\", \"circuits\": [] },\n { \"name\": \"q1\", \"device\": \"A\", \"rated\": \"0.1A\", \"circuits\": [] } ] }",
         "\"q1\"", "upstream device \"q1\" is listed twice (first at line 2)")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\" } ], \"upstream\": [\n { \"name\": \"Q1\", \"device\": \"A\", \"circuits\": [] } ] }",
         "{ \"name\"", "upstream device \"Q1\" has no \"rated\"")]

@@ -117,6 +117,10 @@ public class SynthCaptureSourceTests
     [InlineData("dc:level=eight", "a current")]
     [InlineData("halfwave:peak=30mA,polarity=up", "pos or neg")]
     [InlineData("dc:volume=3", "keys of 'dc'")]
+    // One rule for units (issue 14): a part's current or frequency without its unit is refused with a suggestion.
+    [InlineData("sine:rms=30", "did you mean 30mA?")]
+    [InlineData("sine:rms=30mA,freq=150", "did you mean 150Hz?")]
+    [InlineData("dc:8", "did you mean 8mA?")]
     public void Bad_descriptions_name_what_is_expected(string text, string expected)
     {
         var ex = Assert.Throws<OptionValueException>(() => SynthesisSpec.Parse(text, 50));

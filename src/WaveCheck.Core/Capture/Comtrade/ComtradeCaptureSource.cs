@@ -323,7 +323,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
     }
 
     /// <summary>The shared channel choice; with nothing chosen, the one current channel named as residual or earth
-    /// current, else the first current channel with a <c>channel-guessed</c> warning.</summary>
+    /// current, else the only current channel with a <c>channel-guessed</c> warning; several are refused.</summary>
     private static ChannelSelection ChooseResidual(string path, ComtradeConfig config, ChannelInfo[] channels, ImportOptions options)
     {
         var currents = new List<int>();

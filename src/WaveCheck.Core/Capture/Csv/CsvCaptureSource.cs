@@ -108,7 +108,8 @@ public sealed class CsvCaptureSource : ICaptureSource
 
         _selection = ChannelSelection.Resolve(channels, options, currents.Count > 0 ? currents : voltages,
             "no current or voltage column found: name the unit in the header, e.g. 'I [mA]'",
-            problem => new CaptureFormatException(path, problem, headerLine, 1));
+            problem => new CaptureFormatException(path, problem, headerLine, 1),
+            writtenNames: [.. dataColumns.Select(c => dialect.Header[c.FileColumn - 1])]);
         if (_selection.Warning is { } guessed)
         {
             _warnings.Add(guessed);

@@ -159,18 +159,16 @@ public sealed class ComtradeCaptureSourceTests : IDisposable
     }
 
     [Fact]
-    public void Without_a_residual_name_the_first_current_is_used_and_the_others_are_named()
+    public void Without_a_residual_name_several_currents_are_refused_and_named()
     {
         var builder = Feeder(ComtradeDataFileType.Binary);
         builder.Channels.RemoveAt(3);
         var path = builder.Write(_dir.Path, "phases");
-        using var source = ComtradeCaptureSource.Open(path, new ImportOptions());
-        Assert.Equal("IL1", source.Info.ResidualSource);
-        // The code and words of the shared channel choice (CSV and WAV give the same), with the reason of the guess.
-        var warning = Assert.Single(source.Warnings, w => w.Code == "channel-guessed");
-        Assert.Contains("using the first, 'IL1' (others: IL2, IL3)", warning.Message, StringComparison.Ordinal);
-        Assert.Contains("no channel is named as the residual or earth current", warning.Message, StringComparison.Ordinal);
-        Assert.DoesNotContain("UL1", warning.Message, StringComparison.Ordinal);
+        // The words of the shared channel choice (CSV and WAV give the same), with the reason no channel is taken.
+        var error = Assert.Throws<CaptureFormatException>(() => ComtradeCaptureSource.Open(path, new ImportOptions()));
+        Assert.Contains("(IL1, IL2, IL3) and no channel is named as the residual or earth current", error.Problem, StringComparison.Ordinal);
+        Assert.Contains("give --sum IL1,IL2,IL3", error.Problem, StringComparison.Ordinal);
+        Assert.DoesNotContain("UL1", error.Problem, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -202,17 +202,22 @@ public sealed class CsvCaptureSourceTests : IDisposable
     }
 
     [Fact]
-    public void SeveralCurrentColumnsDefaultToTheFirstWithAWarning()
+    public void SeveralCurrentColumnsWithoutAChoiceAreRefusedAndTheHeaderAsWrittenChooses()
     {
         var path = _folder.Write("two.csv", "time [s],Ia [mA],Ib [mA]\n0,1,2\n0.001,3,4\n0.002,5,6\n");
-        using var source = CaptureOpener.Open(path, new ImportOptions());
-        var warning = Assert.Single(source.Warnings, w => w.Code == "channel-guessed");
-        Assert.Equal("Several current channels; using the first, 'Ia' (others: Ib). Choose with --channel or add them with --sum.", warning.Message);
-        Assert.Equal(0.005, Signals.ReadAll(source).Residual[2], 1e-15);
+        var refused = Assert.Throws<CaptureFormatException>(() => CaptureOpener.Open(path, new ImportOptions()));
+        Assert.Equal(1, refused.Line);
+        Assert.StartsWith("2 channels could carry the residual current (Ia, Ib) and none is named as the residual current: give --sum Ia,Ib",
+            refused.Problem, StringComparison.Ordinal);
 
         using var second = CaptureOpener.Open(path, new ImportOptions { Channel = "2" });
         Assert.Equal("Ib", second.Info.ResidualSource);
         Assert.Equal(0.006, Signals.ReadAll(second).Residual[2], 1e-15);
+
+        // The header cell exactly as written names the same column as its parsed name.
+        using var written = CaptureOpener.Open(path, new ImportOptions { Channel = "Ia [mA]" });
+        Assert.Equal("Ia", written.Info.ResidualSource);
+        Assert.Equal(0.005, Signals.ReadAll(written).Residual[2], 1e-15);
     }
 
     [Fact]
@@ -248,7 +253,7 @@ public sealed class CsvCaptureSourceTests : IDisposable
         { "comments-only.csv", "# nothing here\n\n", new ImportOptions(), 2, 1, "no header: the file holds only 2 comment or blank lines" },
         { "no-rate.csv", "I [mA]\n1\n2\n3\n", new ImportOptions(), 1, 1, "give --rate" },
         { "volts.csv", "time [s],t2,U [mV]\n0,1,5\n0.001,1,6\n", new ImportOptions(), 1, 3, "give --sensitivity" },
-        { "short-row.csv", "time [s],I1 [mA],I2 [mA]\n0,1,2\n0.001,2,3\n0.002,4\n", new ImportOptions(), 4, 3, "row has 2 fields, the header has 3" },
+        { "short-row.csv", "time [s],I1 [mA],I2 [mA]\n0,1,2\n0.001,2,3\n0.002,4\n", new ImportOptions { Channel = "I1" }, 4, 3, "row has 2 fields, the header has 3" },
         { "no-header.csv", "0,1\n0.001,2\n", new ImportOptions(), 1, 1, "no header line" },
     };
 
