@@ -1,3 +1,4 @@
+using System.CommandLine;
 using System.Runtime.InteropServices;
 using WaveCheck.Core;
 using WaveCheck.Core.Model;
@@ -27,10 +28,20 @@ internal static class CliRun
     /// <summary>Exit code: stopped by SIGTERM, 128 + 15 as shells report it.</summary>
     public const int Terminated = 143;
 
-    public static int Guard(Func<RunContext, int> body)
+    /// <summary>Runs <paramref name="body"/> on the terminal the command line was invoked with
+    /// (<see cref="TerminalInvocation"/>).</summary>
+    public static int Guard(ParseResult parse, Func<RunContext, int> body)
+    {
+        ArgumentNullException.ThrowIfNull(parse);
+        var terminal = (parse.InvocationConfiguration as TerminalInvocation)?.Terminal
+            ?? throw new InvalidOperationException("commands are invoked through WaveCheckCommand.Run, which gives them their terminal");
+        return Guard(terminal, body);
+    }
+
+    public static int Guard(Terminal terminal, Func<RunContext, int> body)
     {
         using var interruption = Interruption.Listen();
-        var context = new RunContext(interruption.Token);
+        var context = new RunContext(interruption.Token, terminal);
         try
         {
             var exit = body(context);
@@ -48,28 +59,29 @@ internal static class CliRun
         }
         catch (UserInputException ex)
         {
-            PrintError(ex.Message);
+            PrintError(terminal, ex.Message);
             return BadInput;
         }
         catch (IOException ex)
         {
-            PrintError(ex.Message);
+            PrintError(terminal, ex.Message);
             return BadInput;
         }
         catch (UnauthorizedAccessException ex)
         {
-            PrintError(ex.Message);
+            PrintError(terminal, ex.Message);
             return BadInput;
         }
     }
 
-    /// <summary>Prints one line on stderr, prefixed <c>wavecheck: </c>, control characters made visible.</summary>
-    public static void PrintError(string message) => Console.Error.WriteLine("wavecheck: " + TerminalText.Clean(message));
+    /// <summary>Prints one line on the terminal's stderr, prefixed <c>wavecheck: </c>, control characters made visible.</summary>
+    public static void PrintError(Terminal terminal, string message) =>
+        terminal.Error.WriteLine("wavecheck: " + TerminalText.Clean(message));
 
     private static int Stopped(Interruption interruption, RunContext context)
     {
         var terminated = interruption.Signal == PosixSignal.SIGTERM;
-        PrintError($"interrupted by {(terminated ? "SIGTERM" : "SIGINT")}: {context.Outcome()}");
+        PrintError(context.Terminal, $"interrupted by {(terminated ? "SIGTERM" : "SIGINT")}: {context.Outcome()}");
         return terminated ? Terminated : Interrupted;
     }
 
@@ -131,10 +143,13 @@ internal static class CliRun
 
 /// <summary>What a command body gets from <see cref="CliRun.Guard"/>: the cancellation token, and a place to say what
 /// it has written so far, for the line printed when it is interrupted.</summary>
-internal sealed class RunContext(CancellationToken token)
+internal sealed class RunContext(CancellationToken token, Terminal terminal)
 {
     /// <summary>Cancelled by SIGINT or SIGTERM.</summary>
     public CancellationToken Token { get; } = token;
+
+    /// <summary>Where the run prints.</summary>
+    public Terminal Terminal { get; } = terminal;
 
     /// <summary>Describes what was and was not written; by default the plan's account, or "nothing written".</summary>
     public Func<string>? Describe { get; set; }
@@ -143,4 +158,22 @@ internal sealed class RunContext(CancellationToken token)
     public OutputPlan? Plan { get; set; }
 
     public string Outcome() => Describe?.Invoke() ?? Plan?.Outcome() ?? "nothing written";
+}
+
+/// <summary>The invocation settings of one run, carrying its <see cref="Cli.Terminal"/> to the command actions; help and
+/// parse errors go to the same writers.</summary>
+internal sealed class TerminalInvocation : InvocationConfiguration
+{
+    public TerminalInvocation(Terminal terminal)
+    {
+        Terminal = terminal;
+        Output = terminal.Out;
+        Error = terminal.Error;
+
+        // Signals are handled by CliRun.Guard (exit 130/143 after cleaning up), not by System.CommandLine.
+        EnableDefaultExceptionHandler = false;
+        ProcessTerminationTimeout = null;
+    }
+
+    public Terminal Terminal { get; }
 }

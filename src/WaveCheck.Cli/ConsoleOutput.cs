@@ -2,46 +2,50 @@ using Spectre.Console;
 
 namespace WaveCheck.Cli;
 
-/// <summary>The console the commands print to: plain text (no ANSI, no colour) when NO_COLOR is set or output is not a
-/// terminal; control characters in what is printed are made visible (<see cref="TerminalText"/>).</summary>
+/// <summary>Spectre consoles over a run's <see cref="Terminal"/>, one per run: the facts come from the terminal, never
+/// from the process (no environment or console detection here), and control characters in what is printed are made
+/// visible (<see cref="TerminalText"/>).</summary>
 internal static class ConsoleOutput
 {
-    /// <summary>True when output should carry no ANSI codes.</summary>
-    public static bool Plain =>
-        !string.IsNullOrEmpty(Environment.GetEnvironmentVariable("NO_COLOR")) || Console.IsOutputRedirected;
-
-    public static IAnsiConsole Create()
+    public static IAnsiConsole Create(Terminal terminal)
     {
-        var output = new AnsiConsoleOutput(Console.Out);
-        var plain = Plain || !output.IsTerminal;
+        ArgumentNullException.ThrowIfNull(terminal);
         var console = AnsiConsole.Create(new AnsiConsoleSettings
         {
-            Ansi = plain ? AnsiSupport.No : AnsiSupport.Detect,
-            ColorSystem = plain ? ColorSystemSupport.NoColors : ColorSystemSupport.Detect,
+            Ansi = terminal.IsTerminal ? AnsiSupport.Yes : AnsiSupport.No,
+            ColorSystem = terminal.Colour ? ColorSystemSupport.Standard : ColorSystemSupport.NoColors,
             Interactive = InteractionSupport.No,
-            Out = output,
+            Out = new AnsiConsoleOutput(terminal.Out),
+            Enrichment = new ProfileEnrichment { UseDefaultEnrichers = false },
+            EnvironmentVariables = [],
         });
-        if (plain)
-        {
-            console.Profile.Width = 160;
-        }
+        console.Profile.Width = terminal.Width;
+        console.Profile.Capabilities.Unicode = true;
 
         // Everything printed here may carry names and text from the files read.
         console.Pipeline.Attach(TerminalText.Hook);
         return console;
     }
 
-    /// <summary>A console on stderr for progress bars, or null when progress must not be shown (redirected, quiet).</summary>
-    public static IAnsiConsole? CreateProgress(bool quiet)
+    /// <summary>A console on stderr for progress bars, or null when progress must not be shown (not a terminal, quiet).</summary>
+    public static IAnsiConsole? CreateProgress(Terminal terminal, bool quiet)
     {
-        if (quiet || Console.IsErrorRedirected || !string.IsNullOrEmpty(Environment.GetEnvironmentVariable("NO_COLOR")))
+        ArgumentNullException.ThrowIfNull(terminal);
+        if (quiet || !terminal.ErrorIsTerminal)
         {
             return null;
         }
 
-        var output = new AnsiConsoleOutput(Console.Error);
-        return output.IsTerminal
-            ? AnsiConsole.Create(new AnsiConsoleSettings { Out = output, Interactive = InteractionSupport.Yes })
-            : null;
+        var console = AnsiConsole.Create(new AnsiConsoleSettings
+        {
+            Ansi = AnsiSupport.Yes,
+            ColorSystem = terminal.Colour ? ColorSystemSupport.Standard : ColorSystemSupport.NoColors,
+            Interactive = InteractionSupport.Yes,
+            Out = new AnsiConsoleOutput(terminal.Error),
+            Enrichment = new ProfileEnrichment { UseDefaultEnrichers = false },
+            EnvironmentVariables = [],
+        });
+        console.Profile.Width = terminal.Width;
+        return console;
     }
 }

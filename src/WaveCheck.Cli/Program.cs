@@ -1,3 +1,3 @@
 using WaveCheck.Cli;
 
-return WaveCheckCommand.Run(args);
+return WaveCheckCommand.Run(args, Terminal.FromProcess());

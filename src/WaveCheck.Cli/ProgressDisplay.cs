@@ -5,9 +5,9 @@ namespace WaveCheck.Cli;
 /// <summary>Runs long work with a progress bar on stderr when it is a terminal; silently otherwise.</summary>
 internal static class ProgressDisplay
 {
-    public static T Run<T>(bool quiet, string description, Func<IProgress<double>?, T> work)
+    public static T Run<T>(Terminal terminal, bool quiet, string description, Func<IProgress<double>?, T> work)
     {
-        var console = ConsoleOutput.CreateProgress(quiet);
+        var console = ConsoleOutput.CreateProgress(terminal, quiet);
         if (console is null)
         {
             return work(null);

@@ -16,7 +16,7 @@ namespace WaveCheck.Cli;
 /// and the bidirectional formatting characters (U+200E, U+200F, U+202A to U+202E, U+2066 to U+2069), which reorder
 /// what is displayed. With ESC and CSI escaped, no escape sequence can start, so the rest of one prints as plain text.
 /// Applied at the print edges: every renderable on the standard-output console (<see cref="Hook"/>), every stderr
-/// line (<see cref="CliRun"/>), the progress description and the few lines written with <see cref="Console.Out"/>.
+/// line (<see cref="CliRun"/>), the progress description and the few lines written straight to <see cref="Terminal.Out"/>.
 /// </remarks>
 internal static class TerminalText
 {

@@ -22,13 +22,17 @@ public static class WaveCheckCommand
 
     /// <summary>Parses and runs; returns the process exit code (0 ok, 1 finding asked to fail on, 2 bad input or usage,
     /// 130 interrupted by SIGINT, 143 by SIGTERM).</summary>
-    public static int Run(string[] args)
+    /// <param name="args">The command line.</param>
+    /// <param name="terminal">Where to print; <see cref="Terminal.FromProcess"/> for the process's console.</param>
+    public static int Run(string[] args, Terminal terminal)
     {
+        ArgumentNullException.ThrowIfNull(terminal);
         var root = Build();
         var parse = root.Parse(args);
+        var invocation = new TerminalInvocation(terminal);
         if (!AsksForHelp(args) && UnknownOption(parse, args) is { } unknown)
         {
-            Console.Error.WriteLine(TerminalText.Clean(UsageLine(parse, unknown)));
+            terminal.Error.WriteLine(TerminalText.Clean(UsageLine(parse, unknown)));
             return CliRun.BadInput;
         }
 
@@ -36,16 +40,15 @@ public static class WaveCheckCommand
         {
             if (args.Length == 0)
             {
-                root.Parse(["--help"]).Invoke();
+                root.Parse(["--help"]).Invoke(invocation);
                 return CliRun.BadInput;
             }
 
-            Console.Error.WriteLine(TerminalText.Clean(UsageLine(parse)));
+            terminal.Error.WriteLine(TerminalText.Clean(UsageLine(parse)));
             return CliRun.BadInput;
         }
 
-        // Signals are handled by CliRun.Guard (exit 130/143 after cleaning up), not by System.CommandLine.
-        return parse.Invoke(new InvocationConfiguration { EnableDefaultExceptionHandler = false, ProcessTerminationTimeout = null });
+        return parse.Invoke(invocation);
     }
 
     private static bool AsksForHelp(string[] args) => args.Any(a => a is "--help" or "-h" or "-?");

@@ -3,7 +3,6 @@ using System.Text.Json;
 namespace WaveCheck.Cli.Tests;
 
 /// <summary><c>wavecheck analyze</c> end to end on files written by <c>wavecheck synth</c>.</summary>
-[Collection(ConsoleCollection.Name)]
 public sealed class AnalyzeCommandTests : IDisposable
 {
     private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));

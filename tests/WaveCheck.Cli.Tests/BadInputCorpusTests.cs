@@ -5,7 +5,6 @@ namespace WaveCheck.Cli.Tests;
 /// input, that stderr is one line naming the file and the place (common practice for command-line tools, no source:
 /// one diagnostic line per fault, no stack trace).
 /// </summary>
-[Collection(ConsoleCollection.Name)]
 public sealed class BadInputCorpusTests : IDisposable
 {
     private static readonly Dictionary<string, BadInputCase> Cases = BadInputCorpus.All().ToDictionary(c => c.Name);

@@ -1,32 +1,19 @@
 namespace WaveCheck.Cli.Tests;
 
-/// <summary>Console redirection is process-wide: every test that runs the CLI in-process belongs here, one at a time.</summary>
-[CollectionDefinition(Name, DisableParallelization = true)]
-public sealed class ConsoleCollection
-{
-    public const string Name = "console";
-}
-
-/// <summary>Runs <c>wavecheck</c> in-process with stdout and stderr captured.</summary>
+/// <summary>Runs <c>wavecheck</c> in-process with stdout and stderr captured. Each run prints only to the writers of
+/// its own <see cref="Terminal"/>, so tests that run the CLI run in parallel.</summary>
 internal static class CliHarness
 {
-    public static (int Exit, string Out, string Error) Run(params string[] args)
+    /// <summary>As when output is piped: plain text, 80 columns.</summary>
+    public static (int Exit, string Out, string Error) Run(params string[] args) =>
+        Run(width: Terminal.DefaultWidth, isTerminal: false, colour: false, args);
+
+    /// <summary>On a terminal of the given facts.</summary>
+    public static (int Exit, string Out, string Error) Run(int width, bool isTerminal, bool colour, params string[] args)
     {
-        var oldOut = Console.Out;
-        var oldError = Console.Error;
         using var stdout = new StringWriter();
         using var stderr = new StringWriter();
-        Console.SetOut(stdout);
-        Console.SetError(stderr);
-        try
-        {
-            var exit = WaveCheckCommand.Run(args);
-            return (exit, stdout.ToString(), stderr.ToString());
-        }
-        finally
-        {
-            Console.SetOut(oldOut);
-            Console.SetError(oldError);
-        }
+        var exit = WaveCheckCommand.Run(args, new Terminal(stdout, stderr, width, colour, isTerminal));
+        return (exit, stdout.ToString(), stderr.ToString());
     }
 }

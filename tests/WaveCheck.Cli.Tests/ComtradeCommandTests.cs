@@ -4,7 +4,6 @@ using System.Text;
 namespace WaveCheck.Cli.Tests;
 
 /// <summary>COMTRADE records through <c>info</c> and <c>analyze</c>: the trigger time shown and marked on the plots.</summary>
-[Collection(ConsoleCollection.Name)]
 public sealed class ComtradeCommandTests : IDisposable
 {
     private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));

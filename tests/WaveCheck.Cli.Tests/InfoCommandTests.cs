@@ -5,7 +5,6 @@ using WaveCheck.Core.Capture;
 
 namespace WaveCheck.Cli.Tests;
 
-[Collection(ConsoleCollection.Name)]
 public sealed class InfoCommandTests : IDisposable
 {
     private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));

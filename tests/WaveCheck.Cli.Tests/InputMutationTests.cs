@@ -12,7 +12,6 @@ namespace WaveCheck.Cli.Tests;
 /// Fixed seeds and iteration counts keep each run the same and the whole under a minute on two cores; CsCheck prints
 /// the seed of a failure and the shrunk case, which then belongs in <see cref="InputRegressionTests"/>.
 /// </summary>
-[Collection(ConsoleCollection.Name)]
 public sealed class InputMutationTests : IDisposable
 {
     /// <summary>Time allowed per case: the captures are 0.5 s long and read in tens of milliseconds.</summary>

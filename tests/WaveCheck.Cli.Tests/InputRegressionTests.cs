@@ -6,7 +6,6 @@ namespace WaveCheck.Cli.Tests;
 /// <summary>Counterexamples found by <see cref="InputMutationTests"/> (against the readers before they were hardened),
 /// as shrunk by CsCheck and kept as ordinary tests so that each stays fixed whatever the property test's seeds become.
 /// Each applies the exact mutations CsCheck printed to the same valid file.</summary>
-[Collection(ConsoleCollection.Name)]
 public sealed class InputRegressionTests : IDisposable
 {
     private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));

@@ -6,7 +6,6 @@ namespace WaveCheck.Cli.Tests;
 
 /// <summary>The rules of issue 14 for the command line: one rule for units, no guessing which channel is the residual
 /// current, typed options with their value names in help, and the <c>analyse</c> alias.</summary>
-[Collection(ConsoleCollection.Name)]
 public sealed class OptionRulesTests : IDisposable
 {
     private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));

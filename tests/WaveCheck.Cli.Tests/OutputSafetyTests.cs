@@ -5,7 +5,6 @@ namespace WaveCheck.Cli.Tests;
 /// Resolution": relative paths, <c>..</c>, symbolic links, hard links), nor write two outputs to one path, nor
 /// replace a read-only file. Each refusal is one stderr line naming both paths and the option, exit code 2.
 /// </summary>
-[Collection(ConsoleCollection.Name)]
 [System.Runtime.Versioning.UnsupportedOSPlatform("windows")] // chmod, symbolic and hard links as on POSIX
 public sealed class OutputSafetyTests : IDisposable
 {

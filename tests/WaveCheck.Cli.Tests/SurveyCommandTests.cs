@@ -3,7 +3,6 @@ using System.Text.Json;
 namespace WaveCheck.Cli.Tests;
 
 /// <summary><c>wavecheck survey</c> and <c>wavecheck demo</c> end to end, and usage errors of every command.</summary>
-[Collection(ConsoleCollection.Name)]
 public sealed class SurveyCommandTests : IDisposable
 {
     private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));

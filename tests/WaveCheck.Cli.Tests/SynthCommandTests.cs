@@ -2,7 +2,6 @@ using System.Text.Json;
 
 namespace WaveCheck.Cli.Tests;
 
-[Collection(ConsoleCollection.Name)]
 public sealed class SynthCommandTests : IDisposable
 {
     private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));

@@ -5,7 +5,6 @@ namespace WaveCheck.Cli.Tests;
 /// C0 (0x00-0x1F) and C1 (0x80-0x9F) controls, with ESC (0x1B) starting every escape sequence and CSI (0x9B) a
 /// one-character one; the bidirectional overrides are those of Unicode UAX #9.
 /// </summary>
-[Collection(ConsoleCollection.Name)]
 public sealed class TerminalTextTests : IDisposable
 {
     private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));

@@ -37,6 +37,7 @@ internal static class AnalyzeCommand
         var json = ValueOptions.Text("--json", "Write the full analysis and assessment as JSON to this file, or - for stdout.", "FILE|-");
         var touch = new Option<bool>("--touch") { Description = "Also print the IEC 60990 weighted touch-current readings and common limits (equipment testing)." };
         var windowsCsv = ValueOptions.Text("--windows-csv", "Write one CSV row per 10/12-cycle window (SI units) to this file.", "FILE");
+        var details = new Option<bool>("--details") { Description = "Print the full tables (evidence per type, margins with explanations, measurements) and every caution, not only the first screen." };
 
         var command = new Command("analyze",
             "Measure a residual-current capture and tell which RCD type it demands. Examples:\n" +
@@ -53,8 +54,9 @@ internal static class AnalyzeCommand
         command.Options.Add(json);
         command.Options.Add(windowsCsv);
         command.Options.Add(touch);
+        command.Options.Add(details);
         outputs.AddTo(command);
-        command.SetAction(parse => CliRun.Guard(run =>
+        command.SetAction(parse => CliRun.Guard(parse, run =>
         {
             var import = imports.Read(parse);
             var assessmentOptions = assessment.Read(parse);
@@ -102,7 +104,7 @@ internal static class AnalyzeCommand
             var token = run.Token;
 
             using var source = CaptureOpener.Open(path, import);
-            var evaluation = ProgressDisplay.Run(parse.GetValue(outputs.Quiet), $"analysing {Path.GetFileName(path)}", progress =>
+            var evaluation = ProgressDisplay.Run(run.Terminal, parse.GetValue(outputs.Quiet), $"analysing {Path.GetFileName(path)}", progress =>
                 csvPath is null
                     ? Evaluation.Run(source, options, assessmentOptions, progress, token)
                     : EvaluateWithCsv(source, options, assessmentOptions, csvPath, progress, token));
@@ -114,7 +116,7 @@ internal static class AnalyzeCommand
             var result = evaluation.Analysis;
             if (jsonPath is not null)
             {
-                ResultJson.Write(jsonPath, result, token, Console.Out);
+                ResultJson.Write(jsonPath, result, token, run.Terminal.Out);
                 plan.MarkWritten("--json");
             }
 
@@ -136,25 +138,22 @@ internal static class AnalyzeCommand
 
             if (jsonPath != "-")
             {
-                var console = ConsoleOutput.Create();
-                PrintLoudWarnings(console, result);
-                VerdictPrinter.Print(console, evaluation.Assessment, parse.GetValue(touch));
-                Print(console, result);
+                List<AnalysisPrinter.Written> written = [];
+                foreach (var (what, where) in new[] { ("report", reportPath), ("JSON", jsonPath), ("plots", plotsDir), ("windows", csvPath) })
+                {
+                    if (where is not null)
+                    {
+                        written.Add(new(what, where));
+                    }
+                }
+
+                AnalysisPrinter.Print(new Screen(run.Terminal), result, evaluation.Assessment, parse.GetValue(details),
+                    parse.GetValue(touch), assessmentOptions.EvChargingPoint, written);
             }
 
             return Exit(evaluation, failOn);
         }));
         return command;
-    }
-
-    /// <summary>Warnings that make every figure below them suspect, printed before the verdict (and repeated with the
-    /// other warnings after it).</summary>
-    private static void PrintLoudWarnings(IAnsiConsole console, AnalysisResult result)
-    {
-        foreach (var warning in result.Warnings.Where(w => w.Code == Evaluation.ImplausibleResidualCode))
-        {
-            console.MarkupLine($"[bold red]WARNING: not a residual current?[/] {Markup.Escape(warning.Message)}");
-        }
     }
 
     /// <summary>Exit code 1 only for the findings the user asked to fail on.</summary>
@@ -178,47 +177,5 @@ internal static class AnalyzeCommand
             }, assessmentOptions, progress, token);
         }, token);
         return result!;
-    }
-
-    private static void Print(IAnsiConsole console, AnalysisResult result)
-    {
-        var s = result.Summary;
-        var c = result.Components;
-        var m = result.Mains;
-        var table = new Table().Border(TableBorder.Rounded).Title(Markup.Escape(result.Capture.FilePath));
-        table.AddColumn("quantity");
-        table.AddColumn(new TableColumn("value").RightAligned());
-        table.AddColumn("note");
-        void Row(string name, string value, string note = "") =>
-            table.AddRow(Markup.Escape(name), Markup.Escape(value), Markup.Escape(note));
-        Row("RMS", CurrentText.WithUnit(s.RmsA), "true RMS, whole capture");
-        Row("mean (DC)", CurrentText.WithUnit(s.DcA));
-        Row("smooth DC", CurrentText.WithUnit(c.SmoothDcA), $"worst window {CurrentText.WithUnit(c.SmoothDcMaxA)}");
-        Row("AC RMS", CurrentText.WithUnit(s.AcRmsA));
-        Row("peak + / −", $"{CurrentText.Milliamps(s.PeakPositiveA)} / {CurrentText.Milliamps(s.PeakNegativeA)} mA",
-            string.Create(CultureInfo.InvariantCulture, $"crest factor {s.CrestFactor:0.00}"));
-        Row("mains", string.Create(CultureInfo.InvariantCulture, $"{m.FrequencyHz:0.000} Hz"),
-            string.Create(CultureInfo.InvariantCulture, $"{m.Source}, {m.MinHz:0.000} to {m.MaxHz:0.000} Hz"));
-        Row("fundamental", CurrentText.WithUnit(c.MainsRmsA), "harmonic group 1");
-        Row("below mains", CurrentText.WithUnit(c.BelowMainsRmsA));
-        Row("harmonics 2-50", CurrentText.WithUnit(c.HarmonicsRmsA),
-            c.ThdPercent is { } thd ? string.Create(CultureInfo.InvariantCulture, $"THD {thd:0.0} %") : "no fundamental");
-        Row("above 1 kHz", CurrentText.WithUnit(c.Above1kHzRmsA));
-        Row("above 9 kHz", CurrentText.WithUnit(c.Above9kHzRmsA));
-        Row("pulsating DC", c.PulsatingDc ? "yes" : "no",
-            string.Create(CultureInfo.InvariantCulture, $"{c.PulsatingDcShare * 100:0} % of windows")
-            + (c.CurrentDelayAngleDeg is { } angle ? string.Create(CultureInfo.InvariantCulture, $", delay angle {angle:0} °") : ""));
-        foreach (var tone in c.Tones)
-        {
-            Row("tone", CurrentText.WithUnit(tone.RmsA), string.Create(CultureInfo.InvariantCulture, $"{tone.FrequencyHz:0.#} Hz"));
-        }
-
-        Row("windows", result.Windows.Count.ToString(CultureInfo.InvariantCulture),
-            string.Create(CultureInfo.InvariantCulture, $"{result.Windows.CyclesPerWindow} cycles, {result.Events.Count} events"));
-        console.Write(table);
-        foreach (var warning in result.Warnings)
-        {
-            console.MarkupLine($"[yellow]warning[/] {Markup.Escape(warning.Code)}: {Markup.Escape(warning.Message)}");
-        }
     }
 }

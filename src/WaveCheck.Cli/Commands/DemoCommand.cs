@@ -16,7 +16,7 @@ internal static class DemoCommand
         {
             output, quiet,
         };
-        command.SetAction(parse => CliRun.Guard(run =>
+        command.SetAction(parse => CliRun.Guard(parse, run =>
         {
             var samples = FindSamples();
             var siteFile = Path.Combine(samples, "site.json");
@@ -24,9 +24,9 @@ internal static class DemoCommand
             var outputDirectory = parse.GetValue(output)!;
             var document = SurveyCommand.Run(site.Jobs(), site.Upstream, site.Site, siteFile, outputDirectory, parquet: false,
                 parse.GetValue(quiet), run);
-            Console.Out.WriteLine(TerminalText.Clean(
+            run.Terminal.Out.WriteLine(TerminalText.Clean(
                 $"Open {Path.GetFullPath(Path.Combine(outputDirectory, "index.html"))} in a browser; each circuit links its report."));
-            return SurveyCommand.Exit(document, Core.Model.Finding.None);
+            return SurveyCommand.Exit(run.Terminal, document, Core.Model.Finding.None);
         }));
         return command;
     }

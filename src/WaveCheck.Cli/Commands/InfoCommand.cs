@@ -1,6 +1,5 @@
 using System.CommandLine;
 using System.Globalization;
-using Spectre.Console;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
@@ -23,7 +22,7 @@ internal static class InfoCommand
         command.Arguments.Add(file);
         command.Options.Add(json);
         import.AddTo(command);
-        command.SetAction(parse => CliRun.Guard(run =>
+        command.SetAction(parse => CliRun.Guard(parse, run =>
         {
             var options = import.Read(parse) with { DescribeOnly = true };
             var path = parse.GetValue(file)!;
@@ -43,7 +42,7 @@ internal static class InfoCommand
             List<CaptureWarning> warnings = [.. source.Warnings, .. scan.Warnings];
             if (jsonPath is not null)
             {
-                ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings), run.Token, Console.Out);
+                ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings), run.Token, run.Terminal.Out);
                 plan.MarkWritten("--json");
                 if (jsonPath == "-")
                 {
@@ -51,18 +50,16 @@ internal static class InfoCommand
                 }
             }
 
-            Print(ConsoleOutput.Create(), info, scan, warnings);
+            Print(new Screen(run.Terminal), info, scan, warnings);
             return CliRun.Ok;
         }));
         return command;
     }
 
-    private static void Print(IAnsiConsole console, CaptureInfo info, CaptureScanResult scan, List<CaptureWarning> warnings)
+    private static void Print(Screen screen, CaptureInfo info, CaptureScanResult scan, List<CaptureWarning> warnings)
     {
-        var facts = new Table().Border(TableBorder.Rounded).Title(Markup.Escape(info.FilePath));
-        facts.AddColumn("capture");
-        facts.AddColumn("value");
-        void Row(string name, string value) => facts.AddRow(new Text(name), new Text(value));
+        var facts = new TextTable(info.FilePath, new("capture"), new("value"));
+        void Row(string name, string value) => facts.AddRow(name, value);
 
         Row("format", info.Format);
         Row("encoding", info.Encoding);
@@ -83,34 +80,31 @@ internal static class InfoCommand
         Row("sensor coupling", info.SensorCoupling.ToString().ToLowerInvariant());
         var gaps = warnings.Count(w => w.Code == "time-gap");
         Row("time gaps", gaps == 0 ? "none found" : $"{gaps} warning{(gaps == 1 ? "" : "s")}, see below");
-        console.Write(facts);
+        screen.Table(facts);
 
-        var channels = new Table().Border(TableBorder.Rounded);
-        foreach (var heading in new[] { "channel", "unit", "min", "max", "mean", "clipped" })
-        {
-            channels.AddColumn(heading);
-        }
+        var channels = new TextTable(null, new("channel"), new("unit"), new("min", Right: true), new("max", Right: true),
+            new("mean", Right: true), new("clipped"));
 
         foreach (var s in scan.Channels)
         {
             var clipped = s.ClippedSamples == 0
                 ? "no"
                 : string.Create(CultureInfo.InvariantCulture, $"{s.ClippedSamples} ({100 * s.ClippedShare:0.###} %) from {s.FirstClipS:0.######} s");
-            channels.AddRow(new Text(s.Name), new Text(s.Unit == "A" ? "mA" : s.Unit), new Text(Value(s.MinSi, s.Unit)),
-                new Text(Value(s.MaxSi, s.Unit)), new Text(Value(s.MeanSi, s.Unit)), new Text(clipped));
+            channels.AddRow(s.Name, s.Unit == "A" ? "mA" : s.Unit, Value(s.MinSi, s.Unit), Value(s.MaxSi, s.Unit),
+                Value(s.MeanSi, s.Unit), clipped);
         }
 
-        console.Write(channels);
+        screen.Table(channels);
         if (warnings.Count == 0)
         {
-            console.WriteLine("No warnings.");
+            screen.Paragraph("No warnings.");
             return;
         }
 
-        console.WriteLine("Warnings:");
+        screen.Paragraph("Warnings:");
         foreach (var w in warnings)
         {
-            console.Write(new Text($"  [{w.Code}] {w.Message}\n"));
+            screen.Paragraph(w.Message, $"  [{w.Code}] ", "    ");
         }
     }
 

@@ -1,6 +1,5 @@
 using System.CommandLine;
 using System.Globalization;
-using Spectre.Console;
 using WaveCheck.Core;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
@@ -46,7 +45,7 @@ internal static class SurveyCommand
         {
             paths, config, output, parquet, quiet, failOn, rated, device, sensor, scale, regime,
         };
-        command.SetAction(parse => CliRun.Guard(run =>
+        command.SetAction(parse => CliRun.Guard(parse, run =>
         {
             var protection = parse.GetValue(device);
             var overrides = new CaptureSettingsPatch
@@ -94,7 +93,7 @@ internal static class SurveyCommand
             }
 
             var document = Run(jobs, upstream, site, configPath, parse.GetValue(output)!, parse.GetValue(parquet), parse.GetValue(quiet), run);
-            return Exit(document, fail);
+            return Exit(run.Terminal, document, fail);
         }));
         return command;
     }
@@ -119,7 +118,7 @@ internal static class SurveyCommand
         SurveyDocument document;
         try
         {
-            document = ProgressDisplay.Run(quiet, $"surveying {jobs.Count} captures", progress =>
+            document = ProgressDisplay.Run(run.Terminal, quiet, $"surveying {jobs.Count} captures", progress =>
                 SiteSurvey.Run(jobs, upstream, options,
                     progress is null ? null : new SurveyProgress(done => progress.Report(done.Done / (double)Math.Max(1, done.Total))),
                     run.Token));
@@ -130,54 +129,49 @@ internal static class SurveyCommand
         }
 
         run.Describe = () => $"every output written (--output {outputDirectory})";
-        Print(ConsoleOutput.Create(), document, outputDirectory);
+        Print(new Screen(run.Terminal), document, outputDirectory);
         return document;
     }
 
-    internal static int Exit(SurveyDocument document, Finding asked)
+    internal static int Exit(Terminal terminal, SurveyDocument document, Finding asked)
     {
         if (document.Rows.Count > 0 && document.Rows.All(r => r.Verdict == SurveyVerdict.Error))
         {
-            CliRun.PrintError($"survey: none of the {document.Rows.Count} captures could be read; first: {document.Rows[0].Error}");
+            CliRun.PrintError(terminal, $"survey: none of the {document.Rows.Count} captures could be read; first: {document.Rows[0].Error}");
             return CliRun.BadInput;
         }
 
         return (Findings.Of(document) & asked) != Finding.None ? CliRun.Finding : CliRun.Ok;
     }
 
-    private static void Print(IAnsiConsole console, SurveyDocument document, string outputDirectory)
+    private static void Print(Screen screen, SurveyDocument document, string outputDirectory)
     {
-        var plain = ConsoleOutput.Plain;
-        var table = new Table().Border(plain ? TableBorder.Ascii : TableBorder.Rounded).Title(Markup.Escape(document.Site));
-        foreach (var column in new[] { "capture", "circuit", "installed", "required", "verdict", "RMS", "smooth DC", "> 1 kHz", "nuisance" })
-        {
-            table.AddColumn(column);
-        }
-
+        var table = new TextTable(document.Site, new("capture"), new("circuit"), new("installed"), new("required"), new("verdict"),
+            new("RMS", Right: true), new("smooth DC", Right: true), new("> 1 kHz", Right: true), new("nuisance"));
         foreach (var row in document.Rows)
         {
             table.AddRow(
-                new Text(Path.GetFileName(row.File)),
-                new Text(row.Circuit ?? ""),
-                new Text(row.InstalledType is { } i ? $"{i} {CurrentText.WithUnit(row.RatedResidualCurrentA)}" : "-"),
-                new Text(row.RequiredType?.ToTradeName() ?? (row.MinimumType is { } m ? $"≥ {m.ToTradeName()}?" : "-")),
-                new Text(row.Verdict == SurveyVerdict.Error ? "error: " + row.Error : SurveyIndexWriter.VerdictLabel(row.Verdict)),
-                new Text(row.RmsA is { } rms ? CurrentText.WithUnit(rms) : ""),
-                new Text(row.SmoothDcA is { } dc ? CurrentText.WithUnit(dc) : ""),
-                new Text(row.Above1kHzRmsA is { } hf ? CurrentText.WithUnit(hf) : ""),
-                new Text(row.NuisanceRisk is { } risk ? VerdictText.Of(risk) : ""));
+                Path.GetFileName(row.File),
+                row.Circuit ?? "",
+                row.InstalledType is { } i ? $"{i} {CurrentText.WithUnit(row.RatedResidualCurrentA)}" : "-",
+                row.RequiredType?.ToTradeName() ?? (row.MinimumType is { } m ? $"at least {m.ToTradeName()}" : "-"),
+                row.Verdict == SurveyVerdict.Error ? "error: " + row.Error : SurveyIndexWriter.VerdictLabel(row.Verdict),
+                row.RmsA is { } rms ? CurrentText.WithUnit(rms) : "",
+                row.SmoothDcA is { } dc ? CurrentText.WithUnit(dc) : "",
+                row.Above1kHzRmsA is { } hf ? CurrentText.WithUnit(hf) : "",
+                row.NuisanceRisk is { } risk ? VerdictText.Of(risk) : "");
         }
 
-        console.Write(table);
+        screen.Table(table);
         foreach (var u in document.Upstream)
         {
-            console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"upstream {u.Name} (type {u.DeviceType.ToTradeName()}, {CurrentText.WithUnit(u.RatedResidualCurrentA)}): leakage {VerdictText.Of(u.LeakageRisk)}: {u.LeakageExplanation}"));
-            console.WriteLine($"  DC {VerdictText.Of(u.DcRisk)}: {u.DcExplanation}");
-            console.WriteLine($"  type {VerdictText.Of(u.TypeRisk)}: {u.TypeExplanation}");
+            screen.Paragraph(string.Create(CultureInfo.InvariantCulture,
+                $"upstream {u.Name} (type {u.DeviceType.ToTradeName()}, {CurrentText.WithUnit(u.RatedResidualCurrentA)}): leakage {VerdictText.Of(u.LeakageRisk)}: {u.LeakageExplanation}"), "", "  ");
+            screen.Paragraph($"DC {VerdictText.Of(u.DcRisk)}: {u.DcExplanation}", "  ");
+            screen.Paragraph($"type {VerdictText.Of(u.TypeRisk)}: {u.TypeExplanation}", "  ");
         }
 
-        console.WriteLine($"Summary: {Path.Combine(outputDirectory, "index.html")} (also survey.csv, survey.json, reports/)");
+        screen.Paragraph($"Summary: {Path.Combine(outputDirectory, "index.html")} (also survey.csv, survey.json, reports/)", "", "  ");
     }
 
     private static List<string> ExpandPaths(IReadOnlyList<string> given)

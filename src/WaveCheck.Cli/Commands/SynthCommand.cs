@@ -43,7 +43,7 @@ internal static class SynthCommand
         {
             parts, output, rate, duration, mains, fullScale, format, sensor,
         };
-        command.SetAction(parse => CliRun.Guard(run =>
+        command.SetAction(parse => CliRun.Guard(parse, run =>
         {
             var rateHz = parse.GetValue(rate) ?? DefaultRateHz;
             var durationS = parse.GetValue(duration) ?? DefaultDurationS;
@@ -105,7 +105,7 @@ internal static class SynthCommand
             }
 
             plan.MarkWritten("--output");
-            Console.Out.WriteLine(TerminalText.Clean(string.Create(CultureInfo.InvariantCulture,
+            run.Terminal.Out.WriteLine(TerminalText.Clean(string.Create(CultureInfo.InvariantCulture,
                 $"wrote {path}: {written:N0} samples at {rateHz:G6} Hz ({durationS:G6} s){scaleNote}; {string.Join(" + ", components.Select(c => c.Describe()))}")));
             return CliRun.Ok;
         }));
