@@ -154,11 +154,11 @@ internal sealed class AssessmentOptionSet
     }
 
     /// <summary>A stderr line when IΔn is off the ratings in use (the result carries the same caution).</summary>
-    public static void WarnAboutRating(double ratedA)
+    public static void WarnAboutRating(Terminal terminal, double ratedA)
     {
         if (!Limits.IsRatingInUse(ratedA))
         {
-            Console.Error.WriteLine("wavecheck: warning: " + TerminalText.Clean(DeviceTypeAssessor.RatingCaution(ratedA)));
+            terminal.Error.WriteLine("wavecheck: warning: " + TerminalText.Clean(DeviceTypeAssessor.RatingCaution(ratedA)));
         }
     }
 

@@ -60,7 +60,7 @@ internal static class AnalyzeCommand
         {
             var import = imports.Read(parse);
             var assessmentOptions = assessment.Read(parse);
-            AssessmentOptionSet.WarnAboutRating(assessmentOptions.RatedResidualCurrentA);
+            AssessmentOptionSet.WarnAboutRating(run.Terminal, assessmentOptions.RatedResidualCurrentA);
             var options = new AnalysisOptions
             {
                 MainsHz = parse.GetValue(mains),

@@ -89,7 +89,7 @@ internal static class SurveyCommand
 
             foreach (var ratedA in jobs.Select(j => j.Settings.RatedResidualCurrentA).Distinct())
             {
-                AssessmentOptionSet.WarnAboutRating(ratedA);
+                AssessmentOptionSet.WarnAboutRating(run.Terminal, ratedA);
             }
 
             var document = Run(jobs, upstream, site, configPath, parse.GetValue(output)!, parse.GetValue(parquet), parse.GetValue(quiet), run);
