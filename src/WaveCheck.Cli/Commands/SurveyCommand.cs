@@ -158,6 +158,7 @@ internal static class SurveyCommand
         }
 
         console.Write(table);
+        CircuitSummary.Print(console, document);
         foreach (var u in document.Upstream)
         {
             console.WriteLine(string.Create(CultureInfo.InvariantCulture,
@@ -166,7 +167,7 @@ internal static class SurveyCommand
             console.WriteLine($"  type {VerdictText.Of(u.TypeRisk)}: {u.TypeExplanation}");
         }
 
-        console.WriteLine($"Summary: {Path.Combine(outputDirectory, "index.html")} (also survey.csv, survey.json, reports/)");
+        console.WriteLine($"Summary: {Path.Combine(outputDirectory, "index.html")} (also survey.csv, survey.json, actions.csv, reports/)");
     }
 
     private static List<string> ExpandPaths(IReadOnlyList<string> given)
