@@ -22,6 +22,7 @@ public static class SurveyIndexWriter
         th,td{border:1px solid #bbb;padding:.3em .5em;text-align:left;vertical-align:top}
         th{background:#eee}td.n{text-align:right;font-variant-numeric:tabular-nums}
         .v-ok{background:#e3f4e1}.v-upgrade{background:#fbe0dc}.v-cannot-tell{background:#fff4cc}.v-error{background:#e6e6e6}
+        tr.circuit td{border-top:2px solid #555}tr.capture td:first-child{padding-left:1.5em}
         .cautions{border:2px solid #a60;padding:.5em 1em;background:#fff8ee}
         """;
 
@@ -39,9 +40,11 @@ public static class SurveyIndexWriter
         html.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>")
             .Append(E($"Residual-current survey: {survey.Site}")).Append("</title>\n<style>").Append(Style).Append("</style>\n</head>\n<body>\n");
         html.Append("<h1>").Append(E($"Residual-current survey: {survey.Site}")).Append("</h1>\n<p>")
-            .Append(E($"{survey.Rows.Count} captures, written {survey.GeneratedAt.ToString("yyyy-MM-dd HH:mm zzz", CultureInfo.InvariantCulture)}.")).Append(' ')
+            .Append(E($"{survey.Rows.Count} captures{(survey.Circuits.Count > 0 ? $" of {survey.Circuits.Count} circuits" : string.Empty)}, written {survey.GeneratedAt.ToString("yyyy-MM-dd HH:mm zzz", CultureInfo.InvariantCulture)}.")).Append(' ')
             .Append(E(Tally(survey.Rows))).Append("</p>\n");
         Cautions(html, survey.Cautions);
+        Circuits(html, survey.Circuits);
+        Schedule(html, survey.Actions, survey.Circuits.Count > 0);
         Captures(html, survey.Rows);
         Upstream(html, survey.Upstream);
         html.Append("</body>\n</html>\n");
@@ -58,9 +61,102 @@ public static class SurveyIndexWriter
         _ => "⚠ error",
     };
 
+    /// <summary>One row per circuit with its verdict over all its captures, each capture listed under it.</summary>
+    private static void Circuits(StringBuilder html, IReadOnlyList<CircuitVerdict> circuits)
+    {
+        if (circuits.Count == 0)
+        {
+            return;
+        }
+
+        html.Append("<h2>Circuits</h2>\n<p>One verdict per circuit: the strongest requirement over its captures, never weaker than any of them.</p>\n<table>\n")
+            .Append("<tr><th>Circuit / capture</th><th>Installed</th><th>IΔn</th><th>Required type</th><th>Verdict</th>")
+            .Append("<th>Worst-window RMS</th><th>Smooth DC</th><th>Nuisance tripping</th><th>Reason</th></tr>\n");
+        foreach (var circuit in circuits)
+        {
+            var required = circuit.RequiredType?.ToTradeName() ?? (circuit.MinimumType is { } minimum ? $"at least {minimum.ToTradeName()}" : "—");
+            html.Append("<tr class=\"circuit v-").Append(E(VerdictText.Of(circuit.Verdict))).Append("\"><td><strong>").Append(E(circuit.Circuit))
+                .Append("</strong></td><td>").Append(E(circuit.InstalledType ?? "not given"))
+                .Append("</td><td class=\"n\">").Append(E(CurrentText.WithUnit(circuit.RatedResidualCurrentA)))
+                .Append("</td><td>").Append(E(required))
+                .Append("</td><td><strong>").Append(E(VerdictLabel(circuit.Verdict))).Append("</strong>")
+                .Append("</td><td class=\"n\">").Append(E(Amps(circuit.WorstWindowRmsA)))
+                .Append("</td><td class=\"n\">").Append(E(Amps(circuit.SmoothDcA) + (circuit.SmoothDcKnown == false ? " (sensor cannot show DC)" : string.Empty)))
+                .Append("</td><td>").Append(E(circuit.NuisanceRisk is not { } risk ? "—" : $"{VerdictText.Of(risk)}, margin {Amps(circuit.NuisanceMarginA)}"))
+                .Append("</td><td>").Append(E(circuit.Reason)).Append("</td></tr>\n");
+            foreach (var capture in circuit.Captures)
+            {
+                var name = Path.GetFileName(capture.File);
+                html.Append("<tr class=\"capture\"><td>↳ ");
+                if (capture.State is { Length: > 0 } state)
+                {
+                    html.Append(E(state)).Append(": ");
+                }
+
+                if (capture.ReportPath is { Length: > 0 } report)
+                {
+                    html.Append("<a href=\"").Append(E(Href(report))).Append("\">").Append(E(name)).Append("</a>");
+                }
+                else
+                {
+                    html.Append(E(name));
+                }
+
+                var own = capture.RequiredType?.ToTradeName() ?? (capture.MinimumType is { } m ? $"at least {m.ToTradeName()}" : "—");
+                html.Append("</td><td></td><td></td><td>").Append(E(own))
+                    .Append("</td><td>").Append(E(VerdictLabel(capture.Verdict)))
+                    .Append("</td><td class=\"n\">").Append(E(Amps(capture.WorstWindowRmsA)))
+                    .Append("</td><td></td><td></td><td></td></tr>\n");
+            }
+        }
+
+        html.Append("</table>\n");
+    }
+
+    /// <summary>The remedial schedule: what to do, most urgent first.</summary>
+    private static void Schedule(StringBuilder html, IReadOnlyList<RemedialAction> actions, bool judged)
+    {
+        if (!judged)
+        {
+            return;
+        }
+
+        html.Append("<h2>Remedial schedule</h2>\n");
+        if (actions.Count == 0)
+        {
+            html.Append("<p>No circuit needs action.</p>\n");
+            return;
+        }
+
+        html.Append("<p>Most urgent first: a device too weak for its circuit, then what the survey could not show, then nuisance tripping, then the leakage budget (also in actions.csv).</p>\n<table>\n")
+            .Append("<tr><th>#</th><th>Priority</th><th>Circuit</th><th>Installed</th><th>IΔn</th><th>Required</th><th>Reason</th></tr>\n");
+        foreach (var action in actions)
+        {
+            html.Append("<tr><td class=\"n\">").Append(action.Rank.ToString(CultureInfo.InvariantCulture))
+                .Append("</td><td><strong>").Append(E(PriorityLabel(action.Priority))).Append("</strong>")
+                .Append("</td><td>").Append(E(action.Circuit + (action.Upstream ? " (upstream device)" : string.Empty)))
+                .Append("</td><td>").Append(E(action.InstalledType ?? "not given"))
+                .Append("</td><td class=\"n\">").Append(E(CurrentText.WithUnit(action.RatedResidualCurrentA)))
+                .Append("</td><td>").Append(E(action.Required))
+                .Append("</td><td>").Append(E(action.Reason)).Append("</td></tr>\n");
+        }
+
+        html.Append("</table>\n");
+    }
+
+    /// <summary>The words shown for a schedule priority.</summary>
+    /// <param name="priority">The priority.</param>
+    public static string PriorityLabel(ActionPriority priority) => priority switch
+    {
+        ActionPriority.DeviceTooWeak => "1 safety: device too weak",
+        ActionPriority.NotShown => "2 safety not shown",
+        ActionPriority.NuisanceTripping => "3 nuisance tripping",
+        _ => "4 leakage budget",
+    };
+
     private static void Captures(StringBuilder html, IReadOnlyList<SurveyRow> rows)
     {
-        html.Append("<h2>Circuits</h2>\n<table>\n<tr><th>Circuit</th><th>Capture</th><th>Installed</th><th>IΔn</th>")
+        html.Append("<h2>Captures</h2>\n<table>\n<tr><th>Circuit</th><th>Capture</th><th>Installed</th><th>IΔn</th>")
             .Append("<th>Required type</th><th>Verdict</th><th>Worst-window RMS</th><th>Smooth DC</th><th>Above 1 kHz</th>")
             .Append("<th>Nuisance tripping</th><th>Finding</th></tr>\n");
         foreach (var row in rows)

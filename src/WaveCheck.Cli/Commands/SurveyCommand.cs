@@ -163,6 +163,7 @@ internal static class SurveyCommand
         }
 
         screen.Table(table);
+        CircuitSummary.Print(screen, document);
         foreach (var u in document.Upstream)
         {
             screen.Paragraph(string.Create(CultureInfo.InvariantCulture,
@@ -171,7 +172,7 @@ internal static class SurveyCommand
             screen.Paragraph($"type {VerdictText.Of(u.TypeRisk)}: {u.TypeExplanation}", "  ");
         }
 
-        screen.Paragraph($"Summary: {Path.Combine(outputDirectory, "index.html")} (also survey.csv, survey.json, reports/)", "", "  ");
+        screen.Paragraph($"Summary: {Path.Combine(outputDirectory, "index.html")} (also survey.csv, survey.json, actions.csv, reports/)", "", "  ");
     }
 
     private static List<string> ExpandPaths(IReadOnlyList<string> given)

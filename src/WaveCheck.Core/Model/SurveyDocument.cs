@@ -15,6 +15,13 @@ public sealed record SurveyDocument
     /// <summary>One row per capture, in input order.</summary>
     public required IReadOnlyList<SurveyRow> Rows { get; init; }
 
+    /// <summary>One verdict per circuit over its captures, in the order each circuit first appears in
+    /// <see cref="Rows"/>; empty in surveys written before circuits were grouped.</summary>
+    public IReadOnlyList<CircuitVerdict> Circuits { get; init; } = [];
+
+    /// <summary>The remedial schedule: circuits and upstream devices that need action, most urgent first.</summary>
+    public IReadOnlyList<RemedialAction> Actions { get; init; } = [];
+
     /// <summary>Upstream devices checked against their circuits.</summary>
     public required IReadOnlyList<UpstreamResult> Upstream { get; init; }
 

@@ -11,8 +11,11 @@ public sealed record SurveyRow
     /// <summary>The capture (the job's path).</summary>
     public required string File { get; init; }
 
-    /// <summary>Circuit name; null when not given.</summary>
+    /// <summary>Circuit name; null when not given. Captures with the same name are one circuit (<see cref="CircuitVerdict"/>).</summary>
     public string? Circuit { get; init; }
+
+    /// <summary>What the circuit was doing during the capture (<c>start-up</c>, <c>charging, final phase</c>); null when not given.</summary>
+    public string? State { get; init; }
 
     /// <summary>Installed device type (<c>AC</c>, <c>A</c>, <c>F</c>, <c>B</c>, <c>B+</c>), with its DC detection where one
     /// is declared (<c>A+RDC-DD</c>); null when not given.</summary>
@@ -23,6 +26,10 @@ public sealed record SurveyRow
 
     /// <summary>Least capable type that covers the waveform; null when it cannot be determined or on error.</summary>
     public DeviceType? RequiredType { get; init; }
+
+    /// <summary>The protection the standards accept, in words (the required type and its alternatives, e.g. type A
+    /// with a 6 mA DC detection device at a charging point); null when open or on error.</summary>
+    public string? AcceptedProtection { get; init; }
 
     /// <summary>Lowest type that may be required once what the capture could not show is measured; null on error.</summary>
     public DeviceType? MinimumType { get; init; }

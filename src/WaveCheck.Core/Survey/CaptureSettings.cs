@@ -38,6 +38,9 @@ public sealed record CaptureSettings
 
     /// <summary>Circuit name for a person, e.g. <c>C1 panel saw drive</c>; null when not given.</summary>
     public string? Circuit { get; init; }
+
+    /// <summary>What the circuit was doing during this capture, e.g. <c>start-up</c>; null when not given.</summary>
+    public string? State { get; init; }
 }
 
 /// <summary>
@@ -88,6 +91,9 @@ public sealed record CaptureSettingsPatch
     /// <summary>Circuit name.</summary>
     public string? Circuit { get; init; }
 
+    /// <summary>Operating state during the capture.</summary>
+    public string? State { get; init; }
+
     /// <summary>Applies the values stated in this patch on top of <paramref name="settings"/>; unstated values keep theirs.</summary>
     /// <remarks>A stated channel clears an inherited sum and the other way round, so a capture's own choice of residual
     /// source wins over a default of the other kind.</remarks>
@@ -115,6 +121,7 @@ public sealed record CaptureSettingsPatch
             Regime = Regime ?? settings.Regime,
             Ev = Ev ?? settings.Ev,
             Circuit = Circuit ?? settings.Circuit,
+            State = State ?? settings.State,
         };
     }
 }

@@ -3,6 +3,7 @@ using System.Text.Json;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Model;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Survey;
 
@@ -19,10 +20,14 @@ namespace WaveCheck.Core.Survey;
 ///   "captures": [ { "file": "c1.wav", "circuit": "...", settings }, ... ],
 ///   "upstream": [ { "name": "...", "device": "A", "rated": "100mA", "circuits": ["c2.wav", ...] }, ... ] }
 /// </code>
+/// A capture entry may say what the circuit was doing (<c>"state": "start-up"</c>); captures with the same
+/// <c>circuit</c> name (trimmed, case ignored) are one circuit with one verdict, and must state the same device, IΔn,
+/// regime and charging-point settings.
 /// Settings keys: <c>rated</c>, <c>device</c> (a type, or a type with <c>+RDC-DD</c>), <c>sensor</c> (dc, ac, unknown),
 /// <c>regime</c> (iec, na), <c>ev</c>, <c>chargerDcDetection</c> (the charging equipment detects 6 mA DC itself),
 /// <c>scale</c>, <c>sensitivity</c>, <c>range</c>, <c>rate</c>, <c>channel</c>, <c>sum</c>; a null value means "not stated".
-/// Upstream <c>circuits</c> name captures by their <c>file</c> exactly as written in <c>captures</c>.
+/// Upstream <c>circuits</c> name captures by their <c>file</c> exactly as written in <c>captures</c>, or circuits by
+/// their name; either way every capture of that circuit is behind the device.
 /// </remarks>
 public static class SiteConfigReader
 {
@@ -38,7 +43,7 @@ public static class SiteConfigReader
     private static readonly string[] SettingKeys =
         ["rated", "device", "sensor", "regime", "ev", "chargerDcDetection", "scale", "sensitivity", "range", "rate", "channel", "sum"];
 
-    private static readonly string[] CaptureKeys = ["file", "circuit", .. SettingKeys];
+    private static readonly string[] CaptureKeys = ["file", "circuit", "state", .. SettingKeys];
 
     private static readonly string[] UpstreamKeys = ["name", "device", "rated", "circuits"];
 
@@ -339,6 +344,7 @@ public static class SiteConfigReader
             }
 
             var captureList = ReadCaptures(captures);
+            RequireOneDevicePerCircuit(captures, captureList, defaults);
             var groups = upstream is null or { Kind: JsonTokenType.Null } ? [] : ReadUpstream(upstream, captureList);
             return new SiteConfig
             {
@@ -380,6 +386,66 @@ public static class SiteConfigReader
             return result;
         }
 
+        /// <summary>Refuses captures of one circuit that state different devices: a circuit has one device, so two
+        /// captures that disagree on it are a mistake in the file (or two circuits sharing a name).</summary>
+        private void RequireOneDevicePerCircuit(Node list, List<SiteCapture> captures, CaptureSettingsPatch defaults)
+        {
+            var first = new Dictionary<string, (int Index, CaptureSettings Settings)>(StringComparer.OrdinalIgnoreCase);
+            for (var i = 0; i < captures.Count; i++)
+            {
+                var settings = captures[i].Settings.ApplyTo(defaults.ApplyTo(new CaptureSettings()));
+                if (string.IsNullOrWhiteSpace(settings.Circuit))
+                {
+                    continue;
+                }
+
+                var key = settings.Circuit.Trim();
+                if (!first.TryGetValue(key, out var earlier))
+                {
+                    first.Add(key, (i, settings));
+                    continue;
+                }
+
+                var differs = Difference(earlier.Settings, settings);
+                if (differs is not null)
+                {
+                    var node = list.Items![i];
+                    throw Error(node, $"capture \"{captures[i].File}\" of circuit \"{key}\" states {differs.Value.Later}, but \"{captures[earlier.Index].File}\" " +
+                        $"(line {list.Items[earlier.Index].Line}) states {differs.Value.Earlier}: the captures of one circuit share its device; correct the entry, or give the circuits different names");
+                }
+            }
+        }
+
+        private static (string Earlier, string Later)? Difference(CaptureSettings a, CaptureSettings b)
+        {
+            static string Device(CaptureSettings s) => s.InstalledType is { } t ? $"\"device\": \"{t.ToTradeName()}{(s.InstalledRdcDd ? "+RDC-DD" : string.Empty)}\"" : "no \"device\"";
+            if (Device(a) != Device(b))
+            {
+                return (Device(a), Device(b));
+            }
+
+            if (a.RatedResidualCurrentA != b.RatedResidualCurrentA)
+            {
+                return ($"\"rated\": {CurrentText.WithUnit(a.RatedResidualCurrentA)}", $"\"rated\": {CurrentText.WithUnit(b.RatedResidualCurrentA)}");
+            }
+
+            if (a.Regime != b.Regime)
+            {
+                return ($"\"regime\": \"{RegimeText(a.Regime)}\"", $"\"regime\": \"{RegimeText(b.Regime)}\"");
+            }
+
+            if (a.Ev != b.Ev)
+            {
+                return ($"\"ev\": {(a.Ev ? "true" : "false")}", $"\"ev\": {(b.Ev ? "true" : "false")}");
+            }
+
+            return a.ChargerDcDetection != b.ChargerDcDetection
+                ? ($"\"chargerDcDetection\": {(a.ChargerDcDetection ? "true" : "false")}", $"\"chargerDcDetection\": {(b.ChargerDcDetection ? "true" : "false")}")
+                : null;
+        }
+
+        private static string RegimeText(Regime regime) => regime == Regime.Na ? "na" : "iec";
+
         private List<UpstreamGroup> ReadUpstream(Node list, List<SiteCapture> captures)
         {
             RequireKind(list, JsonTokenType.StartArray, "a list of upstream devices [ { \"name\": ..., \"circuits\": [...] } ]");
@@ -418,12 +484,18 @@ public static class SiteConfigReader
                 RequireKind(circuitsNode, JsonTokenType.StartArray, "a list of capture files [\"c2.wav\", ...] as written under \"captures\"");
                 var members = new List<string>(circuitsNode.Items!.Count);
                 var seen = new HashSet<string>(StringComparer.Ordinal);
+                var memberPaths = new HashSet<string>(StringComparer.Ordinal);
                 foreach (var circuit in circuitsNode.Items)
                 {
                     var file = RequiredString(circuit, "circuits");
-                    if (!byFile.TryGetValue(file, out var capture))
+                    // A capture file as written under "captures", or a circuit's name: either way the whole circuit,
+                    // every capture of it, is behind the device.
+                    var circuitName = byFile.TryGetValue(file, out var capture) ? capture.Settings.Circuit?.Trim() : file.Trim();
+                    var ofCircuit = string.IsNullOrEmpty(circuitName) ? [] : captures
+                        .Where(c => string.Equals(c.Settings.Circuit?.Trim(), circuitName, StringComparison.OrdinalIgnoreCase)).ToList();
+                    if (capture is null && ofCircuit.Count == 0)
                     {
-                        throw Error(circuit, $"upstream device \"{name}\" names \"{file}\", which is not under \"captures\": expected one of {Quote(byFile.Keys)}");
+                        throw Error(circuit, $"upstream device \"{name}\" names \"{file}\", which is neither a capture under \"captures\" nor a circuit's name: expected one of {Quote(byFile.Keys)}");
                     }
 
                     if (!seen.Add(file))
@@ -431,7 +503,13 @@ public static class SiteConfigReader
                         throw Error(circuit, $"upstream device \"{name}\" names \"{file}\" twice: name each circuit once");
                     }
 
-                    members.Add(capture.Path);
+                    foreach (var member in capture is not null && ofCircuit.Count == 0 ? [capture] : ofCircuit)
+                    {
+                        if (memberPaths.Add(member.Path))
+                        {
+                            members.Add(member.Path);
+                        }
+                    }
                 }
 
                 groups.Add(new UpstreamGroup(name, device, rated, members));
@@ -454,6 +532,7 @@ public static class SiteConfigReader
                 {
                     "file" => patch,
                     "circuit" => patch with { Circuit = OptionalString(value, key) },
+                    "state" => patch with { State = OptionalString(value, key) },
                     "rated" => patch with { RatedResidualCurrentA = RatedOf(value) },
                     "device" => DeviceOf(value) is { } protection
                         ? patch with { InstalledType = protection.Type, InstalledRdcDd = protection.RdcDd }

@@ -56,9 +56,9 @@ public static class SiteSurvey
 {
     /// <summary>The entries a survey writes in its output folder; the folder may hold nothing else.</summary>
     public static IReadOnlyList<string> OutputNames { get; } =
-        ["survey.csv", "survey.json", "index.html", "reports", "captures.parquet", "windows.parquet"];
+        ["survey.csv", "survey.json", "actions.csv", "index.html", "reports", "captures.parquet", "windows.parquet"];
 
-    /// <summary>Runs the survey and writes <c>survey.csv</c>, <c>survey.json</c> (and Parquet tables, reports, the
+    /// <summary>Runs the survey and writes <c>survey.csv</c>, <c>survey.json</c>, <c>actions.csv</c> (and Parquet tables, reports, the
     /// index) into the output folder, as one set.</summary>
     /// <param name="jobs">One per capture.</param>
     /// <param name="upstream">Upstream devices and the captures behind them.</param>
@@ -136,15 +136,20 @@ public static class SiteSurvey
         }, progress, options.MaxParallel, cancellationToken);
 
         var rows = outcomes.Select(o => o.Row).ToList();
+        var circuits = CircuitVerdicts.From(rows);
+        var upstreamResults = UpstreamCheck.EvaluateAll(upstream, rows);
         var document = new SurveyDocument
         {
             Site = options.Site,
             GeneratedAt = DateTimeOffset.Now,
             Rows = rows,
-            Upstream = UpstreamCheck.EvaluateAll(upstream, rows),
+            Circuits = circuits,
+            Actions = RemedialSchedule.From(circuits, upstreamResults),
+            Upstream = upstreamResults,
             Cautions = SurveyCautions.All,
         };
         SurveyCsvWriter.Write(Path.Combine(folder, "survey.csv"), rows);
+        ActionsCsvWriter.Write(Path.Combine(folder, "actions.csv"), document.Actions);
         SurveyJson.Write(Path.Combine(folder, "survey.json"), document);
         if (windows is not null)
         {

@@ -24,7 +24,9 @@ public static class SurveyRows
         {
             File = file,
             Circuit = settings.Circuit,
+            State = settings.State,
             InstalledType = installed,
+            AcceptedProtection = assessment.AcceptedProtection,
             RatedResidualCurrentA = assessment.RatedResidualCurrentA,
             RequiredType = assessment.RequiredType,
             MinimumType = assessment.MinimumType,
@@ -55,10 +57,18 @@ public static class SurveyRows
         {
             File = file,
             Circuit = settings.Circuit,
-            InstalledType = settings.InstalledType?.ToTradeName(),
+            State = settings.State,
+            InstalledType = Protection(settings),
             RatedResidualCurrentA = settings.RatedResidualCurrentA,
             Verdict = SurveyVerdict.Error,
             Error = message,
         };
     }
+
+    /// <summary>The installed protection as the assessment writes it (<c>A+RDC-DD</c>, <c>A + charger DC detection</c>),
+    /// so a failed capture of a circuit names the same device as its analysed captures.</summary>
+    private static string? Protection(CaptureSettings settings) => settings.InstalledType is not { } type ? null
+        : settings.InstalledRdcDd ? $"{type.ToTradeName()}+RDC-DD"
+        : settings.Ev && settings.ChargerDcDetection ? $"{type.ToTradeName()} + charger DC detection"
+        : type.ToTradeName();
 }

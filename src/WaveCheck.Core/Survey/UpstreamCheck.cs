@@ -67,7 +67,8 @@ public static class UpstreamCheck
 
     /// <summary>Checks one upstream device against its members' rows.</summary>
     /// <remarks>
-    /// Standing current: arithmetic sum of the members' worst-window RMS. The currents add as vectors and their worst
+    /// Standing current: arithmetic sum of the members' worst-window RMS, each circuit counted once at its worst
+    /// capture (captures with the same circuit name are states of one circuit, not circuits side by side). The currents add as vectors and their worst
     /// windows need not coincide, so the arithmetic sum is the safe upper bound (practice). It is compared with
     /// 0.3 IΔn (IEC 60364-5-53 §531.3.2: within, low risk) and 0.5 IΔn (IEC 61008-1 non-operating current: above it the
     /// device may trip without a fault, likely). Between: possible.
@@ -90,6 +91,9 @@ public static class UpstreamCheck
         var needMore = new List<string>();
         var typeUnknown = new List<string>();
         double standing = 0, dc = 0;
+        // Captures of one circuit are its operating states, recorded one after another: the circuit adds its worst
+        // state to the sum, not every state (which would count one circuit's current several times).
+        var circuitStanding = new Dictionary<string, (double StandingA, double DcA)>(StringComparer.OrdinalIgnoreCase);
         foreach (var row in members)
         {
             if (row.Verdict == SurveyVerdict.Error)
@@ -98,8 +102,9 @@ public static class UpstreamCheck
                 continue;
             }
 
-            standing += row.WorstWindowRmsA ?? row.RmsA ?? 0;
-            dc += Math.Abs(row.SmoothDcA ?? 0);
+            var key = CircuitVerdicts.KeyOf(row);
+            var (worst, worstDc) = circuitStanding.GetValueOrDefault(key);
+            circuitStanding[key] = (Math.Max(worst, row.WorstWindowRmsA ?? row.RmsA ?? 0), Math.Max(worstDc, Math.Abs(row.SmoothDcA ?? 0)));
             if (row.SmoothDcKnown != true)
             {
                 dcUnknown.Add(Path.GetFileName(row.File));
@@ -114,6 +119,12 @@ public static class UpstreamCheck
             {
                 typeUnknown.Add(Name(row));
             }
+        }
+
+        foreach (var (circuitStandingA, circuitDcA) in circuitStanding.Values)
+        {
+            standing += circuitStandingA;
+            dc += circuitDcA;
         }
 
         var complete = failed.Count == 0;
@@ -144,10 +155,10 @@ public static class UpstreamCheck
         } + (blinded is not null ? missing : string.Empty);
         var typeText = mismatch switch
         {
-            true => $"{string.Join("; ", needMore)}: residual current from such a circuit passes through the {deviceText} device, which may not detect it or may be blinded by it (practice).",
+            true => $"{string.Join("; ", needMore.Distinct())}: residual current from such a circuit passes through the {deviceText} device, which may not detect it or may be blinded by it (practice).",
             false => $"No circuit needs a more capable type than the {deviceText} device.",
             null => $"No counted circuit is known to need more than type {type.ToTradeName()}, but "
-                + (typeUnknown.Count > 0 ? $"the required type is undetermined for {string.Join(", ", typeUnknown)}." : "not every circuit was analysed."),
+                + (typeUnknown.Count > 0 ? $"the required type is undetermined for {string.Join(", ", typeUnknown.Distinct())}." : "not every circuit was analysed."),
         } + (mismatch is not null ? missing : string.Empty);
 
         return new UpstreamResult

@@ -96,7 +96,7 @@ public class SiteConfigReaderTests
     [InlineData("{ \"sites\": \"x\", \"captures\": [ { \"file\": \"a.wav\" } ] }",
         "\"sites\"", "unknown key \"sites\" in the site object: did you mean \"site\"?")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"zzzzzz\": 1 } ] }",
-        "\"zzzzzz\"", "unknown key \"zzzzzz\" in a capture entry: expected one of \"file\", \"circuit\", \"rated\"")]
+        "\"zzzzzz\"", "unknown key \"zzzzzz\" in a capture entry: expected one of \"file\", \"circuit\", \"state\", \"rated\"")]
     [InlineData("{ \"captures\": [\n { \"circuit\": \"Küche südlich\", \"file\": \"a.wav\", \"rated\": \"30 mAA\" } ] }",
         "\"30 mAA\"", "\"rated\": cannot use \"30 mAA\": expected a current with its unit, such as 30mA")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"rated\": \"-30mA\" } ] }",
@@ -126,7 +126,7 @@ public class SiteConfigReaderTests
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\" },\n  { \"file\": \"a.wav\" } ] }",
         "\"a.wav\" } ]", "capture \"a.wav\" is listed twice (first at line 1)")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\" } ],\n \"upstream\": [ { \"name\": \"Q1\", \"device\": \"A\", \"rated\": \"100mA\", \"circuits\": [\"a.wav\", \"b.wav\"] } ] }",
-        "\"b.wav\"", "upstream device \"Q1\" names \"b.wav\", which is not under \"captures\": expected one of \"a.wav\"")]
+        "\"b.wav\"", "upstream device \"Q1\" names \"b.wav\", which is neither a capture under \"captures\" nor a circuit's name: expected one of \"a.wav\"")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\" } ],\n \"upstream\": [ { \"name\": \"Q1\", \"device\": \"A\", \"rated\": \"100mA\", \"circuits\": [\"a.wav\", \"a.wav\"] } ] }",
         "\"a.wav\"] }", "upstream device \"Q1\" names \"a.wav\" twice")]
     [InlineData("{ \"captures\": [ { \"file\": \"a.wav\" } ], \"upstream\": [\n { \"name\": \"Q1\", \"device\": \"A\", \"rated\": \"0.1A\", \"circuits\": [] },\n { \"name\": \"q1\", \"device\": \"A\", \"rated\": \"0.1A\", \"circuits\": [] } ] }",
@@ -147,6 +147,12 @@ public class SiteConfigReaderTests
         "{", "no \"captures\" list")]
     [InlineData("[ 1, 2 ]",
         "[", "found a list: expected the site object")]
+    [InlineData("{ \"captures\": [ { \"file\": \"a.wav\", \"circuit\": \"C3 bay\", \"device\": \"A+RDC-DD\" },\n { \"file\": \"b.wav\", \"circuit\": \"c3 bay \", \"device\": \"A\" } ] }",
+        "{ \"file\": \"b.wav\"", "capture \"b.wav\" of circuit \"c3 bay\" states \"device\": \"A\", but \"a.wav\" (line 1) states \"device\": \"A+RDC-DD\"")]
+    [InlineData("{ \"defaults\": { \"rated\": \"30mA\" }, \"captures\": [ { \"file\": \"a.wav\", \"circuit\": \"C3\" },\n { \"file\": \"b.wav\", \"circuit\": \"C3\", \"rated\": \"100mA\" } ] }",
+        "{ \"file\": \"b.wav\"", "states \"rated\": 100 mA, but \"a.wav\" (line 1) states \"rated\": 30.0 mA")]
+    [InlineData("{ \"defaults\": { \"state\": \"x\" }, \"captures\": [ { \"file\": \"a.wav\" } ] }",
+        "\"state\"", "unknown key \"state\" in defaults")]
     public void Bad_site_file_names_the_place_and_what_was_expected(string text, string marker, string words)
     {
         var e = Assert.Throws<CaptureFormatException>(() => Parse(text));
@@ -169,6 +175,29 @@ public class SiteConfigReaderTests
         Assert.Equal(3, e.Column);
         Assert.Contains("not valid JSON", e.Problem, StringComparison.Ordinal);
         Assert.DoesNotContain("LineNumber", e.Problem, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Captures_with_one_circuit_name_are_one_circuit_behind_an_upstream_device()
+    {
+        // Old site files stay valid: "state" is optional, and a circuit named once is a circuit of one capture.
+        var site = Parse("""
+            { "defaults": { "rated": "30mA", "device": "A" },
+              "captures": [
+                { "file": "c2-run.wav", "circuit": "C2 extractor", "state": "running" },
+                { "file": "c2-start.wav", "circuit": "C2 Extractor ", "state": "start-up" },
+                { "file": "c6.wav", "circuit": "C6 lights" } ],
+              "upstream": [
+                { "name": "Q2", "device": "A", "rated": "100mA", "circuits": ["c2-run.wav"] },
+                { "name": "Q3", "device": "A", "rated": "100mA", "circuits": ["C6 lights"] } ] }
+            """);
+        var jobs = site.Jobs();
+        Assert.Equal("running", jobs[0].Settings.State);
+        Assert.Equal("start-up", jobs[1].Settings.State);
+        Assert.Null(jobs[2].Settings.State);
+        // Naming one capture of a circuit puts the whole circuit behind the device; a circuit may be named by its name.
+        Assert.Equal([site.Captures[0].Path, site.Captures[1].Path], site.Upstream[0].Members);
+        Assert.Equal([site.Captures[2].Path], site.Upstream[1].Members);
     }
 
     [Fact]

@@ -48,12 +48,12 @@ public sealed class SiteSurveyOutputTests : IDisposable
         var b = Capture("caps/b.wav");
         var output = _folder.File("out");
         SiteSurvey.Run([Job(a), Job(b)], [], Options(output));
-        Assert.Equal(["index.html", "reports/a.html", "reports/b.html", "survey.csv", "survey.json"], Snapshot(output).Keys.Order());
+        Assert.Equal(["actions.csv", "index.html", "reports/a.html", "reports/b.html", "survey.csv", "survey.json"], Snapshot(output).Keys.Order());
 
         // The second run has only b: a's report from the first run must not survive beside the new index.
         SiteSurvey.Run([Job(b)], [], Options(output));
         var second = Snapshot(output);
-        Assert.Equal(["index.html", "reports/b.html", "survey.csv", "survey.json"], second.Keys.Order());
+        Assert.Equal(["actions.csv", "index.html", "reports/b.html", "survey.csv", "survey.json"], second.Keys.Order());
         Assert.Equal("index of 1", second["index.html"]);
         Assert.Empty(WorkFolders());
     }

@@ -26,6 +26,20 @@ public class UpstreamCheckTests
         new("Q2 sub-board RCD", type, ratedA, members);
 
     [Fact]
+    public void A_circuit_of_several_captures_counts_once_at_its_worst_state()
+    {
+        // IEC 60364-5-53 §531.3.2 budget 0.3 × 100 mA = 30 mA. Two captures of one circuit are its states one after
+        // the other, not two circuits side by side: the sum takes the circuit's worst, 12 mA (not 12 + 7), plus
+        // the other circuit's 4 mA = 16 mA; the DC likewise max(3, 1) = 3 mA plus 0.5 mA = 3.5 mA.
+        var run = Member("c2-run.wav", 0.007, smoothDcA: 0.001) with { Circuit = "C2 extractor", State = "running" };
+        var start = Member("c2-start.wav", 0.012, smoothDcA: -0.003) with { Circuit = "c2 extractor", State = "start-up" };
+        var other = Member("c6.wav", 0.004, smoothDcA: 0.0005);
+        var result = UpstreamCheck.Evaluate(Group(DeviceType.A, 0.100, "c2-run.wav", "c2-start.wav", "c6.wav"), [run, start, other]);
+        Assert.Equal(0.016, result.StandingSumA, Tolerance);
+        Assert.Equal(0.0035, result.SmoothDcSumA, Tolerance);
+    }
+
+    [Fact]
     public void Within_budget_gives_the_margin()
     {
         // IEC 60364-5-53 §531.3.2: budget 0.3 × 100 mA = 30 mA. Arithmetic sum 4 + 9 + 12 = 25 mA: within, margin 5 mA.
