@@ -48,6 +48,16 @@ internal sealed class ImportOptionSet
         Description = "COMTRADE: use primary values instead of secondary.",
     };
 
+    public Option<string?> Voltage { get; } = new("--voltage")
+    {
+        Description = "Channel(s) carrying the circuit voltage to earth, by name or 1-based number: one (single-phase, e.g. L1N) or three (L1,L2,L3 to earth, e.g. U1,U2,U3); splits the leakage into resistive and capacitive parts.",
+    };
+
+    public Option<string?> VoltageScale { get; } = new("--voltage-scale")
+    {
+        Description = "Voltage channels: volts at WAV full scale (required for WAV, e.g. 500V), or a probe/divider ratio for CSV and COMTRADE (default 1).",
+    };
+
     public void AddTo(Command command)
     {
         command.Options.Add(Scale);
@@ -58,6 +68,8 @@ internal sealed class ImportOptionSet
         command.Options.Add(Sum);
         command.Options.Add(Sensor);
         command.Options.Add(Primary);
+        command.Options.Add(Voltage);
+        command.Options.Add(VoltageScale);
     }
 
     /// <summary>Parses the typed values once into SI quantities.</summary>
@@ -118,6 +130,7 @@ internal sealed class ImportOptionSet
         }
 
         var sensor = SensorCouplingNames.Parse("--sensor", sensorText);
+        var (voltage, voltageScale) = ReadVoltage(parse);
 
         return new ImportOptions
         {
@@ -129,6 +142,36 @@ internal sealed class ImportOptionSet
             SumChannels = sum,
             Sensor = sensor,
             Primary = parse.GetValue(Primary),
+            VoltageChannels = voltage,
+            VoltageScale = voltageScale,
         };
+    }
+
+    private (IReadOnlyList<string>? Channels, double? Scale) ReadVoltage(ParseResult parse)
+    {
+        var voltageText = parse.GetValue(Voltage);
+        var scaleText = parse.GetValue(VoltageScale);
+        IReadOnlyList<string>? channels = null;
+        if (voltageText is not null)
+        {
+            var names = voltageText.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries);
+            if (names.Length is not (1 or 3))
+            {
+                throw new OptionValueException("--voltage", voltageText, "one channel (single-phase) or three separated by commas (L1,L2,L3)");
+            }
+
+            channels = names;
+        }
+
+        double? scale = null;
+        if (scaleText is not null)
+        {
+            var v = Quantity.ParseVoltageV("--voltage-scale", scaleText);
+            scale = v > 0 && v <= ImportOptions.MaxVoltageScale
+                ? v
+                : throw new OptionValueException("--voltage-scale", scaleText, "a positive factor up to 1e6 (volts at WAV full scale, e.g. 500V, or a probe ratio)");
+        }
+
+        return (channels, scale);
     }
 }

@@ -76,7 +76,7 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
         return new ChannelSelection([candidates[0]], first, warning);
     }
 
-    private static int Find(IReadOnlyList<ChannelInfo> channels, string wanted, string option, Func<string, Exception> fail)
+    internal static int Find(IReadOnlyList<ChannelInfo> channels, string wanted, string option, Func<string, Exception> fail)
     {
         var text = wanted.Trim();
         for (var i = 0; i < channels.Count; i++)

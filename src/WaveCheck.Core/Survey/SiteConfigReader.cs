@@ -35,7 +35,7 @@ public static class SiteConfigReader
     private static readonly string[] TopKeys = ["site", "defaults", "captures", "upstream"];
 
     private static readonly string[] SettingKeys =
-        ["rated", "device", "sensor", "regime", "ev", "chargerDcDetection", "scale", "sensitivity", "range", "rate", "channel", "sum"];
+        ["rated", "device", "sensor", "regime", "ev", "chargerDcDetection", "scale", "sensitivity", "range", "rate", "channel", "sum", "voltage", "voltageScale"];
 
     private static readonly string[] CaptureKeys = ["file", "circuit", .. SettingKeys];
 
@@ -467,6 +467,8 @@ public static class SiteConfigReader
                     "rate" => patch with { RateHz = Bounded(value, key, QuantityOf(value, key, "a frequency such as \"10kHz\"", static (k, t) => WaveCheck.Core.Capture.Quantity.ParseFrequencyHz(k, t))) },
                     "channel" => patch with { Channel = ChannelOf(value) },
                     "sum" => patch with { Sum = SumOf(value) },
+                    "voltage" => patch with { Voltage = VoltageOf(value) },
+                    "voltageScale" => patch with { VoltageScale = VoltageScaleOf(value, key) },
                     _ => throw UnknownKey(keyNode, allowed, where),
                 };
             }
@@ -597,6 +599,39 @@ public static class SiteConfigReader
             JsonTokenType.Number when value.Number >= 1 && value.Number == Math.Floor(value.Number) => value.Text,
             _ => throw Error(value, $"\"channel\": cannot use {value.Describe()}: expected a channel name or a 1-based number"),
         };
+
+        private List<string>? VoltageOf(Node value)
+        {
+            List<string> names;
+            switch (value.Kind)
+            {
+                case JsonTokenType.Null: return null;
+                case JsonTokenType.String:
+                    names = [.. value.Text!.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries)];
+                    break;
+                case JsonTokenType.Number when value.Number >= 1 && value.Number == Math.Floor(value.Number):
+                    names = [value.Text!];
+                    break;
+                case JsonTokenType.StartArray:
+                    names = [.. value.Items!.Select(i => RequiredString(i, "voltage").Trim())];
+                    break;
+                default:
+                    names = [];
+                    break;
+            }
+
+            return names.Count is 1 or 3 ? names
+                : throw Error(value, $"\"voltage\": cannot use {value.Describe()}: expected one voltage channel, or three (L1, L2, L3), e.g. \"ch2\" or [\"U1\", \"U2\", \"U3\"]");
+        }
+
+        private double? VoltageScaleOf(Node value, string key)
+        {
+            var scale = QuantityOf(value, key, "volts at WAV full scale or a probe ratio, such as \"500V\" or 100",
+                static (k, t) => WaveCheck.Core.Capture.Quantity.ParseVoltageV(k, t));
+            return scale is { } v && !(v > 0 && v <= ImportOptions.MaxVoltageScale)
+                ? throw Error(value, $"\"voltageScale\": cannot use {value.Describe()}: expected a positive factor up to 1e6")
+                : scale;
+        }
 
         private List<string>? SumOf(Node value)
         {
