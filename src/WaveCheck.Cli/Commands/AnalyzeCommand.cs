@@ -145,6 +145,7 @@ internal static class AnalyzeCommand
             {
                 var console = ConsoleOutput.Create();
                 VerdictPrinter.Print(console, evaluation.Assessment, parse.GetValue(touch));
+                LeakageSplitLine.Print(console, result.LeakageSplit);
                 Print(console, result);
             }
 
