@@ -16,8 +16,11 @@ wavecheck synth switching:rms=40mA,freq=8kHz,motor=45Hz sine:rms=6mA,freq=150Hz 
 wavecheck synth composite:rms=12mA,motor=12Hz,switch=1kHz noise:rms=0.1mA,seed=2 \
   --duration 2s --rate 50kHz --format pcm16 -o "$here/c2-extractor-fan.wav"
 
-# C3: charging point, bay 1: mains leakage and 2.5 mA smooth DC of the on-board charger.
-wavecheck synth sine:rms=3mA dc:level=2.5mA noise:rms=0.05mA,seed=3 \
+# C3: charging point, bay 1: 2.5 mA smooth DC of the on-board charger, the charger's filter capacitance (40 nF) and
+# damp in the yard cable's buried junction box (150 kΩ to earth); the logger's second channel recorded L to PE
+# (500 V full scale), so the leakage splits into its resistive and capacitive parts.
+wavecheck synth leak:r=150k,c=40nF dc:level=2.5mA noise:rms=0.05mA,seed=3 \
+  --supply 230V,h3=1.5%,h5=3%,h7=1.5% --voltage-full-scale 500V \
   --duration 2s --rate 50kHz --format pcm16 -o "$here/c3-ev-bay1.wav"
 
 # C4: charging point, bay 2: 9 mA smooth DC with six-pulse ripple (a faulty three-phase on-board charger).

@@ -28,6 +28,7 @@ internal static class AnalysisPrinter
         if (details)
         {
             VerdictPrinter.Tables(screen, a, showTouchCurrent);
+            LeakageSplitLine.Print(screen, result.LeakageSplit);
             Quantities(screen, result);
             foreach (var warning in result.Warnings)
             {
@@ -40,6 +41,7 @@ internal static class AnalysisPrinter
         {
             VerdictPrinter.TypeLines(screen, a);
             VerdictPrinter.MarginLines(screen, a, chargingPoint);
+            LeakageSplitLine.Print(screen, result.LeakageSplit);
             var more = VerdictPrinter.TopCautions(screen, a, VerdictPrinter.SummaryCautions);
             var info = result.Capture;
             screen.Paragraph(string.Create(CultureInfo.InvariantCulture,

@@ -34,6 +34,16 @@ internal sealed class ImportOptionSet
         Description = "COMTRADE: use primary values instead of secondary.",
     };
 
+    public Option<string?> Voltage { get; } = new("--voltage")
+    {
+        Description = "Channel(s) carrying the circuit voltage to earth, by name or 1-based number: one (single-phase, e.g. L1N) or three (L1,L2,L3 to earth, e.g. U1,U2,U3); splits the leakage into resistive and capacitive parts.",
+    };
+
+    public Option<string?> VoltageScale { get; } = new("--voltage-scale")
+    {
+        Description = "Voltage channels: volts at WAV full scale (required for WAV, e.g. 500V), or a probe/divider ratio for CSV and COMTRADE (default 1).",
+    };
+
     public void AddTo(Command command)
     {
         command.Options.Add(Scale);
@@ -44,6 +54,8 @@ internal sealed class ImportOptionSet
         command.Options.Add(Sum);
         command.Options.Add(Sensor);
         command.Options.Add(Primary);
+        command.Options.Add(Voltage);
+        command.Options.Add(VoltageScale);
     }
 
     /// <summary>Gathers the values System.CommandLine parsed into SI quantities; checks bounds and combinations.</summary>
@@ -85,6 +97,7 @@ internal sealed class ImportOptionSet
             throw new OptionValueException("--sum", string.Join(',', sum), "either --channel or --sum, not both");
         }
 
+        var (voltage, voltageScale) = ReadVoltage(parse);
         return new ImportOptions
         {
             ScaleA = scale,
@@ -95,10 +108,40 @@ internal sealed class ImportOptionSet
             SumChannels = sum,
             Sensor = parse.GetValue(Sensor) ?? new ImportOptions().Sensor,
             Primary = parse.GetValue(Primary),
+            VoltageChannels = voltage,
+            VoltageScale = voltageScale,
         };
     }
 
     /// <summary>The text the user typed for an option, for a message about its value.</summary>
     internal static string Typed(ParseResult parse, Option option) =>
         parse.GetResult(option) is { Tokens: [.., var last] } ? last.Value : string.Empty;
+
+    private (IReadOnlyList<string>? Channels, double? Scale) ReadVoltage(ParseResult parse)
+    {
+        var voltageText = parse.GetValue(Voltage);
+        var scaleText = parse.GetValue(VoltageScale);
+        IReadOnlyList<string>? channels = null;
+        if (voltageText is not null)
+        {
+            var names = voltageText.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries);
+            if (names.Length is not (1 or 3))
+            {
+                throw new OptionValueException("--voltage", voltageText, "one channel (single-phase) or three separated by commas (L1,L2,L3)");
+            }
+
+            channels = names;
+        }
+
+        double? scale = null;
+        if (scaleText is not null)
+        {
+            var v = Quantity.ParseVoltageScale("--voltage-scale", scaleText);
+            scale = v > 0 && v <= ImportOptions.MaxVoltageScale
+                ? v
+                : throw new OptionValueException("--voltage-scale", scaleText, "a positive factor up to 1e6 (volts at WAV full scale, e.g. 500V, or a probe ratio)");
+        }
+
+        return (channels, scale);
+    }
 }

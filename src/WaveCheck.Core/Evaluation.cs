@@ -60,6 +60,14 @@ public sealed record Evaluation(AnalysisResult Analysis)
             };
         }
 
+        if (analysis.LeakageSplit is { } split)
+        {
+            analysis = analysis with
+            {
+                LeakageSplit = LeakageInterpretation.Interpret(split, assessmentOptions.Accuracy ?? MeasurementAccuracy.Default),
+            };
+        }
+
         var assessment = DeviceTypeAssessor.Assess(analysis, assessmentOptions);
         return new Evaluation(analysis with { Assessment = assessment });
     }

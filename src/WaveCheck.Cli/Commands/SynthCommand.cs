@@ -35,13 +35,23 @@ internal static class SynthCommand
             ("float32", WavSampleFormat.Float32), ("float64", WavSampleFormat.Float64));
         var sensor = ValueOptions.Choice("--sensor", $"Sensor coupling stored in the WAV: dc, ac or unknown (default {DefaultSensor.ToString().ToLowerInvariant()}).",
             ValueOptions.SensorWords);
+        var supply = new Option<string?>("--supply")
+        {
+            HelpName = "VOLTAGE[,phases=3][,hN=P%]",
+            Description = "Also write the circuit voltage to earth, e.g. 230V or 230V,phases=3,h5=4%; leak:r=500k,c=47nF[,phase=2] parts then draw leakage from it.",
+        };
+        var voltageFullScale = new Option<string?>("--voltage-full-scale")
+        {
+            HelpName = "VOLTAGE",
+            Description = "WAV full scale of the voltage channels, e.g. 500V (default: the next 1-2-5 step above 1.25 × the peak).",
+        };
 
         var command = new Command("synth",
             "Write a test waveform (standard test currents, drive and charger leakage) to WAV or CSV. Examples:\n" +
             "  wavecheck synth halfwave:peak=30mA,angle=90 dc:level=8mA -o typeF-test.wav\n" +
             "  wavecheck synth composite:rms=20mA,motor=10Hz,switch=1kHz --mains 60Hz --rate 50kHz -o drive.csv")
         {
-            parts, output, rate, duration, mains, fullScale, format, sensor,
+            parts, output, rate, duration, mains, fullScale, format, sensor, supply, voltageFullScale,
         };
         command.SetAction(parse => CliRun.Guard(parse, run =>
         {
@@ -59,29 +69,36 @@ internal static class SynthCommand
             }
 
             var sensorCoupling = parse.GetValue(sensor) ?? DefaultSensor;
-            var components = parse.GetValue(parts)!.SelectMany(p => SynthesisSpec.Parse(p, mainsHz)).ToList();
+            var supplyText = parse.GetValue(supply);
+            var supplyVoltage = supplyText is null ? null : SupplySpec.ParseSupply(supplyText, mainsHz);
+            var components = parse.GetValue(parts)!.SelectMany(p => p.TrimStart().StartsWith("leak", StringComparison.OrdinalIgnoreCase)
+                ? [SupplySpec.ParseLeak(p, supplyVoltage)]
+                : SynthesisSpec.Parse(p, mainsHz)).ToList();
             var path = parse.GetValue(output)!;
             var plan = new OutputPlan();
             plan.AddOutputFile(path, "--output");
             plan.Check();
             run.Plan = plan;
             var extension = Path.GetExtension(path).ToLowerInvariant();
-            SynthCaptureSource Source() => new(components, rateHz, durationS, sensorCoupling, description: path);
+            SynthCaptureSource Source() => new(components, rateHz, durationS, sensorCoupling, description: path, supply: supplyVoltage);
 
             long written;
             string scaleNote = string.Empty;
             if (extension == ".csv")
             {
                 using var source = Source();
-                written = CaptureWriter.WriteCsv(path, source, run.Token);
+                written = supplyVoltage is null
+                    ? CaptureWriter.WriteCsv(path, source, run.Token)
+                    : CaptureWriter.WriteCsvWithVoltage(path, source, run.Token);
             }
             else if (extension == ".wav")
             {
                 var encoding = parse.GetValue(format) ?? DefaultFormat;
-                if (durationS * rateHz > CaptureWriter.MaxWavFrames(encoding, 1))
+                var wavChannels = 1 + (supplyVoltage?.Phases ?? 0);
+                if (durationS * rateHz > CaptureWriter.MaxWavFrames(encoding, wavChannels))
                 {
                     throw new OptionValueException("--duration", ImportOptionSet.Typed(parse, duration), string.Create(CultureInfo.InvariantCulture,
-                        $"at most {CaptureWriter.MaxWavFrames(encoding, 1):N0} samples in a {encoding} WAV (4 GiB of sample data): a shorter duration, or a .csv output"));
+                        $"at most {CaptureWriter.MaxWavFrames(encoding, wavChannels):N0} samples in a {encoding} WAV (4 GiB of sample data): a shorter duration, or a .csv output"));
                 }
 
                 double fullScaleA;
@@ -96,8 +113,26 @@ internal static class SynthCommand
                 }
 
                 using var source = Source();
-                written = CaptureWriter.WriteWav(path, source, fullScaleA, encoding, run.Token);
-                scaleNote = $", full scale {CurrentText.WithUnit(fullScaleA)}";
+                if (supplyVoltage is null)
+                {
+                    written = CaptureWriter.WriteWav(path, source, fullScaleA, encoding, run.Token);
+                    scaleNote = $", full scale {CurrentText.WithUnit(fullScaleA)}";
+                }
+                else
+                {
+                    var fullScaleVText = parse.GetValue(voltageFullScale);
+                    var peakV = supplyVoltage.Sines(0).Sum(s => s.PeakV);
+                    var fullScaleV = fullScaleVText is null ? NiceFullScale(peakV / 1000) * 1000 : Quantity.ParseVoltageV("--voltage-full-scale", fullScaleVText);
+                    if (!(fullScaleV > 0 && fullScaleV <= ImportOptions.MaxVoltageScale))
+                    {
+                        throw new OptionValueException("--voltage-full-scale", fullScaleVText ?? string.Empty, "a positive voltage up to 1 MV");
+                    }
+
+                    written = CaptureWriter.WriteWavWithVoltage(path, source, fullScaleA, fullScaleV, encoding, run.Token);
+                    var names = string.Join(",", Enumerable.Range(2, supplyVoltage.Phases).Select(c => $"ch{c}"));
+                    scaleNote = string.Create(CultureInfo.InvariantCulture,
+                        $", full scale {CurrentText.WithUnit(fullScaleA)} on ch1, voltage on {names} at {fullScaleV:G6} V full scale (read with --voltage {names} --voltage-scale {fullScaleV:G6}V)");
+                }
             }
             else
             {

@@ -8,7 +8,7 @@ namespace WaveCheck.Core.Assessment;
 /// <b>engineering choice</b> with the reasoning. Values a user may reasonably dispute can be overridden through
 /// <see cref="AssessmentOptions"/>; the ones applied travel into <c>AssessmentResult.Thresholds</c>.
 /// </summary>
-public static class Limits
+public static partial class Limits
 {
     /// <summary>Default rated residual operating current IΔn, 0.030 A.</summary>
     /// <remarks>Practice: 30 mA is the additional-protection rating (IEC 60364-4-41 §415.1); rated values in use are

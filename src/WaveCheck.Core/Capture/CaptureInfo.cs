@@ -1,3 +1,5 @@
+using System.Text.Json.Serialization;
+
 namespace WaveCheck.Core.Capture;
 
 /// <summary>
@@ -56,6 +58,11 @@ public sealed record CaptureInfo
 
     /// <summary>Amperes at which the residual channel clips, where known (WAV full scale × scale).</summary>
     public double? FullScaleA { get; init; }
+
+    /// <summary>The channels carrying the circuit voltage beside the residual current; null (and absent from the JSON)
+    /// when the capture has none.</summary>
+    [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+    public VoltageInput? Voltage { get; init; }
 
     /// <summary>Half the sample rate: nothing above it is seen, hertz.</summary>
     public double NyquistHz => SampleRateHz / 2;

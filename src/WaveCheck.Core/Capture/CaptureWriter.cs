@@ -175,6 +175,88 @@ public static class CaptureWriter
         return WriteCsv(path, ResidualBlocks(source, cancellationToken), source.Info.SampleRateHz);
     }
 
+    /// <summary>Writes the residual current of <paramref name="source"/> and its voltage channels
+    /// (<see cref="CaptureInfo.Voltage"/>) as a WAV file: channel 1 the current, then one channel per voltage, stored
+    /// as a fraction of <paramref name="voltageFullScaleV"/> (read it back with <c>--voltage ch2 --voltage-scale</c>).</summary>
+    /// <param name="path">Target file.</param>
+    /// <param name="source">Capture with voltage channels; read to its end.</param>
+    /// <param name="fullScaleA">Amperes stored as full scale on the current channel.</param>
+    /// <param name="voltageFullScaleV">Volts stored as full scale on the voltage channels.</param>
+    /// <param name="format">Sample encoding.</param>
+    /// <param name="cancellationToken">Checked before each block; a cancelled write leaves no file.</param>
+    /// <returns>Frames written.</returns>
+    public static long WriteWavWithVoltage(string path, ICaptureSource source, double fullScaleA, double voltageFullScaleV,
+        WavSampleFormat format, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(source);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(voltageFullScaleV);
+        // The writer scales every channel by 1/fullScaleA: a voltage is given in the current's scale so that it is
+        // stored as v / voltageFullScaleV.
+        return WriteWav(path, BlocksWithVoltage(source, fullScaleA / voltageFullScaleV, cancellationToken), source.Info.SampleRateHz,
+            fullScaleA, format, source.Info.SensorCoupling);
+    }
+
+    /// <summary>Writes the residual current of <paramref name="source"/> and its voltage channels as CSV:
+    /// <c>time [s]</c>, <c>I [mA]</c>, then one <c>NAME [V]</c> column per voltage.</summary>
+    /// <param name="path">Target file.</param>
+    /// <param name="source">Capture with voltage channels; read to its end.</param>
+    /// <param name="cancellationToken">Checked before each block; a cancelled write leaves no file.</param>
+    /// <returns>Rows written.</returns>
+    public static long WriteCsvWithVoltage(string path, ICaptureSource source, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(source);
+        var voltage = source.Info.Voltage ?? throw new ArgumentException("the source has no voltage channel", nameof(source));
+        var rate = source.Info.SampleRateHz;
+        long rows = 0;
+        AtomicFile.Write(path, stream =>
+        {
+            using var writer = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16, leaveOpen: true);
+            writer.Write("time [s],I [mA]" + string.Concat(voltage.Names.Select(n => $",{n} [V]")) + "\n");
+            Span<char> buffer = stackalloc char[64];
+            foreach (var block in BlocksWithVoltage(source, 1.0, cancellationToken))
+            {
+                for (var i = 0; i < block[0].Length; i++)
+                {
+                    WriteNumber(writer, rows / rate, buffer);
+                    writer.Write(',');
+                    WriteNumber(writer, block[0][i] * 1000.0, buffer);
+                    for (var c = 1; c < block.Length; c++)
+                    {
+                        writer.Write(',');
+                        WriteNumber(writer, block[c][i], buffer);
+                    }
+
+                    writer.Write('\n');
+                    rows++;
+                }
+            }
+        });
+        return rows;
+    }
+
+    private static IEnumerable<double[][]> BlocksWithVoltage(ICaptureSource source, double voltageFactor, CancellationToken cancellationToken)
+    {
+        var voltage = source.Info.Voltage ?? throw new ArgumentException("the source has no voltage channel", nameof(source));
+        var block = source.CreateBlock();
+        while (source.Read(block))
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            var channels = new double[1 + voltage.Channels.Count][];
+            channels[0] = block.ResidualA.ToArray();
+            for (var p = 0; p < voltage.Channels.Count; p++)
+            {
+                channels[p + 1] = new double[block.Length];
+                voltage.Form(block, p, channels[p + 1]);
+                for (var i = 0; i < block.Length; i++)
+                {
+                    channels[p + 1][i] *= voltageFactor;
+                }
+            }
+
+            yield return channels;
+        }
+    }
+
     private static void WriteNumber(StreamWriter writer, double value, Span<char> buffer)
     {
         value.TryFormat(buffer, out var written, "R", CultureInfo.InvariantCulture);

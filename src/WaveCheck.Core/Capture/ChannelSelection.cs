@@ -87,7 +87,7 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
                    $"give --sum {string.Join(',', names)} to add live conductors' currents, or --channel {names[0]} if that one is the residual current");
     }
 
-    private static int Find(IReadOnlyList<ChannelInfo> channels, IReadOnlyList<string>? writtenNames, string wanted, string option,
+    internal static int Find(IReadOnlyList<ChannelInfo> channels, IReadOnlyList<string>? writtenNames, string wanted, string option,
         Func<string, Exception> fail)
     {
         var text = wanted.Trim();

@@ -38,6 +38,14 @@ public sealed record ImportOptions
     /// an analysis gets (<see cref="ChannelSelection"/>), so the file's channels can still be listed.</summary>
     public bool DescribeOnly { get; init; }
 
+    /// <summary>Channels carrying the circuit's voltage to earth (<c>--voltage L1N</c>, or <c>--voltage U1,U2,U3</c>
+    /// for the three phase-to-earth voltages), by name or 1-based number; null when the capture has none.</summary>
+    public IReadOnlyList<string>? VoltageChannels { get; init; }
+
+    /// <summary>Circuit volts per unit the file stores on a voltage channel (<c>--voltage-scale</c>): volts at full
+    /// scale for a WAV file (required there), a probe or divider ratio for CSV and COMTRADE (default 1).</summary>
+    public double? VoltageScale { get; init; }
+
     /// <summary>Checks each stated value against <see cref="CaptureLimits"/>; the message names the CLI option.</summary>
     /// <exception cref="OptionValueException">A value is out of bounds.</exception>
     public void Validate()
@@ -46,7 +54,16 @@ public sealed record ImportOptions
         Check("sensitivity", SensitivityVPerA, "V/A");
         Check("range", RangeV, "V");
         Check("rate", RateHz, "Hz");
+        if (VoltageScale is { } v && !(v > 0 && v <= MaxVoltageScale))
+        {
+            throw new OptionValueException("--voltage-scale", v.ToString("G6", System.Globalization.CultureInfo.InvariantCulture),
+                "a positive factor up to 1e6 (volts at WAV full scale, or a probe ratio for CSV and COMTRADE)");
+        }
     }
+
+    /// <summary>Largest <see cref="VoltageScale"/> accepted: a megavolt at full scale or a 10⁶:1 divider, beyond any
+    /// low-voltage circuit (engineering choice, a bound against typing errors).</summary>
+    public const double MaxVoltageScale = 1e6;
 
     private static void Check(string key, double? value, string unit)
     {

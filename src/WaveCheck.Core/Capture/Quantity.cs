@@ -66,6 +66,20 @@ public static partial class Quantity
     /// <exception cref="OptionValueException">Not a voltage, or a number without a unit.</exception>
     public static double ParseVoltageV(string option, string text) => Parse(option, text, "V", VoltageForm);
 
+    /// <summary>Parses the scale of a voltage channel: volts at WAV full scale (<c>500V</c>) or the ratio of a probe or
+    /// divider for a channel already in volts (<c>100</c>). Both multiply the stored value into circuit volts, so a
+    /// bare number is a ratio (dimensionless, outside the rule that a voltage carries its unit) and a number with a
+    /// unit must be a voltage.</summary>
+    /// <returns>The factor: volts per stored unit.</returns>
+    /// <exception cref="OptionValueException">Neither a plain number nor a voltage.</exception>
+    public static double ParseVoltageScale(string option, string text)
+    {
+        var trimmed = (text ?? string.Empty).Trim();
+        return double.TryParse(trimmed, NumberStyles.Float, CultureInfo.InvariantCulture, out var ratio) && double.IsFinite(ratio)
+            ? ratio
+            : Parse(option, trimmed, "V", "volts at WAV full scale (e.g. 500V) or a probe ratio (e.g. 100)");
+    }
+
     /// <summary>Parses a frequency (<c>50Hz</c>, <c>20 kHz</c>); the unit is required.</summary>
     /// <returns>Hertz.</returns>
     /// <exception cref="OptionValueException">Not a frequency, or a number without a unit.</exception>

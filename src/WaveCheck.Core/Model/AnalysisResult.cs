@@ -1,3 +1,4 @@
+using System.Text.Json.Serialization;
 using WaveCheck.Core.Capture;
 
 namespace WaveCheck.Core.Model;
@@ -59,6 +60,11 @@ public sealed record AnalysisResult
 
     /// <summary>IEC 60990 weighted touch-current figures; null when not computed.</summary>
     public TouchCurrentResult? TouchCurrent { get; init; }
+
+    /// <summary>The residual current split into resistive and capacitive leakage against the circuit voltage; null
+    /// (and absent from the JSON) when the capture has no voltage channel.</summary>
+    [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+    public LeakageSplitResult? LeakageSplit { get; init; }
 
     /// <summary>The verdict on this capture (JSON <c>assessment</c>); null when only measured.</summary>
     public AssessmentResult? Assessment { get; init; }

@@ -27,7 +27,7 @@ public static class Analyzer
         var expected = source.Info.SampleCount;
         while (!cancellationToken.IsCancellationRequested && source.Read(block))
         {
-            analysis.Push(block.ResidualA);
+            analysis.Push(block);
             if (progress is not null && expected > 0)
             {
                 progress.Report(Math.Min(1.0, analysis.SampleCount / (double)expected));

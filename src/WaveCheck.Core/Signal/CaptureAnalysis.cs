@@ -6,7 +6,7 @@ using WaveCheck.Core.Text;
 namespace WaveCheck.Core.Signal;
 
 /// <summary>
-/// The streaming analysis of one capture: <see cref="Push"/> consecutive blocks of residual current, then
+/// The streaming analysis of one capture: <see cref="Push(CaptureBlock)"/> consecutive blocks of residual current, then
 /// <see cref="Complete"/> for the <see cref="AnalysisResult"/>. Memory does not grow with the capture's length:
 /// window figures feed running statistics, percentiles a bounded estimator, the trend table and the envelope merge
 /// pairs when full, the spectrum is accumulated per bin. Not thread-safe; one instance per capture.
@@ -54,6 +54,10 @@ public sealed class CaptureAnalysis
     private EventDetector? _events;
     private WindowSlot[] _flying = [];
     private int _flyCount;
+    private readonly VoltageInput? _voltage;
+    private double[][] _voltageDetect = [];
+    private double[][] _voltageBlock = [];
+    private LeakageAccumulator? _leakage;
 
     /// <summary>Starts an analysis.</summary>
     /// <param name="info">The capture (sample rate, sensor, full scale, expected length).</param>
@@ -80,6 +84,12 @@ public sealed class CaptureAnalysis
 
         _envelope = new EnvelopeBuilder(_fs, info.SampleCount);
         _detectBuffer = new double[(int)Math.Clamp(Math.Round(DetectionS * _fs), 16, 1 << 22)];
+        _voltage = info.Voltage;
+        if (_voltage is not null)
+        {
+            _voltageDetect = [.. _voltage.Channels.Select(_ => new double[_detectBuffer.Length])];
+            _leakage = new LeakageAccumulator(_voltage.ThreePhase ? ["L1", "L2", "L3"] : _voltage.Names);
+        }
     }
 
     /// <summary>Samples pushed so far.</summary>
@@ -89,7 +99,42 @@ public sealed class CaptureAnalysis
     public int WindowCount => _figures?.WindowCount ?? 0;
 
     /// <summary>Takes the next consecutive samples of the residual current, amperes.</summary>
+    /// <exception cref="InvalidOperationException">The capture carries a voltage channel: push its blocks instead.</exception>
     public void Push(ReadOnlySpan<double> samplesA)
+    {
+        if (_voltage is not null)
+        {
+            throw new InvalidOperationException("a capture with a voltage channel is pushed block by block (Push(CaptureBlock)), so the voltage travels with the current");
+        }
+
+        Push(samplesA, null, 0);
+    }
+
+    /// <summary>Takes the next block of the capture: its residual current and, when the capture has voltage channels
+    /// (<see cref="CaptureInfo.Voltage"/>), their volts, carried alongside into the same windows.</summary>
+    public void Push(CaptureBlock block)
+    {
+        ArgumentNullException.ThrowIfNull(block);
+        if (_voltage is null)
+        {
+            Push(block.ResidualA, null, 0);
+            return;
+        }
+
+        if (_voltageBlock.Length == 0 || _voltageBlock[0].Length < block.Length)
+        {
+            _voltageBlock = [.. _voltage.Channels.Select(_ => new double[Math.Max(block.Capacity, block.Length)])];
+        }
+
+        for (var p = 0; p < _voltageBlock.Length; p++)
+        {
+            _voltage.Form(block, p, _voltageBlock[p]);
+        }
+
+        Push(block.ResidualA, _voltageBlock, 0);
+    }
+
+    private void Push(ReadOnlySpan<double> samplesA, double[][]? volts, int voltsOffset)
     {
         if (samplesA.IsEmpty)
         {
@@ -102,17 +147,25 @@ public sealed class CaptureAnalysis
 
         if (_cutter is not null)
         {
-            FeedWindows(samplesA);
+            FeedWindows(samplesA, volts, voltsOffset);
             return;
         }
 
         var take = Math.Min(samplesA.Length, _detectBuffer.Length - _detectCount);
         samplesA[..take].CopyTo(_detectBuffer.AsSpan(_detectCount));
+        if (volts is not null)
+        {
+            for (var p = 0; p < volts.Length; p++)
+            {
+                volts[p].AsSpan(voltsOffset, take).CopyTo(_voltageDetect[p].AsSpan(_detectCount));
+            }
+        }
+
         _detectCount += take;
         if (_detectCount == _detectBuffer.Length)
         {
             StartWindows();
-            FeedWindows(samplesA[take..]);
+            FeedWindows(samplesA[take..], volts, voltsOffset + take);
         }
     }
 
@@ -190,6 +243,7 @@ public sealed class CaptureAnalysis
             Envelope = _envelope.Result(),
             WorstWindow = figures.WorstWindow(),
             Trend = figures.Trend(),
+            LeakageSplit = _leakage?.Result(),
         };
     }
 
@@ -216,7 +270,7 @@ public sealed class CaptureAnalysis
             var batch = new WindowSlot[BatchWindows];
             for (var i = 0; i < batch.Length; i++)
             {
-                batch[i] = new WindowSlot(maxLength, maxOrder, bands.Length);
+                batch[i] = new WindowSlot(maxLength, maxOrder, bands.Length, _voltage?.Channels.Count ?? 0);
             }
 
             return batch;
@@ -225,24 +279,42 @@ public sealed class CaptureAnalysis
         _tracker = tracker;
         _cutter = new WindowCutter(_fs, cycles, nominal, tracker.FrequencyHz, NewBatch());
         _flying = NewBatch();
+        var leakage = _voltage is null ? null : new LeakageWindowMeasurement(_fs, cycles, _voltage.Channels.Count);
         _workers = new WindowWorkers(Math.Min(_options.WorkerCount, BatchWindows + 1),
-            () => new WindowMeasurement(_fs, cycles, maxOrder, bands, _options.RestBandA, _info.FullScaleA));
+            () => new WindowMeasurement(_fs, cycles, maxOrder, bands, _options.RestBandA, _info.FullScaleA, leakage));
         _figures = new CaptureAccumulator(_fs, cycles, nominal, maxOrder, bands, maxLength, _options.HighBandUpperHz);
         _events = new EventDetector(_fs, _options, _info.FullScaleA);
-        FeedWindows(head);
+        FeedWindows(head, _voltage is null ? null : _voltageDetect, 0);
         _detectBuffer = [];
+        _voltageDetect = [];
     }
 
     /// <summary>
     /// Cuts the samples into windows. A whole window is summed and tracked at once (the frequency sizes the next
     /// window) and queued; a full batch goes to the workers while the batch before is folded into the figures here.
     /// </summary>
-    private void FeedWindows(ReadOnlySpan<double> samplesA)
+    /// <param name="samplesA">Residual current, amperes.</param>
+    /// <param name="volts">The voltages carried alongside (per channel, volts), or null without a voltage channel.</param>
+    /// <param name="voltsOffset">Where in <paramref name="volts"/> the voltage of <c>samplesA[0]</c> is.</param>
+    private void FeedWindows(ReadOnlySpan<double> samplesA, double[][]? volts, int voltsOffset)
     {
         var cutter = _cutter!;
         while (!samplesA.IsEmpty)
         {
-            samplesA = samplesA[cutter.Fill(samplesA)..];
+            var slotFilling = cutter.Filling;
+            var at = cutter.Filled;
+            var take = cutter.Fill(samplesA);
+            if (volts is not null)
+            {
+                for (var p = 0; p < volts.Length; p++)
+                {
+                    volts[p].AsSpan(voltsOffset, take).CopyTo(slotFilling.Volts[p].AsSpan(at));
+                }
+
+                voltsOffset += take;
+            }
+
+            samplesA = samplesA[take..];
             if (!cutter.IsFull)
             {
                 continue;
@@ -277,6 +349,7 @@ public sealed class CaptureAnalysis
             var slot = slots[i];
             _figures!.Add(slot);
             _events!.Add(slot.Window, slot.Figures.Result, slot.Figures.PeakA);
+            _leakage?.Add(slot.Leakage);
             _options.WindowCompleted?.Invoke(slot.Figures.Result);
         }
     }

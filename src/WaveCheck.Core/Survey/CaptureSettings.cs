@@ -88,6 +88,12 @@ public sealed record CaptureSettingsPatch
     /// <summary>Channels summed to form the residual current.</summary>
     public IReadOnlyList<string>? Sum { get; init; }
 
+    /// <summary>Voltage channels (one, or three for L1, L2, L3).</summary>
+    public IReadOnlyList<string>? Voltage { get; init; }
+
+    /// <summary>Circuit volts per stored unit of the voltage channels.</summary>
+    public double? VoltageScale { get; init; }
+
     /// <summary>Circuit name.</summary>
     public string? Circuit { get; init; }
 
@@ -110,6 +116,8 @@ public sealed record CaptureSettingsPatch
             Channel = Channel ?? (Sum is not null ? null : import.Channel),
             SumChannels = Sum ?? (Channel is not null ? null : import.SumChannels),
             Sensor = Sensor ?? import.Sensor,
+            VoltageChannels = Voltage ?? import.VoltageChannels,
+            VoltageScale = VoltageScale ?? import.VoltageScale,
         };
         return settings with
         {

@@ -1,3 +1,4 @@
+using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using WaveCheck.Core.Assessment;
@@ -41,7 +42,7 @@ public static class SiteConfigReader
     private static readonly string[] TopKeys = ["site", "defaults", "captures", "upstream"];
 
     private static readonly string[] SettingKeys =
-        ["rated", "device", "sensor", "regime", "ev", "chargerDcDetection", "scale", "sensitivity", "range", "rate", "channel", "sum"];
+        ["rated", "device", "sensor", "regime", "ev", "chargerDcDetection", "scale", "sensitivity", "range", "rate", "channel", "sum", "voltage", "voltageScale"];
 
     private static readonly string[] CaptureKeys = ["file", "circuit", "state", .. SettingKeys];
 
@@ -547,6 +548,8 @@ public static class SiteConfigReader
                     "rate" => patch with { RateHz = Bounded(value, key, QuantityOf(value, key, "Hz", Quantity.FrequencyForm, static (k, t) => Quantity.ParseFrequencyHz(k, t))) },
                     "channel" => patch with { Channel = ChannelOf(value) },
                     "sum" => patch with { Sum = SumOf(value) },
+                    "voltage" => patch with { Voltage = VoltageOf(value) },
+                    "voltageScale" => patch with { VoltageScale = VoltageScaleOf(value, key) },
                     _ => throw UnknownKey(keyNode, allowed, where),
                 };
             }
@@ -671,6 +674,57 @@ public static class SiteConfigReader
             JsonTokenType.Number when value.Number >= 1 && value.Number == Math.Floor(value.Number) => value.Text,
             _ => throw Error(value, $"\"channel\": cannot use {value.Describe()}: expected a channel name or a 1-based number"),
         };
+
+        private List<string>? VoltageOf(Node value)
+        {
+            List<string> names;
+            switch (value.Kind)
+            {
+                case JsonTokenType.Null: return null;
+                case JsonTokenType.String:
+                    names = [.. value.Text!.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries)];
+                    break;
+                case JsonTokenType.Number when value.Number >= 1 && value.Number == Math.Floor(value.Number):
+                    names = [value.Text!];
+                    break;
+                case JsonTokenType.StartArray:
+                    names = [.. value.Items!.Select(i => RequiredString(i, "voltage").Trim())];
+                    break;
+                default:
+                    names = [];
+                    break;
+            }
+
+            return names.Count is 1 or 3 ? names
+                : throw Error(value, $"\"voltage\": cannot use {value.Describe()}: expected one voltage channel, or three (L1, L2, L3), e.g. \"ch2\" or [\"U1\", \"U2\", \"U3\"]");
+        }
+
+        private double? VoltageScaleOf(Node value, string key)
+        {
+            double? scale = value.Kind switch
+            {
+                JsonTokenType.Null => null,
+                JsonTokenType.Number => double.Parse(value.Text!, NumberStyles.Float, CultureInfo.InvariantCulture),
+                JsonTokenType.String => ParseOr(value, () => Quantity.ParseVoltageScale(key, value.Text!),
+                    $"\"{key}\": cannot use \"{value.Text}\": expected volts at WAV full scale or a probe ratio, such as \"500V\" or 100"),
+                _ => throw Error(value, $"\"{key}\": cannot use {value.Describe()}: expected volts at WAV full scale or a probe ratio, such as \"500V\" or 100"),
+            };
+            return scale is { } v && !(v > 0 && v <= ImportOptions.MaxVoltageScale)
+                ? throw Error(value, $"\"voltageScale\": cannot use {value.Describe()}: expected a positive factor up to 1e6")
+                : scale;
+        }
+
+        private double ParseOr(Node value, Func<double> parse, string message)
+        {
+            try
+            {
+                return parse();
+            }
+            catch (OptionValueException)
+            {
+                throw Error(value, message);
+            }
+        }
 
         private List<string>? SumOf(Node value)
         {

@@ -81,6 +81,7 @@ public static class ReportWriter
         }
 
         Plots(html, analysis, assessment);
+        LeakageSection.Write(html, analysis);
         Figures(html, analysis);
         Limitations(html, analysis);
         Cautions(html, assessment);

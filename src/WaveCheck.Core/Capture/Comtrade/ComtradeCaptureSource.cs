@@ -264,13 +264,17 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             channels[c] = conversions[c].Info(c, config.Analog[c]);
         }
 
-        var selection = ChooseResidual(path, config, channels, options);
+        var voltageChannels = VoltageSelection.Indices(channels, options, problem => new CaptureFormatException(path, problem));
+        var selection = ChooseResidual(path, config, channels, options, voltageChannels);
         if (selection.Warning is { } guessed)
         {
             warnings.Add(guessed);
         }
 
         var residual = selection.Indices;
+        var voltage = VoltageSelection.Build(channels, voltageChannels, residual, options, _ => 1.0,
+            string.Join(", ", voltageChannels.Select(i => $"cfg a·x+b of '{channels[i].Name}' ({conversions[i].Describe(config.Analog[i])})")),
+            (_, problem) => new CaptureFormatException(path, problem));
         var weights = selection.AmperesPerSiUnit(channels, options, (_, problem) => new CaptureFormatException(path, problem));
         foreach (var index in residual)
         {
@@ -318,19 +322,21 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             Calibration = calibration,
             SensorCoupling = options.Sensor,
             FullScaleA = single && channels[residual[0]].FullScaleSi is { } fs ? fs * weights[0] : null,
+            Voltage = voltage,
         };
         return new ComtradeCaptureSource(config, reader, info, warnings, scale, offset, selection, weights);
     }
 
     /// <summary>The shared channel choice; with nothing chosen, the one current channel named as residual or earth
     /// current, else the only current channel with a <c>channel-guessed</c> warning; several are refused.</summary>
-    private static ChannelSelection ChooseResidual(string path, ComtradeConfig config, ChannelInfo[] channels, ImportOptions options)
+    private static ChannelSelection ChooseResidual(string path, ComtradeConfig config, ChannelInfo[] channels, ImportOptions options,
+        IReadOnlyList<int> voltageChannels)
     {
         var currents = new List<int>();
         var named = new List<int>();
         foreach (var channel in channels)
         {
-            if (channel.Quantity == ChannelQuantity.Current)
+            if (channel.Quantity == ChannelQuantity.Current && !voltageChannels.Contains(channel.Index))
             {
                 currents.Add(channel.Index);
                 if (SuggestsResidual(config.Analog[channel.Index]))

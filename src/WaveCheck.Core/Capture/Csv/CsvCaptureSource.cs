@@ -106,7 +106,9 @@ public sealed class CsvCaptureSource : ICaptureSource
             (quantity == ChannelQuantity.Current ? currents : voltages).Add(i);
         }
 
-        _selection = ChannelSelection.Resolve(channels, options, currents.Count > 0 ? currents : voltages,
+        var voltageChannels = VoltageSelection.Indices(channels, options, problem => new CaptureFormatException(path, problem, headerLine, 1));
+        var spareVoltages = VoltageSelection.Without(voltages, voltageChannels);
+        _selection = ChannelSelection.Resolve(channels, options, currents.Count > 0 ? currents : spareVoltages,
             "no current or voltage column found: name the unit in the header, e.g. 'I [mA]'",
             problem => new CaptureFormatException(path, problem, headerLine, 1),
             writtenNames: [.. dataColumns.Select(c => dialect.Header[c.FileColumn - 1])]);
@@ -115,6 +117,9 @@ public sealed class CsvCaptureSource : ICaptureSource
             _warnings.Add(guessed);
         }
 
+        var voltage = VoltageSelection.Build(channels, voltageChannels, _selection.Indices, options, _ => 1.0,
+            string.Join(", ", voltageChannels.Select(i => $"column unit {dataColumns[i].Unit}").Distinct()),
+            (index, problem) => new CaptureFormatException(path, problem, headerLine, index >= 0 ? dataColumns[index].FileColumn : 1));
         _toAmperes = _selection.AmperesPerSiUnit(channels, options,
             (index, problem) => new CaptureFormatException(path, problem, headerLine, dataColumns[index].FileColumn));
         var units = new List<string>(_toAmperes.Length);
@@ -180,6 +185,7 @@ public sealed class CsvCaptureSource : ICaptureSource
             StartTime = dialect.StartTime,
             Calibration = new Calibration(first.Factor * _toAmperes[0], 0, string.Join("; ", units.Distinct())),
             SensorCoupling = options.Sensor,
+            Voltage = voltage,
         };
 
         _text = new StreamReader(path, detectEncodingFromByteOrderMarks: true);

@@ -80,13 +80,32 @@ public sealed class WavCaptureSource : ICaptureSource
                 all[c] = c;
             }
 
-            _selection = ChannelSelection.Resolve(channels, options, all, "the file has no channels",
+            var voltages = VoltageSelection.Indices(channels, options, problem => new CaptureFormatException(path, problem));
+            var voltageScale = options.VoltageScale;
+            if (voltages.Count > 0 && voltageScale is null)
+            {
+                throw new CaptureFormatException(path,
+                    "--voltage on a WAV file needs --voltage-scale (circuit volts at full scale, e.g. 500V)");
+            }
+
+            foreach (var v in voltages)
+            {
+                // The decoder scales every channel by the current's full scale; the voltage's own scale is applied
+                // when the volts are formed (VoltageInput), so the channel is described in volts here.
+                channels[v] = new ChannelInfo(v, $"ch{v + 1}", "FS", ChannelQuantity.Voltage, voltageScale!.Value, voltageScale);
+            }
+
+            _selection = ChannelSelection.Resolve(channels, options, VoltageSelection.Without(all, voltages), "the file has no channels",
                 problem => new CaptureFormatException(path, problem));
             if (_selection.Warning is { } guessed)
             {
                 _warnings.Add(guessed);
             }
 
+            var voltage = VoltageSelection.Build(channels, voltages, _selection.Indices, voltages.Count == 0 ? options : options with { VoltageScale = null },
+                _ => voltageScale!.Value / scaleA,
+                string.Create(CultureInfo.InvariantCulture, $"--voltage-scale {voltageScale:G6} V full scale"),
+                (_, problem) => new CaptureFormatException(path, problem));
             _toAmperes = _selection.AmperesPerSiUnit(channels, options, (_, problem) => new CaptureFormatException(path, problem));
             var sensor = options.Sensor != SensorCoupling.Unknown ? options.Sensor : fileSensor ?? SensorCoupling.Unknown;
             Info = new CaptureInfo
@@ -102,6 +121,7 @@ public sealed class WavCaptureSource : ICaptureSource
                 Calibration = calibration,
                 SensorCoupling = sensor,
                 FullScaleA = _selection.Indices.Count == 1 ? scaleA : null,
+                Voltage = voltage,
             };
             _dataOffset = layout.DataOffset;
             _stream.Position = layout.DataOffset;

@@ -49,6 +49,9 @@ internal sealed class WindowCutter
     /// <summary>The samples of the window being filled so far (after the last whole window: the capture's tail).</summary>
     public ReadOnlySpan<double> Partial => _batch[_count].Samples.AsSpan(0, _fill);
 
+    /// <summary>The slot of the window being filled (its first <see cref="Filled"/> samples are set).</summary>
+    public WindowSlot Filling => _batch[_count];
+
     /// <summary>Whether the window being filled is complete (call <see cref="Advance"/> next).</summary>
     public bool IsFull => _fill == Length;
 

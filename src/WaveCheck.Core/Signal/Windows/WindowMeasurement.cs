@@ -26,6 +26,7 @@ internal sealed class WindowMeasurement
     private readonly (double LowHz, double HighHz)[] _bands;
     private readonly double? _fullScaleA;
     private readonly WaveformShape _shape;
+    private readonly LeakageWindowMeasurement? _leakage;
 
     /// <summary>Sets up the measurement of the windows of one capture.</summary>
     /// <param name="sampleRateHz">Sample rate, hertz.</param>
@@ -34,9 +35,11 @@ internal sealed class WindowMeasurement
     /// <param name="bands">The bands (<see cref="FrequencyBands.For"/>), ascending.</param>
     /// <param name="restBandA">Width of the rest band of <see cref="WaveformShape"/>, amperes.</param>
     /// <param name="fullScaleA">The capture's full scale, amperes; null when unknown (no window counts as clipped).</param>
+    /// <param name="leakage">The split against the voltage carried in the slots; null when the capture has none.</param>
     public WindowMeasurement(double sampleRateHz, int cycles, int maxOrder, (double LowHz, double HighHz)[] bands,
-        double restBandA, double? fullScaleA)
+        double restBandA, double? fullScaleA, LeakageWindowMeasurement? leakage = null)
     {
+        _leakage = leakage;
         _fs = sampleRateHz;
         _cycles = cycles;
         _maxOrder = maxOrder;
@@ -130,6 +133,11 @@ internal sealed class WindowMeasurement
             ThdPercent = HasFundamental(mainsRms, ac) ? Math.Sqrt(harmonicsPower) / mainsRms * 100 : null,
             Clipped = _fullScaleA is { } fullScale && peak >= ClipShare * fullScale,
         };
+        if (_leakage is not null)
+        {
+            slot.Leakage = _leakage.Measure(slot);
+        }
+
         return figures.Result;
     }
 

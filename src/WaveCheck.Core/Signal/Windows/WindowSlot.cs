@@ -6,10 +6,17 @@ namespace WaveCheck.Core.Signal;
 /// its spectrum and figures (set by a worker: <see cref="WindowWorkers"/>, <see cref="WindowMeasurement"/>). Every
 /// buffer is allocated once and reused for window after window.
 /// </summary>
-internal sealed class WindowSlot(int capacity, int maxOrder, int bandCount)
+internal sealed class WindowSlot(int capacity, int maxOrder, int bandCount, int voltageChannels = 0)
 {
     /// <summary>Sample buffer, filled from the start; <see cref="Length"/> values are the window.</summary>
     public double[] Samples { get; } = new double[capacity];
+
+    /// <summary>The circuit voltages carried alongside the samples (one buffer per voltage channel, volts, the same
+    /// <see cref="Length"/> values valid); empty when the capture has no voltage channel.</summary>
+    public double[][] Volts { get; } = [.. Enumerable.Range(0, voltageChannels).Select(_ => new double[capacity])];
+
+    /// <summary>The window's leakage split (<see cref="LeakageWindowMeasurement"/>), when it has voltages.</summary>
+    public WindowLeakage Leakage { get; set; }
 
     /// <summary>Mean-square spectrum, <see cref="Length"/>/2 + 1 bins.</summary>
     public double[] Power { get; } = new double[(capacity / 2) + 1];
