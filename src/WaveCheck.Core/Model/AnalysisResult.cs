@@ -59,6 +59,10 @@ public sealed record AnalysisResult
     /// <summary>IEC 60990 weighted touch-current figures; null when not computed.</summary>
     public TouchCurrentResult? TouchCurrent { get; init; }
 
+    /// <summary>Half-cycle RMS episodes for the trip replay (JSON <c>halfCycleEpisodes</c>); null when no levels were
+    /// asked for (<see cref="Signal.AnalysisOptions.HalfCycleLevelsA"/>).</summary>
+    public HalfCycleEpisodesResult? HalfCycleEpisodes { get; init; }
+
     /// <summary>The verdict on this capture (JSON <c>assessment</c>); null when only measured.</summary>
     public AssessmentResult? Assessment { get; init; }
 }

@@ -52,6 +52,8 @@ public sealed class CaptureAnalysis
     private WindowWorkers? _workers;
     private CaptureAccumulator? _figures;
     private EventDetector? _events;
+    private HalfCycleEpisodeDetector? _episodes;
+    private int _cycles;
     private WindowSlot[] _flying = [];
     private int _flyCount;
 
@@ -148,6 +150,7 @@ public sealed class CaptureAnalysis
         }
 
         events.Close();
+        _episodes?.Close();
         var warnings = new List<CaptureWarning>();
         if (sourceWarnings is not null)
         {
@@ -190,6 +193,7 @@ public sealed class CaptureAnalysis
             Envelope = _envelope.Result(),
             WorstWindow = figures.WorstWindow(),
             Trend = figures.Trend(),
+            HalfCycleEpisodes = _episodes?.Result(),
         };
     }
 
@@ -229,6 +233,8 @@ public sealed class CaptureAnalysis
             () => new WindowMeasurement(_fs, cycles, maxOrder, bands, _options.RestBandA, _info.FullScaleA));
         _figures = new CaptureAccumulator(_fs, cycles, nominal, maxOrder, bands, maxLength, _options.HighBandUpperHz);
         _events = new EventDetector(_fs, _options, _info.FullScaleA);
+        _episodes = _options.HalfCycleLevelsA.Count > 0 ? new HalfCycleEpisodeDetector(_fs, _options.HalfCycleLevelsA) : null;
+        _cycles = cycles;
         FeedWindows(head);
         _detectBuffer = [];
     }
@@ -277,6 +283,7 @@ public sealed class CaptureAnalysis
             var slot = slots[i];
             _figures!.Add(slot);
             _events!.Add(slot.Window, slot.Figures.Result, slot.Figures.PeakA);
+            _episodes?.Add(slot.Window, slot.Start / _fs, _cycles);
             _options.WindowCompleted?.Invoke(slot.Figures.Result);
         }
     }
