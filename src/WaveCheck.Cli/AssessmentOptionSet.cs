@@ -21,6 +21,11 @@ internal sealed class AssessmentOptionSet
         Description = "Installed device type: AC, A, F, B or B+, with +RDC-DD when a 6 mA DC detection device (IEC 62955) is fitted beside it, e.g. A+RDC-DD (margins and the adequacy verdict are for it).",
     };
 
+    public Option<string?> Timing { get; } = new("--timing")
+    {
+        Description = "Installed device's timing for the trip replay: general (no delay) or s (time-delayed, selective). Not given: both are replayed, and the general type's shorter break times decide where a device should have tripped.",
+    };
+
     public Option<bool> ChargerDcDetection { get; } = new("--charger-dc-detection")
     {
         Description = "With --ev: the charging equipment provides 6 mA DC fault detection itself, as its maker declares (IEC 60364-7-722).",
@@ -89,6 +94,7 @@ internal sealed class AssessmentOptionSet
     {
         command.Options.Add(Rated);
         command.Options.Add(Device);
+        command.Options.Add(Timing);
         command.Options.Add(Regime);
         command.Options.Add(Ev);
         command.Options.Add(ChargerDcDetection);
@@ -113,6 +119,19 @@ internal sealed class AssessmentOptionSet
             options = DeviceTypeNames.TryParseProtection(deviceText, out var type, out var rdcDd)
                 ? options with { InstalledType = type, InstalledRdcDd = rdcDd }
                 : throw new OptionValueException("--device", deviceText, "AC, A, F, B or B+, optionally with +RDC-DD (e.g. A+RDC-DD)");
+        }
+
+        if (parse.GetValue(Timing) is { } timingText)
+        {
+            options = options with
+            {
+                InstalledTiming = timingText.Trim().ToLowerInvariant() switch
+                {
+                    "general" or "g" => DeviceTiming.General,
+                    "s" or "selective" or "time-delayed" => DeviceTiming.S,
+                    _ => throw new OptionValueException("--timing", timingText, "general or s"),
+                },
+            };
         }
 
         var regimeText = parse.GetValue(Regime) ?? "iec";

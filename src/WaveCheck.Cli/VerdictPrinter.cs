@@ -66,6 +66,15 @@ internal static class VerdictPrinter
         }
 
         console.Write(margins);
+        if (a.TripReplay is { } replay)
+        {
+            console.WriteLine(replay.Summary);
+            foreach (var alert in replay.Alerts)
+            {
+                console.Write(new Panel(new Text("TEST THE DEVICE: " + alert)).Border(plain ? BoxBorder.Ascii : BoxBorder.Heavy));
+            }
+        }
+
         if (showTouchCurrent && a.TouchCurrent is { } tc)
         {
             var r = tc.Readings;
