@@ -93,9 +93,8 @@ public static class TripReplayAssessor
         var devices = Devices(ratings, options.InstalledTiming);
         var dcTable = options.InstalledType is DeviceType.B or DeviceType.BPlus;
         var halfCycleS = 1 / (2 * analysis.Mains.FrequencyHz);
-        // The standing leakage the surges ride on: the mean of the windows' RMS (a surge of a few half-cycles moves it
-        // little; the window with the surge is what the margins' worst-window figure holds).
-        var standingA = analysis.Windows.Statistics.TryGetValue("rmsA", out var rms) ? rms.Mean : analysis.Summary.RmsA;
+        // The standing leakage the surges ride on: the RMS outside the episodes (all of it when the whole capture is one).
+        var standingA = recorded.QuietRmsA ?? analysis.Summary.RmsA;
 
         var episodes = new List<ReplayedEpisode>();
         var overall = new DeviceFinding?[devices.Count];
@@ -314,39 +313,47 @@ public static class TripReplayAssessor
         }
 
         var general = overall.First(f => f.Device.Timing == DeviceTiming.General && f.Device.RatedResidualCurrentA == rated);
-        var s = overall.First(f => f.Device.Timing == DeviceTiming.S && f.Device.RatedResidualCurrentA == rated);
         var accuracy = options.Accuracy ?? MeasurementAccuracy.Default;
+        // The surges a device may trip on without having to: the ones the remedies are for. An episode that reached a
+        // must-trip limit is the alert's business (test the device), not a nuisance to ride through.
+        var installedTiming = options.InstalledTiming ?? DeviceTiming.General;
+        var nuisance = episodes.Where(e => Of(e, rated, installedTiming) is { MustTripReached: false, Finding: not TripFinding.WillNotTrip }).ToList();
+        var sRides = nuisance.Count > 0 && nuisance.All(e => Of(e, rated, DeviceTiming.S).Finding == TripFinding.WillNotTrip);
         var budget = (options.LeakageBudgetFraction ?? Limits.LeakageBudgetFraction) * rated;
         if (episodes.Count == 0 && general.Finding == TripFinding.WillNotTrip)
         {
             list.Add("No half-cycle of this capture reached half the rated residual current: a healthy device of this rating does not trip on it. If the device trips, the cause was not recorded here: capture longer (over the time of day the trips happen), on the circuit upstream, or test the device.");
         }
-        else if (general.Finding != TripFinding.WillNotTrip && s.Finding == TripFinding.WillNotTrip)
+        else if (sRides && installedTiming == DeviceTiming.General)
         {
             list.Add(rated <= Limits.AdditionalProtectionMaxA * 1.0001
-                ? Text($"These surges are short enough to ride through a time-delayed (S) device but not through a general-type one. A device of {CurrentText.WithUnit(rated)} that gives additional protection (IEC 60364-4-41 §415.1) should stay a general type: keep it, and where the trips come from an upstream device, that one can be a time-delayed (S) device of a higher rating (100 or 300 mA), so that the surges at switch-on ride through it while each final circuit keeps its instantaneous 30 mA protection (selectivity: S upstream, general downstream).")
+                ? Text($"These surges are short enough to ride through a time-delayed (S) device but not through a general-type one. A device of {CurrentText.WithUnit(rated)} that gives additional protection (IEC 60364-4-41 §415.1) stays a general type: if it is this device that trips, reduce the surge at its source (split the loads that switch on together over more devices, one RCBO per load; stagger their switching on); if it is an upstream device, that one can be a time-delayed (S) device of a higher rating (100 or 300 mA), so that the surges at switch-on ride through it while each final circuit keeps its instantaneous 30 mA protection (selectivity: S upstream, general downstream).")
                 : Text($"These surges ride through a time-delayed (S) device of {CurrentText.WithUnit(rated)}: as an upstream device it can be an S type, so that the surges at switch-on ride through it while each final circuit keeps its own instantaneous 30 mA device for additional protection (selectivity: S upstream, general downstream)."));
         }
-        else if (general.Finding != TripFinding.WillNotTrip)
+        else if (nuisance.Count > 0)
         {
             list.Add("These surges last too long, or rise too high, for a time-delayed (S) device to ride through them. Reduce them at their source: split the loads that switch on together over more devices (one RCBO per load), stagger their switching on, and ask the equipment's maker about its switch-on leakage (filter capacitors charging).");
         }
 
         if (accuracy.Compare(standingA, budget) != LimitState.Below && episodes.Count > 0)
         {
-            list.Add(Text($"The standing leakage (mean of the windows' RMS) of {CurrentText.WithUnit(standingA)} ({standingA / rated:0.##} IΔn) already uses up the leakage budget of {CurrentText.WithUnit(budget)} (IEC 60364-5-53 §531.3.2): every surge adds to it. Split the circuits over more devices so that each carries at most 0.3 IΔn of standing leakage; the surges then have the rest of the gap to 0.5 IΔn."));
+            list.Add(Text($"The standing leakage (RMS outside the surges) of {CurrentText.WithUnit(standingA)} ({standingA / rated:0.##} IΔn) already uses up the leakage budget of {CurrentText.WithUnit(budget)} (IEC 60364-5-53 §531.3.2): every surge adds to it. Split the circuits over more devices so that each carries at most 0.3 IΔn of standing leakage; the surges then have the rest of the gap to 0.5 IΔn."));
         }
 
-        var higher = overall.FirstOrDefault(f => f.Device.Timing == DeviceTiming.General && f.Device.RatedResidualCurrentA > rated * 1.0001
-            && f.Finding == TripFinding.WillNotTrip);
-        if (higher is not null && general.Finding != TripFinding.WillNotTrip)
+        var higher = nuisance.Count == 0 ? null : episodes[0].Findings.Select(f => f.Device)
+            .FirstOrDefault(d => d.Timing == DeviceTiming.General && d.RatedResidualCurrentA > rated * 1.0001
+                && nuisance.All(e => Of(e, d.RatedResidualCurrentA, DeviceTiming.General).Finding == TripFinding.WillNotTrip));
+        if (higher is not null)
         {
-            list.Add(Text($"A general-type device of {CurrentText.WithUnit(higher.Device.RatedResidualCurrentA)} would not trip on these surges, but a higher rating is no remedy where the circuit needs additional protection (30 mA for socket outlets and final circuits, IEC 60364-4-41 §415.1): raise a rating only where the installation rules allow it."));
+            list.Add(Text($"A general-type device of {CurrentText.WithUnit(higher.RatedResidualCurrentA)} would not trip on these surges, but a higher rating is no remedy where the circuit needs additional protection (30 mA for socket outlets and final circuits, IEC 60364-4-41 §415.1): raise a rating only where the installation rules allow it."));
         }
 
         list.Add("The replay applies the standards' limits to the recorded current: a real device trips somewhere within them, and its maker's data may be narrower. Confirm with an RCD tester, and have any change of device made by a qualified person in line with the local wiring rules.");
         return list;
     }
+
+    private static DeviceFinding Of(ReplayedEpisode e, double rated, DeviceTiming timing) =>
+        e.Findings.First(f => f.Device.Timing == timing && f.Device.RatedResidualCurrentA == rated);
 
     private static IReadOnlyList<string> Notes(MeasurementAccuracy accuracy, bool dcTable)
     {

@@ -25,6 +25,10 @@ public sealed record HalfCycleEpisodesResult
     /// <summary>Over the episodes not listed, the longest stretch at or above each level, seconds; null when every
     /// episode is listed.</summary>
     public IReadOnlyList<double>? UnlistedMaxRunS { get; init; }
+
+    /// <summary>RMS of the half-cycles outside every episode (the standing leakage the surges ride on), amperes; null
+    /// when every half-cycle was in an episode.</summary>
+    public double? QuietRmsA { get; init; }
 }
 
 /// <summary>One episode: consecutive half-cycles whose RMS reached the threshold (gaps of one half-cycle bridged).</summary>

@@ -47,6 +47,8 @@ internal sealed class HalfCycleEpisodeDetector
     private readonly int[] _runGap;
     private readonly double[] _episodeMaxRunS;
 
+    private double _quietSquares;
+    private long _quietSamples;
     private bool _open;
     private double _startS;
     private double _lastEndS;
@@ -145,6 +147,7 @@ internal sealed class HalfCycleEpisodeDetector
         Found = Found,
         Episodes = [.. _episodes],
         UnlistedMaxRunS = Found > _episodes.Count ? [.. _unlistedMaxRunS] : null,
+        QuietRmsA = _quietSamples > 0 ? Math.Sqrt(_quietSquares / _quietSamples) : null,
     };
 
     private void Take(double startS, double lengthS, double rmsA, double peakA, double sum, double squares, int n)
@@ -153,6 +156,8 @@ internal sealed class HalfCycleEpisodeDetector
         var above = rmsA >= _thresholdA;
         if (!_open && !above)
         {
+            _quietSquares += squares;
+            _quietSamples += n;
             return;
         }
 
@@ -272,6 +277,12 @@ internal sealed class HalfCycleEpisodeDetector
         }
 
         _open = false;
+        foreach (var p in _pending)
+        {
+            _quietSquares += p.SumSquares;
+            _quietSamples += p.Samples;
+        }
+
         _pending.Clear();
         Found++;
         if (_episodes.Count >= MaxEpisodes)

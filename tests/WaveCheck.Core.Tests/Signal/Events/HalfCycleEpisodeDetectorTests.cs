@@ -92,6 +92,17 @@ public class HalfCycleEpisodeDetectorTests
     }
 
     [Fact]
+    public void The_standing_leakage_is_the_rms_outside_the_episodes()
+    {
+        // 5 mA standing sine with a 60 mA burst from 0.3 to 0.4 s: outside the episode every half-cycle holds the
+        // 5 mA sine (closed form: its RMS), whatever the burst.
+        var samples = Synth.Make(Fs, 1.0, t => (0.005 * Math.Sqrt(2) * Math.Sin(2 * Math.PI * MainsHz * t)) + Burst(t, 0.3, 0.1, 0.055));
+        var r = Detect(samples, 0.020);
+        Assert.Equal(1, r.Found);
+        Assert.Equal(0.005, r.QuietRmsA!.Value, 1e-9);
+    }
+
+    [Fact]
     public void Episodes_beyond_the_list_are_counted_and_their_longest_stretch_kept()
     {
         // 250 bursts of 20 ms every 100 ms, the last one 60 ms long: 200 listed, 250 found, and the unlisted maximum
