@@ -35,4 +35,11 @@ wavecheck synth composite:rms=8mA,motor=30Hz,switch=1kHz dc:level=3mA noise:rms=
 wavecheck synth halfwave:peak=12mA,angle=90 noise:rms=0.02mA,seed=6 \
   --duration 1s --rate 10kHz -o "$here/c6-office-dimmers.csv"
 
+# C7: spray-booth extraction fan on a single-phase drive (composite current, 7 mA) on its own 30 mA type F device.
+# At 1.2 s the fan and the booth lighting switch on together: their EMC filters charge, a surge of 62 mA decaying with
+# 30 ms. At 4.2 s the booth's heater element switches in with a leak to earth: 38 mA more for 400 ms. 6 s at 50 kS/s.
+wavecheck synth composite:rms=7mA,motor=25Hz,switch=1kHz surge:rms=62mA,start=1.2s,duration=150ms,decay=30ms \
+  surge:rms=38mA,start=4.2s,duration=400ms noise:rms=0.05mA,seed=7 \
+  --duration 6s --rate 50kHz --format pcm16 -o "$here/c7-spray-booth.wav"
+
 ls -l "$here"/*.wav "$here"/*.csv

@@ -29,6 +29,7 @@ internal static class AnalysisPrinter
         {
             VerdictPrinter.Tables(screen, a, showTouchCurrent);
             LeakageSplitLine.Print(screen, result.LeakageSplit);
+            TripReplayLines(screen, a);
             Quantities(screen, result);
             foreach (var warning in result.Warnings)
             {
@@ -42,6 +43,7 @@ internal static class AnalysisPrinter
             VerdictPrinter.TypeLines(screen, a);
             VerdictPrinter.MarginLines(screen, a, chargingPoint);
             LeakageSplitLine.Print(screen, result.LeakageSplit);
+            TripReplayLines(screen, a);
             var more = VerdictPrinter.TopCautions(screen, a, VerdictPrinter.SummaryCautions);
             var info = result.Capture;
             screen.Paragraph(string.Create(CultureInfo.InvariantCulture,
@@ -54,6 +56,21 @@ internal static class AnalysisPrinter
         }
 
         VerdictPrinter.LastLine(screen, a);
+    }
+
+    /// <summary>The trip replay's one line, and each event a compliant device should have tripped on, loudly.</summary>
+    private static void TripReplayLines(Screen screen, AssessmentResult a)
+    {
+        if (a.TripReplay is not { } replay)
+        {
+            return;
+        }
+
+        screen.Paragraph(replay.Summary, VerdictPrinter.Label("Surges"), VerdictPrinter.Indent, labelStyle: new Style(decoration: Decoration.Bold));
+        foreach (var alert in replay.Alerts)
+        {
+            screen.Paragraph(alert, "TEST THE DEVICE: ", "  ", labelStyle: new Style(Color.Red, decoration: Decoration.Bold));
+        }
     }
 
     private static string WhereText(IReadOnlyList<Written> written, bool details) =>

@@ -3,6 +3,7 @@ using System.Globalization;
 using WaveCheck.Core;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Cli;
 
@@ -15,6 +16,10 @@ internal sealed class AssessmentOptionSet
 
     public Option<Protection?> Device { get; } = ValueOptions.Device("--device",
         "Installed device type: AC, A, F, B or B+, with +RDC-DD when a 6 mA DC detection device (IEC 62955) is fitted beside it, e.g. A+RDC-DD (margins and the adequacy verdict are for it).");
+
+    public Option<DeviceTiming?> Timing { get; } = ValueOptions.Choice("--timing",
+        "Installed device's timing for the trip replay: general (no delay) or s (time-delayed, selective). Not given: both are replayed, and the general type's shorter break times decide where a device should have tripped.",
+        ("general", DeviceTiming.General), ("s", DeviceTiming.S));
 
     public Option<bool> ChargerDcDetection { get; } = new("--charger-dc-detection")
     {
@@ -86,6 +91,7 @@ internal sealed class AssessmentOptionSet
     {
         command.Options.Add(Rated);
         command.Options.Add(Device);
+        command.Options.Add(Timing);
         command.Options.Add(Regime);
         command.Options.Add(Ev);
         command.Options.Add(ChargerDcDetection);
@@ -118,6 +124,11 @@ internal sealed class AssessmentOptionSet
         if (parse.GetValue(Regime) is { } regime)
         {
             options = options with { Regime = regime };
+        }
+
+        if (parse.GetValue(Timing) is { } timing)
+        {
+            options = options with { InstalledTiming = timing };
         }
 
         options = options with { EvChargingPoint = parse.GetValue(Ev), ChargerDcDetection = parse.GetValue(ChargerDcDetection) };

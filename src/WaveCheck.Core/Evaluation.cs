@@ -36,7 +36,9 @@ public sealed record Evaluation(AnalysisResult Analysis)
         analysisOptions.Validate();
         assessmentOptions.Validate();
         var meter = new TouchCurrentMeter(source.Info.SampleRateHz);
-        var analysis = Analyzer.Analyze(source, analysisOptions with { Sinks = [.. analysisOptions.Sinks, meter] }, progress, cancellationToken);
+        var levels = analysisOptions.HalfCycleLevelsA.Count > 0 ? analysisOptions.HalfCycleLevelsA : TripReplayAssessor.LevelsFor(assessmentOptions);
+        var analysis = Analyzer.Analyze(source, analysisOptions with { Sinks = [.. analysisOptions.Sinks, meter], HalfCycleLevelsA = levels },
+            progress, cancellationToken);
         analysis = analysis with { TouchCurrent = meter.Result };
         if (analysis.Summary.PeakPositiveA - analysis.Summary.PeakNegativeA <= FlatSpanA)
         {
@@ -69,6 +71,10 @@ public sealed record Evaluation(AnalysisResult Analysis)
         }
 
         var assessment = DeviceTypeAssessor.Assess(analysis, assessmentOptions);
+        assessment = assessment with
+        {
+            TripReplay = TripReplayAssessor.Replay(analysis, assessmentOptions),
+        };
         return new Evaluation(analysis with { Assessment = assessment });
     }
 

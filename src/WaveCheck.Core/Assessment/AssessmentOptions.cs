@@ -25,6 +25,11 @@ public sealed record AssessmentOptions
     /// <summary>Installed device type (CLI <c>--device</c>); null when not given: margins are then for the required type.</summary>
     public DeviceType? InstalledType { get; init; }
 
+    /// <summary>Installed device's timing (CLI <c>--timing general|s</c>): general type or time-delayed type S; null
+    /// when not given (the trip replay then treats both as installed, and raises its "would have tripped" finding on
+    /// the general type's shorter break times: the safe side).</summary>
+    public DeviceTiming? InstalledTiming { get; init; }
+
     /// <summary>Regime (CLI <c>--regime iec|na</c>).</summary>
     public Regime Regime { get; init; } = Regime.Iec;
 

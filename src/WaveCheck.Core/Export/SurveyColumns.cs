@@ -102,5 +102,8 @@ internal static class SurveyColumns
         new TextColumn<SurveyRow>("reportPath", r => r.ReportPath, nullable: true),
         new NumberColumn<SurveyRow>("durationS", r => r.DurationS),
         new NumberColumn<SurveyRow>("sampleRateHz", r => r.SampleRateHz),
+        new TextColumn<SurveyRow>("tripGeneral", r => r.TripGeneral, nullable: true),
+        new TextColumn<SurveyRow>("tripS", r => r.TripS, nullable: true),
+        new FlagColumn<SurveyRow>("tripAlert", r => r.TripAlert),
     ];
 }

@@ -66,6 +66,10 @@ public sealed record AnalysisResult
     [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
     public LeakageSplitResult? LeakageSplit { get; init; }
 
+    /// <summary>Half-cycle RMS episodes for the trip replay (JSON <c>halfCycleEpisodes</c>); null when no levels were
+    /// asked for (<see cref="Signal.AnalysisOptions.HalfCycleLevelsA"/>).</summary>
+    public HalfCycleEpisodesResult? HalfCycleEpisodes { get; init; }
+
     /// <summary>The verdict on this capture (JSON <c>assessment</c>); null when only measured.</summary>
     public AssessmentResult? Assessment { get; init; }
 }

@@ -77,6 +77,10 @@ public sealed record AssessmentResult
 
     /// <summary>Every threshold used, with its value and source, as applied (after user overrides).</summary>
     public required IReadOnlyList<ThresholdUse> Thresholds { get; init; }
+
+    /// <summary>What devices of this rating and the alternatives would do with the capture's surges (JSON
+    /// <c>tripReplay</c>); null when the analysis recorded no half-cycle episodes.</summary>
+    public TripReplayResult? TripReplay { get; init; }
 }
 
 /// <summary>One class of residual current as judged in a capture.</summary>

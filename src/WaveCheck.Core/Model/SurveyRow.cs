@@ -79,6 +79,17 @@ public sealed record SurveyRow
     /// <summary>Sample rate, hertz.</summary>
     public double? SampleRateHz { get; init; }
 
+    /// <summary>Trip replay over the capture, general type of the installed rating: <c>will not trip</c>, <c>may
+    /// trip</c>, <c>will trip</c>; null when not replayed.</summary>
+    public string? TripGeneral { get; init; }
+
+    /// <summary>Trip replay over the capture, type S of the installed rating; null when not replayed.</summary>
+    public string? TripS { get; init; }
+
+    /// <summary>A compliant device would have tripped on a surge of the capture (test the device if it did not); null
+    /// when not replayed.</summary>
+    public bool? TripAlert { get; init; }
+
     /// <summary>The verdict rule.</summary>
     /// <remarks>
     /// <c>ok</c> when an installed type is given and the assessment finds it adequate; <c>upgrade</c> when one is given

@@ -30,6 +30,12 @@ public sealed record AnalysisOptions
     /// <summary>Least peak of a transient, amperes (engineering choice: 1 mA, a tenth of the smallest common IΔn).</summary>
     public double TransientFloorA { get; init; } = 1e-3;
 
+    /// <summary>Levels of half-cycle RMS, amperes, for the trip replay: episodes at or above the lowest are recorded
+    /// with how long they stayed at or above each (<see cref="Model.HalfCycleEpisodesResult"/>); empty for none.
+    /// Set by <see cref="Evaluation.Run(Capture.ICaptureSource, AnalysisOptions, Assessment.AssessmentOptions, IProgress{double}?, CancellationToken)"/>
+    /// from the device assessed.</summary>
+    public IReadOnlyList<double> HalfCycleLevelsA { get; init; } = [];
+
     /// <summary>Highest harmonic order grouped (IEC 61000-4-7: 40 or 50).</summary>
     public int MaxHarmonicOrder { get; init; } = 50;
 
@@ -77,6 +83,11 @@ public sealed record AnalysisOptions
         if (!(TransientFactor > 1))
         {
             throw new ArgumentOutOfRangeException(nameof(TransientFactor), TransientFactor, "must be greater than 1");
+        }
+
+        if (HalfCycleLevelsA.Any(l => !(l >= 0 && double.IsFinite(l))))
+        {
+            throw new ArgumentOutOfRangeException(nameof(HalfCycleLevelsA), "levels must be finite and at least 0 A");
         }
 
         if (WorkerCount < 1)

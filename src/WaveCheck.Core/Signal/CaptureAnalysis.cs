@@ -52,6 +52,8 @@ public sealed class CaptureAnalysis
     private WindowWorkers? _workers;
     private CaptureAccumulator? _figures;
     private EventDetector? _events;
+    private HalfCycleEpisodeDetector? _episodes;
+    private int _cycles;
     private WindowSlot[] _flying = [];
     private int _flyCount;
     private readonly VoltageInput? _voltage;
@@ -201,6 +203,7 @@ public sealed class CaptureAnalysis
         }
 
         events.Close();
+        _episodes?.Close();
         var warnings = new List<CaptureWarning>();
         if (sourceWarnings is not null)
         {
@@ -244,6 +247,7 @@ public sealed class CaptureAnalysis
             WorstWindow = figures.WorstWindow(),
             Trend = figures.Trend(),
             LeakageSplit = _leakage?.Result(),
+            HalfCycleEpisodes = _episodes?.Result(),
         };
     }
 
@@ -284,6 +288,8 @@ public sealed class CaptureAnalysis
             () => new WindowMeasurement(_fs, cycles, maxOrder, bands, _options.RestBandA, _info.FullScaleA, leakage));
         _figures = new CaptureAccumulator(_fs, cycles, nominal, maxOrder, bands, maxLength, _options.HighBandUpperHz);
         _events = new EventDetector(_fs, _options, _info.FullScaleA);
+        _episodes = _options.HalfCycleLevelsA.Count > 0 ? new HalfCycleEpisodeDetector(_fs, _options.HalfCycleLevelsA) : null;
+        _cycles = cycles;
         FeedWindows(head, _voltage is null ? null : _voltageDetect, 0);
         _detectBuffer = [];
         _voltageDetect = [];
@@ -350,6 +356,7 @@ public sealed class CaptureAnalysis
             _figures!.Add(slot);
             _events!.Add(slot.Window, slot.Figures.Result, slot.Figures.PeakA);
             _leakage?.Add(slot.Leakage);
+            _episodes?.Add(slot.Window, slot.Start / _fs, _cycles);
             _options.WindowCompleted?.Invoke(slot.Figures.Result);
         }
     }

@@ -43,8 +43,17 @@ public static class SurveyRows
             ReportPath = reportPath,
             DurationS = analysis.Capture.DurationS,
             SampleRateHz = analysis.Capture.SampleRateHz,
+            TripGeneral = Replayed(assessment, DeviceTiming.General),
+            TripS = Replayed(assessment, DeviceTiming.S),
+            TripAlert = assessment.TripReplay is { } replay ? replay.Alerts.Count > 0 : null,
         };
     }
+
+    private static string? Replayed(AssessmentResult assessment, DeviceTiming timing) =>
+        assessment.TripReplay?.Overall.FirstOrDefault(f => f.Device.Timing == timing
+            && f.Device.RatedResidualCurrentA == assessment.TripReplay.RatedResidualCurrentA) is { } f
+            ? Assessment.TripReplayAssessor.Words(f.Finding)
+            : null;
 
     /// <summary>The row of a capture that could not be analysed.</summary>
     /// <param name="file">The capture (the job's path).</param>

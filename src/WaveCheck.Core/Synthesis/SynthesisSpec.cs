@@ -12,12 +12,13 @@ namespace WaveCheck.Core.Synthesis;
 /// <c>sixpulse</c> (mean), <c>rectified</c> (mean, pulses = 2, 3 or 6), <c>switching</c> (rms, freq, motor), <c>composite</c> (rms, motor, switch: the
 /// single-phase converter's residual current as motor-frequency, mains and switching-frequency sines of equal RMS,
 /// after the 10 Hz + 50 Hz + 1 kHz make-up of the IEC 62423 type F test current; the equal split is this tool's
-/// choice, not the standard's coefficients), <c>noise</c> (rms, seed).
+/// choice, not the standard's coefficients), <c>noise</c> (rms, seed), <c>surge</c> (rms, freq, start, duration, decay: a sine switched on
+/// at <c>start</c> for <c>duration</c>, its amplitude decaying with time constant <c>decay</c>; 0 or absent for none).
 /// </remarks>
 public static class SynthesisSpec
 {
     /// <summary>Kinds understood, for help texts.</summary>
-    public static IReadOnlyList<string> Kinds { get; } = ["sine", "halfwave", "dc", "sixpulse", "rectified", "switching", "composite", "noise"];
+    public static IReadOnlyList<string> Kinds { get; } = ["sine", "halfwave", "dc", "sixpulse", "rectified", "switching", "composite", "noise", "surge"];
 
     /// <summary>Parses one component description.</summary>
     /// <param name="text">The description.</param>
@@ -45,6 +46,8 @@ public static class SynthesisSpec
                 Frequency(text, values, "motor", 0))],
             "composite" => Composite(text, values, mainsHz),
             "noise" => [new NoiseComponent(Current(text, values, "rms", 0.0001), (int)Number(text, values, "seed", 1))],
+            "surge" => [new SurgeComponent(Current(text, values, "rms", 0.030), Frequency(text, values, "freq", mainsHz),
+                Seconds(text, values, "start", 0), Seconds(text, values, "duration", 0.1), Seconds(text, values, "decay", 0))],
             _ => throw new OptionValueException("synth", text, $"a kind among {string.Join(", ", Kinds)}"),
         };
 
@@ -68,6 +71,7 @@ public static class SynthesisSpec
         ("switching", "rms"), ("switching", "freq"), ("switching", "motor"),
         ("composite", "rms"), ("composite", "motor"), ("composite", "switch"),
         ("noise", "rms"), ("noise", "seed"),
+        ("surge", "rms"), ("surge", "freq"), ("surge", "start"), ("surge", "duration"), ("surge", "decay"),
     ];
 
     private static IReadOnlyList<WaveformComponent> Composite(string text, Dictionary<string, string> values, double mainsHz)
@@ -123,6 +127,22 @@ public static class SynthesisSpec
 
     private static double Frequency(string text, Dictionary<string, string> values, string key, double fallback) =>
         values.TryGetValue(key, out var v) ? Quantity.ParseFrequencyHz($"synth {text}: {key}", v) : fallback;
+
+    private static double Seconds(string text, Dictionary<string, string> values, string key, double fallback)
+    {
+        if (!values.TryGetValue(key, out var v))
+        {
+            return fallback;
+        }
+
+        var trimmed = v.Trim();
+        var (number, scale) = trimmed.EndsWith("ms", StringComparison.OrdinalIgnoreCase) ? (trimmed[..^2], 1e-3)
+            : trimmed.EndsWith('s') || trimmed.EndsWith('S') ? (trimmed[..^1], 1.0)
+            : (trimmed, 1.0);
+        return double.TryParse(number, NumberStyles.Float, CultureInfo.InvariantCulture, out var value) && value >= 0 && double.IsFinite(value)
+            ? value * scale
+            : throw new OptionValueException($"synth {text}: {key}", v, "a time of 0 or more, such as 2s or 120ms");
+    }
 
     private static double Number(string text, Dictionary<string, string> values, string key, double fallback)
     {

@@ -212,3 +212,40 @@ public sealed class NoiseComponent(double RmsA, int Seed = 1) : WaveformComponen
 
     private static double ToUnit(ulong bits) => ((bits >> 11) + 0.5) / (1UL << 53);
 }
+
+/// <summary>
+/// A surge: a sinusoid switched on at <c>StartS</c> for <c>DurationS</c>, zero outside, with an optional exponential
+/// decay of its amplitude, <c>i(t) = √2 · RmsA · e^(−(t − t₀)/τ) · sin(2π f t + φ)</c> for t₀ ≤ t &lt; t₀ + d.
+/// A switch-on surge of a filter's capacitance or a motor's inrush (decaying), or the rectangular test current of a
+/// break-time test (no decay, IEC 61008-1: a residual current of a stated multiple of IΔn suddenly applied).
+/// </summary>
+/// <param name="RmsA">RMS at the start of the surge, amperes.</param>
+/// <param name="FrequencyHz">Frequency, hertz.</param>
+/// <param name="StartS">Switch-on time, seconds from the start of the waveform.</param>
+/// <param name="DurationS">How long it flows, seconds.</param>
+/// <param name="DecayS">Time constant τ of the amplitude's decay, seconds; 0 for a constant amplitude.</param>
+/// <param name="PhaseDeg">Phase of the underlying sine at t = 0, degrees.</param>
+public sealed class SurgeComponent(double RmsA, double FrequencyHz, double StartS, double DurationS, double DecayS = 0,
+    double PhaseDeg = 0) : WaveformComponent
+{
+    /// <inheritdoc />
+    public override void AddTo(long startSample, double sampleRateHz, Span<double> destinationA)
+    {
+        var peak = RmsA * Math.Sqrt(2);
+        // Sample indices of the switching instants (half-open: [first, end)), rounded once so that block boundaries
+        // do not change where the surge starts or stops.
+        var first = (long)Math.Round(StartS * sampleRateHz);
+        var end = (long)Math.Round((StartS + DurationS) * sampleRateHz);
+        for (var i = Math.Max(0, first - startSample); i < destinationA.Length && startSample + i < end; i++)
+        {
+            var n = startSample + i;
+            var envelope = DecayS > 0 ? Math.Exp(-((n - first) / sampleRateHz) / DecayS) : 1.0;
+            destinationA[(int)i] += envelope * peak * Math.Sin(Phase(n, sampleRateHz, FrequencyHz, PhaseDeg));
+        }
+    }
+
+    /// <inheritdoc />
+    public override string Describe() =>
+        $"surge {RmsA * 1e3:0.###} mA rms at {FrequencyHz:0.###} Hz from {StartS:0.######} s for {DurationS * 1e3:0.###} ms"
+        + (DecayS > 0 ? $", decay {DecayS * 1e3:0.###} ms" : string.Empty);
+}

@@ -78,6 +78,7 @@ public static class ReportWriter
             ClassTable(html, assessment);
             TypeTable(html, assessment);
             DeviceMargins(html, analysis, assessment);
+            TripReplaySection.Write(html, assessment);
         }
 
         Plots(html, analysis, assessment);
