@@ -48,7 +48,7 @@ internal static class CliRun
         }
         catch (UserInputException ex)
         {
-            PrintError(ex.Message);
+            PrintError(ex.MessageWith(SettingFlags.Of));
             return BadInput;
         }
         catch (IOException ex)

@@ -33,21 +33,21 @@ public sealed record ImportOptions
     /// <summary>COMTRADE: deliver primary values (<c>--primary</c>) instead of secondary.</summary>
     public bool Primary { get; init; }
 
-    /// <summary>Checks each stated value against <see cref="CaptureLimits"/>; the message names the CLI option.</summary>
+    /// <summary>Checks each stated value against <see cref="CaptureLimits"/>; the message names the setting.</summary>
     /// <exception cref="OptionValueException">A value is out of bounds.</exception>
     public void Validate()
     {
-        Check("scale", ScaleA, "A");
-        Check("sensitivity", SensitivityVPerA, "V/A");
-        Check("range", RangeV, "V");
-        Check("rate", RateHz, "Hz");
+        Check("scale", nameof(ScaleA), ScaleA, "A");
+        Check("sensitivity", nameof(SensitivityVPerA), SensitivityVPerA, "V/A");
+        Check("range", nameof(RangeV), RangeV, "V");
+        Check("rate", nameof(RateHz), RateHz, "Hz");
     }
 
-    private static void Check(string key, double? value, string unit)
+    private static void Check(string key, string property, double? value, string unit)
     {
         if (value is { } v && CaptureLimits.SettingProblem(key, v) is { } expected)
         {
-            throw new OptionValueException("--" + key,
+            throw new OptionValueException(Setting.Ref(property),
                 v.ToString("G6", System.Globalization.CultureInfo.InvariantCulture) + " " + unit, expected);
         }
     }

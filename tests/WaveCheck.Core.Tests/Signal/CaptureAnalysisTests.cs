@@ -336,7 +336,7 @@ public class CaptureAnalysisTests
     {
         var info = new MemoryCaptureSource([0.0], Fs).Info;
         var ex = Assert.Throws<OptionValueException>(() => new CaptureAnalysis(info, new AnalysisOptions { AlarmA = -1 }));
-        Assert.Contains("--alarm", ex.Message);
+        Assert.Contains("AlarmA", ex.Message);
         Assert.Throws<OptionValueException>(() => new CaptureAnalysis(info, new AnalysisOptions { MainsHz = 0.1 }));
     }
 
