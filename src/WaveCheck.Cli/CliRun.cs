@@ -1,7 +1,7 @@
 using System.Runtime.InteropServices;
 using WaveCheck.Core;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Cli;
 

@@ -4,12 +4,12 @@ using Spectre.Console;
 using WaveCheck.Core;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
+using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Survey;
+using WaveCheck.Core.Text;
 using WaveCheck.Rendering;
 using WaveCheck.Rendering.Report;
-using WaveCheck.Core.Model;
-using WaveCheck.Core.Export;
-using WaveCheck.Core.Text;
 
 namespace WaveCheck.Cli.Commands;
 

@@ -2,9 +2,9 @@ using System.CommandLine;
 using System.Globalization;
 using WaveCheck.Core;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Synthesis;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Synthesis;
 using WaveCheck.Core.Text;
 
 namespace WaveCheck.Cli.Commands;

@@ -1,7 +1,7 @@
 using System.Runtime.ExceptionServices;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Survey;
 

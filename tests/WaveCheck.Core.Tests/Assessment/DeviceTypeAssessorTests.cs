@@ -1,7 +1,7 @@
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Tests.Assessment;

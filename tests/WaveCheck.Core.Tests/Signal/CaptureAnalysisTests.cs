@@ -1,8 +1,8 @@
 using WaveCheck.Core;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Signal;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core.Tests.Signal;
 

@@ -1,7 +1,7 @@
 using System.Diagnostics;
 using System.Globalization;
-using WaveCheck.Core.Signal;
 using WaveCheck.Core.Model;
+using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core.Tests.Signal;
 
