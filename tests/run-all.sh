@@ -22,6 +22,8 @@ export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1
 # Line and branch coverage (coverlet.collector, Cobertura), summarised per folder of WaveCheck.Core at the end.
 coverage=TestResults/coverage
 rm -rf "$coverage"
+# The packages restored are exactly those in the committed packages.lock.json files (RestorePackagesWithLockFile).
+dotnet restore WaveCheck.sln --locked-mode
 status=0
 dotnet test WaveCheck.sln -c Release --collect:"XPlat Code Coverage" --settings tests/coverage.runsettings \
   --results-directory "$coverage" || status=$?

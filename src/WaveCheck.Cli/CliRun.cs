@@ -1,8 +1,8 @@
 using System.CommandLine;
 using System.Runtime.InteropServices;
 using WaveCheck.Core;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Cli;
 
@@ -59,7 +59,7 @@ internal static class CliRun
         }
         catch (UserInputException ex)
         {
-            PrintError(terminal, ex.Message);
+            PrintError(terminal, ex.MessageWith(SettingFlags.Of));
             return BadInput;
         }
         catch (IOException ex)

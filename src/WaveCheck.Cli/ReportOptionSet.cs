@@ -1,7 +1,7 @@
 using System.CommandLine;
 using WaveCheck.Core;
-using WaveCheck.Rendering.Plots;
 using WaveCheck.Core.Model;
+using WaveCheck.Rendering.Plots;
 
 namespace WaveCheck.Cli;
 

@@ -1,6 +1,7 @@
 using System.Globalization;
 using Spectre.Console;
 using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Export;
 using WaveCheck.Core.Model;
 using WaveCheck.Core.Text;
 

@@ -1,7 +1,7 @@
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Signal;
 using WaveCheck.Core.Model;
+using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core;
 

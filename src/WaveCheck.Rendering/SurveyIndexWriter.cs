@@ -2,8 +2,8 @@ using System.Globalization;
 using System.Net;
 using System.Text;
 using WaveCheck.Core.Assessment;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Text;
 
 namespace WaveCheck.Rendering;

@@ -63,6 +63,34 @@ public sealed class SurveyCommandTests : IDisposable
     }
 
     [Fact]
+    public void A_capture_error_from_a_site_file_names_the_site_files_key_not_a_flag()
+    {
+        Synth("c1.wav", "sine:rms=5mA");
+        Synth("c2.wav", "sine:rms=5mA");
+        var config = FilePath("site.json");
+        File.WriteAllText(config, "{ \"captures\": [ { \"file\": \"c1.wav\", \"channel\": \"nosuch\" }, { \"file\": \"c2.wav\" } ] }\n");
+        var output = FilePath("out");
+        var (exit, _, error) = CliHarness.Run("survey", "--config", config, "-o", output);
+        Assert.True(exit == 0, error);
+        using var doc = JsonDocument.Parse(File.ReadAllText(Path.Combine(output, "survey.json")));
+        var row = doc.RootElement.GetProperty("rows")[0];
+        Assert.Equal("error", row.GetProperty("verdict").GetString());
+        var message = row.GetProperty("error").GetString()!;
+        Assert.Contains("the site file's \"channel\": no channel named 'nosuch'", message, StringComparison.Ordinal);
+        Assert.DoesNotContain("--channel", message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Every_flag_a_setting_maps_to_is_an_option_of_a_command()
+    {
+        // SettingFlags is the one table from Core's settings to this command line's flags: each must exist.
+        var help = string.Join("\n", new[] { "analyze", "survey", "info" }.Select(c => CliHarness.Run(c, "--help").Out));
+        Assert.All(SettingFlags.Settings, s => Assert.Contains(SettingFlags.Of(s) + " ", help, StringComparison.Ordinal));
+        Assert.Equal("--mains", SettingFlags.Of(nameof(WaveCheck.Core.Signal.AnalysisOptions.MainsHz)));
+        Assert.Equal("SomethingElse", SettingFlags.Of("SomethingElse"));
+    }
+
+    [Fact]
     public void Demo_runs_the_bundled_site()
     {
         // samples/README.md states what each demo circuit should show; the survey must agree with it.

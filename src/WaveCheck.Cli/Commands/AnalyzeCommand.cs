@@ -5,12 +5,12 @@ using Spectre.Console;
 using WaveCheck.Core;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
+using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Signal;
+using WaveCheck.Core.Text;
 using WaveCheck.Rendering.Plots;
 using WaveCheck.Rendering.Report;
-using WaveCheck.Core.Model;
-using WaveCheck.Core.Export;
-using WaveCheck.Core.Text;
 
 namespace WaveCheck.Cli.Commands;
 

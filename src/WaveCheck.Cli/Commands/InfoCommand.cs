@@ -1,8 +1,8 @@
 using System.CommandLine;
 using System.Globalization;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Text;
 
 namespace WaveCheck.Cli.Commands;

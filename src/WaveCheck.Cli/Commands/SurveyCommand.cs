@@ -3,12 +3,12 @@ using System.Globalization;
 using WaveCheck.Core;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
+using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Survey;
+using WaveCheck.Core.Text;
 using WaveCheck.Rendering;
 using WaveCheck.Rendering.Report;
-using WaveCheck.Core.Model;
-using WaveCheck.Core.Export;
-using WaveCheck.Core.Text;
 
 namespace WaveCheck.Cli.Commands;
 
@@ -92,7 +92,18 @@ internal static class SurveyCommand
                 AssessmentOptionSet.WarnAboutRating(run.Terminal, ratedA);
             }
 
-            var document = Run(jobs, upstream, site, configPath, parse.GetValue(output)!, parse.GetValue(parquet), parse.GetValue(quiet), run);
+            // Settings given as flags override the site file's: an error row names those by their flag.
+            var onCommandLine = new HashSet<string>(
+                new (bool Given, string Property)[]
+                {
+                    (overrides.RatedResidualCurrentA is not null, nameof(AssessmentOptions.RatedResidualCurrentA)),
+                    (overrides.InstalledType is not null, nameof(AssessmentOptions.InstalledType)),
+                    (overrides.Sensor is not null, nameof(ImportOptions.Sensor)),
+                    (overrides.ScaleA is not null, nameof(ImportOptions.ScaleA)),
+                    (overrides.Regime is not null, nameof(AssessmentOptions.Regime)),
+                }.Where(s => s.Given).Select(s => s.Property), StringComparer.Ordinal);
+            var document = Run(jobs, upstream, site, configPath, parse.GetValue(output)!, parse.GetValue(parquet), parse.GetValue(quiet), run,
+                SettingFlags.ForSurvey(configPath is not null, onCommandLine));
             return Exit(run.Terminal, document, fail);
         }));
         return command;
@@ -100,13 +111,14 @@ internal static class SurveyCommand
 
     /// <summary>Runs the survey with reports and the index; prints the summary. Shared with <c>demo</c>.</summary>
     internal static SurveyDocument Run(IReadOnlyList<SurveyJob> jobs, IReadOnlyList<UpstreamGroup> upstream, string site,
-        string? siteFile, string outputDirectory, bool parquet, bool quiet, RunContext run)
+        string? siteFile, string outputDirectory, bool parquet, bool quiet, RunContext run, Func<string, string>? settingName = null)
     {
         run.Describe = () => $"nothing written: --output {outputDirectory} is as it was, and no temporary or staging files are left";
         var options = new SiteSurveyOptions
         {
             OutputDirectory = outputDirectory,
             OutputOption = "--output",
+            SettingName = settingName ?? SettingFlags.ForSurvey(siteFile is not null, new HashSet<string>()),
             SiteFile = siteFile,
             Site = site,
             Parquet = parquet,

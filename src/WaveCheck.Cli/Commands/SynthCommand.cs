@@ -3,9 +3,9 @@ using System.Globalization;
 using WaveCheck.Core;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Synthesis;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Synthesis;
 using WaveCheck.Core.Text;
 
 namespace WaveCheck.Cli.Commands;

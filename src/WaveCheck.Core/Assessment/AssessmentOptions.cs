@@ -97,43 +97,43 @@ public sealed record AssessmentOptions
     /// (DIN VDE 0664-400, from memory).</summary>
     public double? BPlusUpperLimitA { get; init; }
 
-    /// <summary>Checks every value; the message names the CLI option, the value and the range expected.</summary>
+    /// <summary>Checks every value; the message names the setting (<see cref="Setting.Ref"/>), the value and the range expected.</summary>
     /// <exception cref="OptionValueException">A value is out of range.</exception>
     public void Validate()
     {
-        CheckCurrent("--rated", RatedResidualCurrentA, allowZero: false);
-        CheckCurrent("--dc-threshold", DcThresholdA);
-        CheckCurrent("--below-mains-threshold", BelowMainsThresholdA);
-        CheckCurrent("--harmonic-threshold", HarmonicThresholdA);
-        CheckCurrent("--hf-threshold", HighFrequencyThresholdA);
-        CheckCurrent("--type-a-dc", TypeASmoothDcToleranceA);
-        CheckCurrent("--type-f-dc", TypeFSmoothDcToleranceA);
-        CheckCurrent("--rdc-dd", RdcDdThresholdA, allowZero: false);
-        CheckFraction("--pulsating-share", PulsatingShareThreshold);
-        CheckFraction("--leakage-budget", LeakageBudgetFraction);
-        CheckFraction("--risk-possible", PossibleRiskFraction);
-        CheckFraction("--risk-likely", LikelyRiskFraction);
-        CheckCurrent("--bplus-limit", BPlusUpperLimitA, allowZero: false);
+        CheckCurrent(Setting.Ref(nameof(RatedResidualCurrentA)), RatedResidualCurrentA, allowZero: false);
+        CheckCurrent(Setting.Ref(nameof(DcThresholdA)), DcThresholdA);
+        CheckCurrent(Setting.Ref(nameof(BelowMainsThresholdA)), BelowMainsThresholdA);
+        CheckCurrent(Setting.Ref(nameof(HarmonicThresholdA)), HarmonicThresholdA);
+        CheckCurrent(Setting.Ref(nameof(HighFrequencyThresholdA)), HighFrequencyThresholdA);
+        CheckCurrent(Setting.Ref(nameof(TypeASmoothDcToleranceA)), TypeASmoothDcToleranceA);
+        CheckCurrent(Setting.Ref(nameof(TypeFSmoothDcToleranceA)), TypeFSmoothDcToleranceA);
+        CheckCurrent(Setting.Ref(nameof(RdcDdThresholdA)), RdcDdThresholdA, allowZero: false);
+        CheckFraction(Setting.Ref(nameof(PulsatingShareThreshold)), PulsatingShareThreshold);
+        CheckFraction(Setting.Ref(nameof(LeakageBudgetFraction)), LeakageBudgetFraction);
+        CheckFraction(Setting.Ref(nameof(PossibleRiskFraction)), PossibleRiskFraction);
+        CheckFraction(Setting.Ref(nameof(LikelyRiskFraction)), LikelyRiskFraction);
+        CheckCurrent(Setting.Ref(nameof(BPlusUpperLimitA)), BPlusUpperLimitA, allowZero: false);
         var f150 = FrequencyFactor150Hz ?? Limits.FrequencyFactor150Hz;
         var f400 = FrequencyFactor400Hz ?? Limits.FrequencyFactor400Hz;
         var f1k = FrequencyFactor1kHz ?? Limits.FrequencyFactor1kHz;
         if (!(f150 >= 1 && f400 >= f150 && f1k >= f400 && f1k <= 1000))
         {
-            throw new OptionValueException("--frequency-factors", $"{Text(f150)},{Text(f400)},{Text(f1k)}",
+            throw new OptionValueException(Setting.Ref(nameof(FrequencyFactor150Hz)), $"{Text(f150)},{Text(f400)},{Text(f1k)}",
                 "three multiples of IΔn at 150 Hz, 400 Hz and 1 kHz, each at least the one before and at least 1, such as 2.4,6,14");
         }
         if ((TypeASmoothDcToleranceA ?? Limits.TypeASmoothDcToleranceA) > (TypeFSmoothDcToleranceA ?? Limits.TypeFSmoothDcToleranceA))
         {
-            throw new OptionValueException("--type-a-dc", Text(TypeASmoothDcToleranceA ?? Limits.TypeASmoothDcToleranceA) + " A",
+            throw new OptionValueException(Setting.Ref(nameof(TypeASmoothDcToleranceA)), Text(TypeASmoothDcToleranceA ?? Limits.TypeASmoothDcToleranceA) + " A",
                 $"a tolerance no greater than type F's {Text(TypeFSmoothDcToleranceA ?? Limits.TypeFSmoothDcToleranceA)} A (types are ordered by capability)");
         }
 
         if ((PossibleRiskFraction ?? Limits.PossibleRiskFraction) > (LikelyRiskFraction ?? Limits.LikelyRiskFraction))
         {
             throw PossibleRiskFraction is null
-                ? new OptionValueException("--risk-likely", Text(LikelyRiskFraction!.Value),
+                ? new OptionValueException(Setting.Ref(nameof(LikelyRiskFraction)), Text(LikelyRiskFraction!.Value),
                     $"a fraction of IΔn no smaller than the 'possible' boundary {Text(Limits.PossibleRiskFraction)}")
-                : new OptionValueException("--risk-possible", Text(PossibleRiskFraction.Value),
+                : new OptionValueException(Setting.Ref(nameof(PossibleRiskFraction)), Text(PossibleRiskFraction.Value),
                     $"a fraction of IΔn no greater than the 'likely' boundary {Text(LikelyRiskFraction ?? Limits.LikelyRiskFraction)}");
         }
     }

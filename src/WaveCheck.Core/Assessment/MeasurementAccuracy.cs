@@ -63,9 +63,10 @@ public sealed record MeasurementAccuracy(double ReadingFraction, double OffsetA)
 
     /// <summary>Parses <c>2%+0.1mA</c>, <c>2 % + 0.1 mA</c>, <c>0.5%</c> or <c>0.2mA</c>.</summary>
     /// <exception cref="OptionValueException">The text is not of that form or out of range.</exception>
-    public static MeasurementAccuracy Parse(string text, string option = "--accuracy")
+    public static MeasurementAccuracy Parse(string text, string? option = null)
     {
         const string Expected = "a share of the reading plus a current, such as 2%+0.1mA (0 to 50 % and 0 to 100 mA)";
+        option ??= Setting.Ref(nameof(AssessmentOptions.Accuracy));
         var fraction = 0.0;
         var offset = 0.0;
         var any = false;

@@ -19,7 +19,7 @@ public sealed class CaptureFormatException : UserInputException
         : base(Compose(filePath, problem, line, column, byteOffset, sampleIndex))
     {
         FilePath = filePath;
-        Problem = problem;
+        Problem = Setting.Render(problem, Setting.PropertyName);
         Line = line;
         Column = column;
         ByteOffset = byteOffset;
@@ -29,7 +29,7 @@ public sealed class CaptureFormatException : UserInputException
     /// <summary>The file being read.</summary>
     public string FilePath { get; }
 
-    /// <summary>What is wrong, without the place.</summary>
+    /// <summary>What is wrong, without the place (settings by their property names).</summary>
     public string Problem { get; }
 
     /// <summary>1-based line, where the format has lines.</summary>

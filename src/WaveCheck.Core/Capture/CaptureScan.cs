@@ -1,6 +1,6 @@
 using System.Globalization;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Capture;

@@ -3,8 +3,8 @@ using System.Buffers.Binary;
 using System.Globalization;
 using System.Text;
 using NAudio.Wave;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Capture;
 

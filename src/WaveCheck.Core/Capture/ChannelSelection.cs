@@ -40,10 +40,10 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
             var indices = new List<int>(sum.Count);
             foreach (var name in sum)
             {
-                var index = Find(channels, writtenNames, name, "--sum", fail);
+                var index = Find(channels, writtenNames, name, Setting.Ref(nameof(ImportOptions.SumChannels)), fail);
                 if (indices.Contains(index))
                 {
-                    throw fail($"--sum names channel '{channels[index].Name}' twice");
+                    throw fail($"{Setting.Ref(nameof(ImportOptions.SumChannels))} names channel '{channels[index].Name}' twice");
                 }
 
                 indices.Add(index);
@@ -54,7 +54,7 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
 
         if (options.Channel is { } chosen)
         {
-            var index = Find(channels, writtenNames, chosen, "--channel", fail);
+            var index = Find(channels, writtenNames, chosen, Setting.Ref(nameof(ImportOptions.Channel)), fail);
             return new ChannelSelection([index], channels[index].Name, null);
         }
 
@@ -84,7 +84,7 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
         }
 
         throw fail($"{candidates.Count} channels could carry the residual current ({string.Join(", ", names)}) and {why}: " +
-                   $"give --sum {string.Join(',', names)} to add live conductors' currents, or --channel {names[0]} if that one is the residual current");
+                   $"give {Setting.Ref(nameof(ImportOptions.SumChannels))} {string.Join(',', names)} to add live conductors' currents, or {Setting.Ref(nameof(ImportOptions.Channel))} {names[0]} if that one is the residual current");
     }
 
     internal static int Find(IReadOnlyList<ChannelInfo> channels, IReadOnlyList<string>? writtenNames, string wanted, string option,
@@ -141,9 +141,9 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
                 ChannelQuantity.Current => 1.0,
                 ChannelQuantity.Voltage when options.SensitivityVPerA is { } sensitivity => 1.0 / sensitivity,
                 ChannelQuantity.Voltage => throw fail(Indices[k],
-                    $"channel '{channel.Name}' is a voltage ({channel.SourceUnit}): give --sensitivity (e.g. \"10 mV/mA\") to turn it into a current"),
+                    $"channel '{channel.Name}' is a voltage ({channel.SourceUnit}): give {Setting.Ref(nameof(ImportOptions.SensitivityVPerA))} (e.g. \"10 mV/mA\") to turn it into a current"),
                 _ => throw fail(Indices[k],
-                    $"channel '{channel.Name}' is in '{channel.SourceUnit}', neither a current nor a voltage; choose another with --channel"),
+                    $"channel '{channel.Name}' is in '{channel.SourceUnit}', neither a current nor a voltage; choose another with {Setting.Ref(nameof(ImportOptions.Channel))}"),
             };
         }
 

@@ -46,17 +46,17 @@ public sealed record ImportOptions
     /// scale for a WAV file (required there), a probe or divider ratio for CSV and COMTRADE (default 1).</summary>
     public double? VoltageScale { get; init; }
 
-    /// <summary>Checks each stated value against <see cref="CaptureLimits"/>; the message names the CLI option.</summary>
+    /// <summary>Checks each stated value against <see cref="CaptureLimits"/>; the message names the setting.</summary>
     /// <exception cref="OptionValueException">A value is out of bounds.</exception>
     public void Validate()
     {
-        Check("scale", ScaleA, "A");
-        Check("sensitivity", SensitivityVPerA, "V/A");
-        Check("range", RangeV, "V");
-        Check("rate", RateHz, "Hz");
+        Check("scale", nameof(ScaleA), ScaleA, "A");
+        Check("sensitivity", nameof(SensitivityVPerA), SensitivityVPerA, "V/A");
+        Check("range", nameof(RangeV), RangeV, "V");
+        Check("rate", nameof(RateHz), RateHz, "Hz");
         if (VoltageScale is { } v && !(v > 0 && v <= MaxVoltageScale))
         {
-            throw new OptionValueException("--voltage-scale", v.ToString("G6", System.Globalization.CultureInfo.InvariantCulture),
+            throw new OptionValueException(Setting.Ref(nameof(VoltageScale)), v.ToString("G6", System.Globalization.CultureInfo.InvariantCulture),
                 "a positive factor up to 1e6 (volts at WAV full scale, or a probe ratio for CSV and COMTRADE)");
         }
     }
@@ -65,11 +65,11 @@ public sealed record ImportOptions
     /// low-voltage circuit (engineering choice, a bound against typing errors).</summary>
     public const double MaxVoltageScale = 1e6;
 
-    private static void Check(string key, double? value, string unit)
+    private static void Check(string key, string property, double? value, string unit)
     {
         if (value is { } v && CaptureLimits.SettingProblem(key, v) is { } expected)
         {
-            throw new OptionValueException("--" + key,
+            throw new OptionValueException(Setting.Ref(property),
                 v.ToString("G6", System.Globalization.CultureInfo.InvariantCulture) + " " + unit, expected);
         }
     }

@@ -24,16 +24,16 @@ internal static class VoltageSelection
         if (names.Count is not (1 or 3))
         {
             throw fail(string.Create(CultureInfo.InvariantCulture,
-                $"--voltage names {names.Count} channels: expected one (single-phase, line to earth or neutral) or three (L1,L2,L3 to earth)"));
+                $"{Setting.Ref(nameof(ImportOptions.VoltageChannels))} names {names.Count} channels: expected one (single-phase, line to earth or neutral) or three (L1,L2,L3 to earth)"));
         }
 
         var indices = new List<int>(names.Count);
         foreach (var name in names)
         {
-            var index = ChannelSelection.Find(channels, null, name, "--voltage", fail);
+            var index = ChannelSelection.Find(channels, null, name, Setting.Ref(nameof(ImportOptions.VoltageChannels)), fail);
             if (indices.Contains(index))
             {
-                throw fail($"--voltage names channel '{channels[index].Name}' twice");
+                throw fail($"{Setting.Ref(nameof(ImportOptions.VoltageChannels))} names channel '{channels[index].Name}' twice");
             }
 
             indices.Add(index);
@@ -62,7 +62,7 @@ internal static class VoltageSelection
         {
             if (options.VoltageScale is not null)
             {
-                throw fail(-1, "--voltage-scale was given without --voltage: name the voltage channel(s)");
+                throw fail(-1, $"{Setting.Ref(nameof(ImportOptions.VoltageScale))} was given without {Setting.Ref(nameof(ImportOptions.VoltageChannels))}: name the voltage channel(s)");
             }
 
             return null;
@@ -75,13 +75,13 @@ internal static class VoltageSelection
             var channel = channels[indices[k]];
             if (residual.Contains(indices[k]))
             {
-                throw fail(indices[k], $"channel '{channel.Name}' is named by --voltage and also forms the residual current");
+                throw fail(indices[k], $"channel '{channel.Name}' is named by {Setting.Ref(nameof(ImportOptions.VoltageChannels))} and also forms the residual current");
             }
 
             if (channel.Quantity != ChannelQuantity.Voltage)
             {
                 throw fail(indices[k],
-                    $"--voltage: channel '{channel.Name}' is in '{channel.SourceUnit}', not a voltage (V, mV or kV)");
+                    $"{Setting.Ref(nameof(ImportOptions.VoltageChannels))}: channel '{channel.Name}' is in '{channel.SourceUnit}', not a voltage (V, mV or kV)");
             }
 
             factors[k] = blockFactor(indices[k]) * ratio;

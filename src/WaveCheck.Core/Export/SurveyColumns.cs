@@ -1,7 +1,7 @@
 using System.Globalization;
-using WaveCheck.Core.Assessment;
 using Parquet;
 using Parquet.Schema;
+using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Export;

@@ -64,19 +64,19 @@ public sealed record AnalysisOptions
     {
         if (MainsHz is { } mains && !(mains >= 1 && mains <= 1000))
         {
-            throw new OptionValueException("--mains", mains.ToString(System.Globalization.CultureInfo.InvariantCulture),
+            throw new OptionValueException(Setting.Ref(nameof(MainsHz)), mains.ToString(System.Globalization.CultureInfo.InvariantCulture),
                 "auto, 50, 60 or a frequency between 1 and 1000 Hz");
         }
 
         if (!(RestBandA > 0 && RestBandA <= 1))
         {
-            throw new OptionValueException("--rest-band", RestBandA.ToString(System.Globalization.CultureInfo.InvariantCulture) + " A",
+            throw new OptionValueException(Setting.Ref(nameof(RestBandA)), RestBandA.ToString(System.Globalization.CultureInfo.InvariantCulture) + " A",
                 "a current above 0 and up to 1 A, such as 2mA");
         }
 
         if (AlarmA is { } alarm && !(alarm > 0))
         {
-            throw new OptionValueException("--alarm", alarm.ToString(System.Globalization.CultureInfo.InvariantCulture),
+            throw new OptionValueException(Setting.Ref(nameof(AlarmA)), alarm.ToString(System.Globalization.CultureInfo.InvariantCulture),
                 "a positive current such as 30mA");
         }
 

@@ -44,6 +44,28 @@ public static class SiteConfigReader
     private static readonly string[] SettingKeys =
         ["rated", "device", "sensor", "regime", "ev", "chargerDcDetection", "scale", "sensitivity", "range", "rate", "channel", "sum", "voltage", "voltageScale"];
 
+    /// <summary>A setting (<see cref="Setting.Ref"/>) as a site file names it: <c>the site file's "channel"</c>; null for
+    /// a setting the site file has no key for.</summary>
+    /// <param name="property">The option property's name (<c>ImportOptions.Channel</c>: <c>Channel</c>).</param>
+    public static string? KeyText(string property) => property switch
+    {
+        nameof(ImportOptions.ScaleA) => "scale",
+        nameof(ImportOptions.SensitivityVPerA) => "sensitivity",
+        nameof(ImportOptions.RangeV) => "range",
+        nameof(ImportOptions.RateHz) => "rate",
+        nameof(ImportOptions.Channel) => "channel",
+        nameof(ImportOptions.SumChannels) => "sum",
+        nameof(ImportOptions.Sensor) => "sensor",
+        nameof(AssessmentOptions.RatedResidualCurrentA) => "rated",
+        nameof(AssessmentOptions.InstalledType) => "device",
+        nameof(AssessmentOptions.Regime) => "regime",
+        nameof(AssessmentOptions.EvChargingPoint) => "ev",
+        nameof(AssessmentOptions.ChargerDcDetection) => "chargerDcDetection",
+        nameof(ImportOptions.VoltageChannels) => "voltage",
+        nameof(ImportOptions.VoltageScale) => "voltageScale",
+        _ => null,
+    } is { } key ? $"the site file's \"{key}\"" : null;
+
     private static readonly string[] CaptureKeys = ["file", "circuit", "state", .. SettingKeys];
 
     private static readonly string[] UpstreamKeys = ["name", "device", "rated", "circuits"];
@@ -575,7 +597,7 @@ public static class SiteConfigReader
                 }
                 catch (OptionValueException e)
                 {
-                    throw Error(value, $"\"rated\": {e.Message[(e.Option.Length + 2)..]}");
+                    throw Error(value, $"\"rated\": cannot use '{e.Text}': expected {e.Expected}");
                 }
             }
 

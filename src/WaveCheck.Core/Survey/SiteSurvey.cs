@@ -1,7 +1,7 @@
 using WaveCheck.Core.Assessment;
-using WaveCheck.Core.Signal;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core.Survey;
 
@@ -16,6 +16,10 @@ public sealed record SiteSurveyOptions
 
     /// <summary>The site file the jobs came from, if any: an input, so never inside the output folder.</summary>
     public string? SiteFile { get; init; }
+
+    /// <summary>How a capture's error row names a setting (<see cref="Setting.Ref"/>): the front end's word for it, such
+    /// as a site-file key (<see cref="SiteConfigReader.KeyText"/>) or a command-line flag. Default: the property name.</summary>
+    public Func<string, string> SettingName { get; init; } = Setting.PropertyName;
 
     /// <summary>Site name for the summary.</summary>
     public string Site { get; init; } = "unnamed site";
@@ -133,7 +137,7 @@ public static class SiteSurvey
             }
 
             return new SurveyOutcome(SurveyRows.From(job.File, job.Settings, evaluation.Analysis, evaluation.Assessment, report));
-        }, progress, options.MaxParallel, cancellationToken);
+        }, progress, options.MaxParallel, cancellationToken, options.SettingName);
 
         var rows = outcomes.Select(o => o.Row).ToList();
         var circuits = CircuitVerdicts.From(rows);

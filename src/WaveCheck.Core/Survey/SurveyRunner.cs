@@ -1,7 +1,7 @@
 using System.Runtime.ExceptionServices;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Survey;
 
@@ -25,10 +25,12 @@ public static class SurveyRunner
     /// <param name="progress">Told (done, total) after each job; may be called from any thread.</param>
     /// <param name="maxParallel">Jobs at once; null: <see cref="Environment.ProcessorCount"/>.</param>
     /// <param name="cancellationToken">Stops the survey.</param>
+    /// <param name="settingName">How an error row names a setting marked in a message (<see cref="Setting.Ref"/>);
+    /// null: by its property name.</param>
     /// <returns>One outcome per job, in the order of <paramref name="jobs"/>.</returns>
     public static IReadOnlyList<SurveyOutcome> Run(IReadOnlyList<SurveyJob> jobs,
         Func<SurveyJob, CancellationToken, SurveyOutcome> run, IProgress<(int Done, int Total)>? progress = null,
-        int? maxParallel = null, CancellationToken cancellationToken = default)
+        int? maxParallel = null, CancellationToken cancellationToken = default, Func<string, string>? settingName = null)
     {
         ArgumentNullException.ThrowIfNull(jobs);
         ArgumentNullException.ThrowIfNull(run);
@@ -48,7 +50,7 @@ public static class SurveyRunner
         {
             Parallel.For(0, jobs.Count, options, i =>
             {
-                outcomes[i] = RunOne(jobs[i], run, cancellationToken);
+                outcomes[i] = RunOne(jobs[i], run, settingName ?? Setting.PropertyName, cancellationToken);
                 progress?.Report((Interlocked.Increment(ref done), jobs.Count));
             });
         }
@@ -70,7 +72,7 @@ public static class SurveyRunner
     }
 
     private static SurveyOutcome RunOne(SurveyJob job, Func<SurveyJob, CancellationToken, SurveyOutcome> run,
-        CancellationToken cancellationToken)
+        Func<string, string> settingName, CancellationToken cancellationToken)
     {
         try
         {
@@ -90,9 +92,10 @@ public static class SurveyRunner
         catch (Exception e) when (e is UserInputException or IOException or UnauthorizedAccessException)
         {
             // A CaptureFormatException's message already names the file; others get it in front.
-            var message = e is CaptureFormatException || e.Message.Contains(job.File, StringComparison.Ordinal)
-                ? e.Message
-                : $"{job.File}: {e.Message}";
+            var text = e is UserInputException input ? input.MessageWith(settingName) : e.Message;
+            var message = e is CaptureFormatException || text.Contains(job.File, StringComparison.Ordinal)
+                ? text
+                : $"{job.File}: {text}";
             return new SurveyOutcome(SurveyRows.Failed(job.File, job.Settings, message));
         }
         catch (Exception e)

@@ -1,7 +1,7 @@
 using System.Text;
 using OxyPlot;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Rendering.Plots;
 

@@ -1,10 +1,10 @@
 using System.Globalization;
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
-using WaveCheck.Rendering.Plots;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Text;
+using WaveCheck.Rendering.Plots;
 
 namespace WaveCheck.Rendering.Report;
 

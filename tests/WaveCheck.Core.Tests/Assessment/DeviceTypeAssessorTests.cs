@@ -1,7 +1,7 @@
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Tests.Assessment;
@@ -441,9 +441,9 @@ public class DeviceTypeAssessorTests
     }
 
     [Theory]
-    [InlineData(0.0, "--rated")]
-    [InlineData(-0.03, "--rated")]
-    [InlineData(double.NaN, "--rated")]
+    [InlineData(0.0, "RatedResidualCurrentA")]
+    [InlineData(-0.03, "RatedResidualCurrentA")]
+    [InlineData(double.NaN, "RatedResidualCurrentA")]
     public void RatedCurrentOutOfRangeIsRejectedWithTheOptionName(double ratedA, string option)
     {
         var e = Assert.Throws<OptionValueException>(() => Assess(new AnalysisBuilder().Sine(0.01), new AssessmentOptions { RatedResidualCurrentA = ratedA }));
@@ -455,13 +455,13 @@ public class DeviceTypeAssessorTests
     public void RiskBoundariesOutOfOrderAreRejected()
     {
         var e = Assert.Throws<OptionValueException>(() => new AssessmentOptions { PossibleRiskFraction = 0.6 }.Validate());
-        Assert.Equal("--risk-possible", e.Option);
+        Assert.Equal("PossibleRiskFraction", e.Option);
         Assert.Throws<OptionValueException>(() => new AssessmentOptions { DcThresholdA = -0.001 }.Validate());
         Assert.Throws<OptionValueException>(() => new AssessmentOptions { LeakageBudgetFraction = 1.5 }.Validate());
 
         // Types are ordered by capability (IEC 60364-5-53 §531.3.3): A cannot tolerate more DC than F.
         var order = Assert.Throws<OptionValueException>(() => new AssessmentOptions { TypeASmoothDcToleranceA = 0.015 }.Validate());
-        Assert.Equal("--type-a-dc", order.Option);
+        Assert.Equal("TypeASmoothDcToleranceA", order.Option);
     }
 
     // ---- The decision: installed protection, accepted protection, headline, cautions ------------------------------

@@ -121,7 +121,7 @@ public class MarginsTests
     public void FrequencyFactorsOutOfOrderAreRefused()
     {
         var ex = Assert.Throws<OptionValueException>(() => new AssessmentOptions { FrequencyFactor150Hz = 8 }.Validate());
-        Assert.Contains("--frequency-factors", ex.Message, StringComparison.Ordinal);
+        Assert.Contains("FrequencyFactor150Hz", ex.Message, StringComparison.Ordinal);
     }
 
     private static Core.Model.AssessmentResult Assess(AnalysisBuilder b, DeviceType? type = null, bool ev = false,

@@ -90,7 +90,7 @@ public class MeasurementAccuracyTests
     public void Parse_of_nothing_names_the_empty_text()
     {
         var ex = Assert.Throws<OptionValueException>(() => MeasurementAccuracy.Parse(null!));
-        Assert.Equal("--accuracy", ex.Option);
+        Assert.Equal("Accuracy", ex.Option);
         Assert.Equal(string.Empty, ex.Text);
     }
 
@@ -116,6 +116,6 @@ public class MeasurementAccuracyTests
     public void Accuracy_rejects_what_it_cannot_use_with_the_option_name(string text)
     {
         var ex = Assert.Throws<OptionValueException>(() => MeasurementAccuracy.Parse(text));
-        Assert.StartsWith("--accuracy", ex.Message, StringComparison.Ordinal);
+        Assert.StartsWith("Accuracy", ex.Message, StringComparison.Ordinal);
     }
 }

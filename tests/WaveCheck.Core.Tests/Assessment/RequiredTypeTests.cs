@@ -1,8 +1,8 @@
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Signal;
 using WaveCheck.Core.Synthesis;
-using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Tests.Assessment;
 
@@ -191,7 +191,7 @@ public class RequiredTypeTests
         var parts = new[] { new SineComponent(0.010, 60) };
         var ex = Assert.Throws<UserInputException>(() => Evaluate(parts, analysis: new AnalysisOptions { MainsHz = 50 }));
         Assert.Contains("60 Hz", ex.Message, StringComparison.Ordinal);
-        Assert.Contains("--mains-as-given", ex.Message, StringComparison.Ordinal);
+        Assert.Contains("KeepGivenMains", ex.Message, StringComparison.Ordinal);
         var kept = Evaluate(parts, analysis: new AnalysisOptions { MainsHz = 50, KeepGivenMains = true });
         Assert.Equal(50, kept.Analysis.Mains.NominalHz);
         // The declared frequency that agrees is accepted as before.

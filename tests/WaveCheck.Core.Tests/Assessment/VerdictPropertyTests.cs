@@ -1,8 +1,8 @@
 using CsCheck;
 using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Signal;
 using WaveCheck.Core.Synthesis;
-using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Tests.Assessment;
 

@@ -33,15 +33,18 @@ public sealed class ChannelSelectionTests
     }
 
     [Theory]
-    [InlineData(null, new[] { "L1", "l1" }, "--sum names channel 'L1' twice")]
-    [InlineData(null, new[] { "L1", "1" }, "--sum names channel 'L1' twice")]
-    [InlineData("L9", null, "--channel: no channel named 'L9' (channels: L1, L2, N, clamp, freq)")]
-    [InlineData("6", null, "--channel 6: channel number out of range 1..5")]
-    [InlineData(null, new[] { "L1", "0" }, "--sum 0: channel number out of range 1..5")]
+    [InlineData(null, new[] { "L1", "l1" }, "⟦SumChannels⟧ names channel 'L1' twice")]
+    [InlineData(null, new[] { "L1", "1" }, "⟦SumChannels⟧ names channel 'L1' twice")]
+    [InlineData("L9", null, "⟦Channel⟧: no channel named 'L9' (channels: L1, L2, N, clamp, freq)")]
+    [InlineData("6", null, "⟦Channel⟧ 6: channel number out of range 1..5")]
+    [InlineData(null, new[] { "L1", "0" }, "⟦SumChannels⟧ 0: channel number out of range 1..5")]
     public void Unknown_channels_and_a_channel_summed_twice_are_refused(string? channel, string[]? sum, string problem)
     {
+        // The problem names the setting marked (Setting.Ref), for the caller's exception to write in its user's words.
         var error = Assert.Throws<InvalidDataException>(() => Resolve(new ImportOptions { Channel = channel, SumChannels = sum }));
         Assert.Equal(problem, error.Message);
+        Assert.Equal(problem.Replace("⟦", "", StringComparison.Ordinal).Replace("⟧", "", StringComparison.Ordinal),
+            new UserInputException(problem).Message);
     }
 
     [Fact]
@@ -87,7 +90,7 @@ public sealed class ChannelSelectionTests
     {
         var selection = Resolve(new ImportOptions { SumChannels = ["L1", "L2", "N", "clamp"] });
         var refused = Assert.Throws<InvalidDataException>(() => selection.AmperesPerSiUnit(Channels, new ImportOptions(), (_, p) => Fail(p)));
-        Assert.Equal("channel 'clamp' is a voltage (mV): give --sensitivity (e.g. \"10 mV/mA\") to turn it into a current", refused.Message);
+        Assert.Equal("channel 'clamp' is a voltage (mV): give ⟦SensitivityVPerA⟧ (e.g. \"10 mV/mA\") to turn it into a current", refused.Message);
         var unscaled = Resolve(new ImportOptions { Channel = "freq" });
         Assert.Contains("neither a current nor a voltage",
             Assert.Throws<InvalidDataException>(() => unscaled.AmperesPerSiUnit(Channels, new ImportOptions(), (_, p) => Fail(p))).Message);

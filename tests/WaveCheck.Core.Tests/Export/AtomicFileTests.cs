@@ -1,6 +1,6 @@
-using WaveCheck.Core.Tests.Capture;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Tests.Capture;
 
 namespace WaveCheck.Core.Tests.Results;
 

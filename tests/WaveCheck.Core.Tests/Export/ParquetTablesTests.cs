@@ -1,9 +1,9 @@
 using Parquet;
 using Parquet.Schema;
+using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Survey;
 using WaveCheck.Core.Tests.Survey;
-using WaveCheck.Core.Model;
-using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Tests.Results;
 

@@ -1,7 +1,7 @@
 using Sylvan.Data.Csv;
+using WaveCheck.Core.Export;
 using WaveCheck.Core.Survey;
 using WaveCheck.Core.Tests.Survey;
-using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Tests.Results;
 

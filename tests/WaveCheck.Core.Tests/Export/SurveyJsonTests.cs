@@ -1,8 +1,8 @@
 using System.Text.Json;
+using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Survey;
 using WaveCheck.Core.Tests.Survey;
-using WaveCheck.Core.Model;
-using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Tests.Results;
 

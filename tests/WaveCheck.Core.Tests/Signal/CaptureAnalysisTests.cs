@@ -1,8 +1,8 @@
 using WaveCheck.Core;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Signal;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core.Tests.Signal;
 
@@ -336,7 +336,7 @@ public class CaptureAnalysisTests
     {
         var info = new MemoryCaptureSource([0.0], Fs).Info;
         var ex = Assert.Throws<OptionValueException>(() => new CaptureAnalysis(info, new AnalysisOptions { AlarmA = -1 }));
-        Assert.Contains("--alarm", ex.Message);
+        Assert.Contains("AlarmA", ex.Message);
         Assert.Throws<OptionValueException>(() => new CaptureAnalysis(info, new AnalysisOptions { MainsHz = 0.1 }));
     }
 

@@ -1,7 +1,7 @@
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Survey;
 using WaveCheck.Core.Model;
+using WaveCheck.Core.Survey;
 
 namespace WaveCheck.Core.Tests.Survey;
 

@@ -1,8 +1,8 @@
 using WaveCheck.Core.Capture;
+using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
 using WaveCheck.Core.Survey;
 using WaveCheck.Core.Tests.Capture;
-using WaveCheck.Core.Model;
-using WaveCheck.Core.Export;
 
 namespace WaveCheck.Core.Tests.Survey;
 

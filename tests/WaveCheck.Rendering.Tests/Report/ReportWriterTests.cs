@@ -1,8 +1,8 @@
 using System.Buffers.Binary;
 using System.Text.RegularExpressions;
+using WaveCheck.Core.Model;
 using WaveCheck.Rendering.Plots;
 using WaveCheck.Rendering.Report;
-using WaveCheck.Core.Model;
 
 namespace WaveCheck.Rendering.Tests.Report;
 

@@ -1,6 +1,6 @@
 using WaveCheck.Core.Assessment;
-using WaveCheck.Core.Survey;
 using WaveCheck.Core.Model;
+using WaveCheck.Core.Survey;
 
 namespace WaveCheck.Rendering.Tests.Survey;
 

@@ -354,7 +354,7 @@ public sealed class ComtradeCaptureSource : ICaptureSource
             _ => $"{named.Count} channels ({string.Join(", ", named.Select(i => channels[i].Name))}) are named as the residual or earth current, not one",
         };
         return ChannelSelection.Resolve(channels, options, named.Count == 1 ? named : currents,
-            "no analog channel is a current (A, kA, mA); choose one with --channel (and --sensitivity for a voltage)",
+            $"no analog channel is a current (A, kA, mA); choose one with {Setting.Ref(nameof(ImportOptions.Channel))} (and {Setting.Ref(nameof(ImportOptions.SensitivityVPerA))} for a voltage)",
             problem => new CaptureFormatException(path, problem), unnamed);
     }
 

@@ -139,7 +139,7 @@ public sealed class CsvCaptureSource : ICaptureSource
 
         if (options.RateHz is { } givenRate && CaptureLimits.RateProblem(givenRate) is { } givenProblem)
         {
-            throw new OptionValueException("--rate", CaptureLimits.Hz(givenRate), $"a sample rate from {CaptureLimits.RateRange} ({givenProblem})");
+            throw new OptionValueException(Setting.Ref(nameof(ImportOptions.RateHz)), CaptureLimits.Hz(givenRate), $"a sample rate from {CaptureLimits.RateRange} ({givenProblem})");
         }
 
         var medianStepS = dialect.TimeColumn < 0
@@ -162,7 +162,7 @@ public sealed class CsvCaptureSource : ICaptureSource
         else
         {
             throw new CaptureFormatException(path,
-                "no time column (a header such as 'time [s]') and no sample rate: give --rate, e.g. --rate 10kHz", headerLine, 1);
+                $"no time column (a header such as 'time [s]') and no sample rate: give {Setting.Ref(nameof(ImportOptions.RateHz))}, e.g. {Setting.Ref(nameof(ImportOptions.RateHz))} 10kHz", headerLine, 1);
         }
 
         _axis = _time is null ? null : new CsvTimeAxis(_time, medianStepS, rateGiven);

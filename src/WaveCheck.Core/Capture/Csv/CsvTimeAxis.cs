@@ -65,7 +65,7 @@ internal sealed class CsvTimeAxis
         {
             return rateGiven
                 ? double.NaN
-                : throw fail("only one data row: the sample rate needs at least two time values (or give --rate)");
+                : throw fail($"only one data row: the sample rate needs at least two time values (or give {Setting.Ref(nameof(ImportOptions.RateHz))})");
         }
 
         var steps = new double[times.Count - 1];
@@ -84,7 +84,7 @@ internal sealed class CsvTimeAxis
         if (!rateGiven && CaptureLimits.RateProblem(1 / median) is { } problem)
         {
             throw fail(string.Create(CultureInfo.InvariantCulture,
-                $"the time column's median step is {median:G6} s: {problem}; check the time unit in the header, or give --rate"));
+                $"the time column's median step is {median:G6} s: {problem}; check the time unit in the header, or give {Setting.Ref(nameof(ImportOptions.RateHz))}"));
         }
 
         return median;

@@ -85,7 +85,7 @@ public sealed class WavCaptureSource : ICaptureSource
             if (voltages.Count > 0 && voltageScale is null)
             {
                 throw new CaptureFormatException(path,
-                    "--voltage on a WAV file needs --voltage-scale (circuit volts at full scale, e.g. 500V)");
+                    $"{Setting.Ref(nameof(ImportOptions.VoltageChannels))} on a WAV file needs {Setting.Ref(nameof(ImportOptions.VoltageScale))} (circuit volts at full scale, e.g. 500V)");
             }
 
             foreach (var v in voltages)
@@ -244,7 +244,7 @@ public sealed class WavCaptureSource : ICaptureSource
             var fullScale = range / sensitivity;
             if (CaptureLimits.ScaleProblem("full scale (range / sensitivity)", fullScale, "A") is { } fullScaleProblem)
             {
-                throw new CaptureFormatException(path, $"--range and --sensitivity: {fullScaleProblem}");
+                throw new CaptureFormatException(path, $"{Setting.Ref(nameof(ImportOptions.RangeV))} and {Setting.Ref(nameof(ImportOptions.SensitivityVPerA))}: {fullScaleProblem}");
             }
 
             var source = string.Create(CultureInfo.InvariantCulture,
@@ -256,8 +256,8 @@ public sealed class WavCaptureSource : ICaptureSource
         {
             throw new CaptureFormatException(path,
                 options.RangeV is null
-                    ? "--sensitivity needs --range to scale a WAV file (or give --scale)"
-                    : "--range needs --sensitivity to scale a WAV file (or give --scale)");
+                    ? $"{Setting.Ref(nameof(ImportOptions.SensitivityVPerA))} needs {Setting.Ref(nameof(ImportOptions.RangeV))} to scale a WAV file (or give {Setting.Ref(nameof(ImportOptions.ScaleA))})"
+                    : $"{Setting.Ref(nameof(ImportOptions.RangeV))} needs {Setting.Ref(nameof(ImportOptions.SensitivityVPerA))} to scale a WAV file (or give {Setting.Ref(nameof(ImportOptions.ScaleA))})");
         }
 
         if (fileScaleA is { } own)
@@ -266,6 +266,6 @@ public sealed class WavCaptureSource : ICaptureSource
         }
 
         throw new CaptureFormatException(path,
-            "WAV samples are fractions of full scale and the file states no scale: give --scale (amperes at full scale) or --sensitivity with --range");
+            $"WAV samples are fractions of full scale and the file states no scale: give {Setting.Ref(nameof(ImportOptions.ScaleA))} (amperes at full scale) or {Setting.Ref(nameof(ImportOptions.SensitivityVPerA))} with {Setting.Ref(nameof(ImportOptions.RangeV))}");
     }
 }

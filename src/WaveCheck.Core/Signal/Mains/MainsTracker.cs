@@ -47,7 +47,7 @@ internal sealed class MainsTracker
             MainsFrequency.Contradicts(headA, sampleRateHz, given, mains) is { } seenHz)
         {
             throw new UserInputException(string.Create(CultureInfo.InvariantCulture,
-                $"{Path.GetFileName(filePath)}: mains given as {given:0.##} Hz, but the capture's mains content in its first {headA.Length / sampleRateHz:0.#} s is at {seenHz:0.##} Hz; give --mains {Math.Round(seenHz / 10) * 10:0} or auto, or --mains-as-given to keep {given:0.##} Hz"));
+                $"{Path.GetFileName(filePath)}: mains given as {given:0.##} Hz, but the capture's mains content in its first {headA.Length / sampleRateHz:0.#} s is at {seenHz:0.##} Hz; give {Setting.Ref(nameof(AnalysisOptions.MainsHz))} {Math.Round(seenHz / 10) * 10:0} or auto, or {Setting.Ref(nameof(AnalysisOptions.KeepGivenMains))} to keep {given:0.##} Hz"));
         }
 
         return new MainsTracker(mains, sampleRateHz, options.MainsHz, headA.Length);

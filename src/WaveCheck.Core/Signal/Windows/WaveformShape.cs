@@ -1,6 +1,6 @@
-using System.Runtime.InteropServices;
 using System.Numerics;
 using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 
 namespace WaveCheck.Core.Signal;
 

@@ -188,7 +188,7 @@ public sealed class ComtradeCaptureSourceTests : IDisposable
         var path = Feeder(ComtradeDataFileType.Binary).Write(_dir.Path, "feeder3");
         var error = Assert.Throws<CaptureFormatException>(() => ComtradeCaptureSource.Open(path, new ImportOptions { SumChannels = ["IL1", "IL2", "il1"] }));
         Assert.Equal(path, error.FilePath);
-        Assert.Equal("--sum names channel 'IL1' twice", error.Problem);
+        Assert.Equal("SumChannels names channel 'IL1' twice", error.Problem);
     }
 
     [Fact]
@@ -201,9 +201,9 @@ public sealed class ComtradeCaptureSourceTests : IDisposable
         }
 
         var error = Assert.Throws<CaptureFormatException>(() => ComtradeCaptureSource.Open(path, new ImportOptions { Channel = "IL9" }));
-        Assert.Equal("--channel: no channel named 'IL9' (channels: IL1, IL2, IL3, IN, UL1)", error.Problem);
+        Assert.Equal("Channel: no channel named 'IL9' (channels: IL1, IL2, IL3, IN, UL1)", error.Problem);
         var number = Assert.Throws<CaptureFormatException>(() => ComtradeCaptureSource.Open(path, new ImportOptions { Channel = "6" }));
-        Assert.Equal("--channel 6: channel number out of range 1..5", number.Problem);
+        Assert.Equal("Channel 6: channel number out of range 1..5", number.Problem);
     }
 
     [Fact]
@@ -213,7 +213,7 @@ public sealed class ComtradeCaptureSourceTests : IDisposable
         var path = builder.Write(_dir.Path, "feeder3");
         var error = Assert.Throws<CaptureFormatException>(() => ComtradeCaptureSource.Open(path, new ImportOptions { Channel = "UL1" }));
         Assert.Contains("'UL1' is a voltage (kV)", error.Message, StringComparison.Ordinal);
-        Assert.Contains("--sensitivity", error.Message, StringComparison.Ordinal);
+        Assert.Contains("SensitivityVPerA", error.Message, StringComparison.Ordinal);
 
         // Closed form: 0.325 kV peak through 10 V/A reads as 32.5 A peak; half a step 0.5 kV/2^31/2 /10 V/A.
         using var source = ComtradeCaptureSource.Open(path, new ImportOptions { Channel = "UL1", SensitivityVPerA = 10 });

@@ -251,8 +251,8 @@ public sealed class CsvCaptureSourceTests : IDisposable
         { "missing-sum.csv", "time [s],L1 [A],L2 [A]\n0,1,2\n0.001,2,3\n", new ImportOptions { SumChannels = ["L1", "N"] }, 1, 1, "no channel named 'N'" },
         { "header-only.csv", "# a logger\ntime [s],I [mA]\n", new ImportOptions(), 3, 1, "no data rows" },
         { "comments-only.csv", "# nothing here\n\n", new ImportOptions(), 2, 1, "no header: the file holds only 2 comment or blank lines" },
-        { "no-rate.csv", "I [mA]\n1\n2\n3\n", new ImportOptions(), 1, 1, "give --rate" },
-        { "volts.csv", "time [s],t2,U [mV]\n0,1,5\n0.001,1,6\n", new ImportOptions(), 1, 3, "give --sensitivity" },
+        { "no-rate.csv", "I [mA]\n1\n2\n3\n", new ImportOptions(), 1, 1, "give RateHz" },
+        { "volts.csv", "time [s],t2,U [mV]\n0,1,5\n0.001,1,6\n", new ImportOptions(), 1, 3, "give SensitivityVPerA" },
         { "short-row.csv", "time [s],I1 [mA],I2 [mA]\n0,1,2\n0.001,2,3\n0.002,4\n", new ImportOptions { Channel = "I1" }, 4, 3, "row has 2 fields, the header has 3" },
         { "no-header.csv", "0,1\n0.001,2\n", new ImportOptions(), 1, 1, "no header line" },
     };

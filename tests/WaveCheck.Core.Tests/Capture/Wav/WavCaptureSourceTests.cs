@@ -88,8 +88,8 @@ public sealed class WavCaptureSourceTests : IDisposable
         }
 
         var missing = Assert.Throws<CaptureFormatException>(() => CaptureOpener.Open(path, new ImportOptions()));
-        Assert.Contains("--scale", missing.Message);
-        Assert.Contains("--sensitivity with --range", missing.Message);
+        Assert.Contains("ScaleA", missing.Message);
+        Assert.Contains("SensitivityVPerA with RangeV", missing.Message);
 
         // range 1 V / sensitivity 10 mV/mA (= 10 V/A) -> 0.1 A at full scale (closed form: 1 / 10).
         using var source = CaptureOpener.Open(path, new ImportOptions { RangeV = 1.0, SensitivityVPerA = 10.0 });
@@ -176,6 +176,6 @@ public sealed class WavCaptureSourceTests : IDisposable
         var path = _folder.File("s.wav");
         CaptureWriter.WriteWav(path, [new double[10]], 1000, 1, WavSampleFormat.Pcm16);
         var ex = Assert.Throws<CaptureFormatException>(() => CaptureOpener.Open(path, new ImportOptions { SensitivityVPerA = 10 }));
-        Assert.Contains("--range", ex.Message);
+        Assert.Contains("RangeV", ex.Message);
     }
 }

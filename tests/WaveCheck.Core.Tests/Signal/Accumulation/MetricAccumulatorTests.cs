@@ -1,15 +1,13 @@
 using System.Diagnostics;
 using System.Globalization;
-using System.Runtime.CompilerServices;
-using WaveCheck.Core.Signal;
 using WaveCheck.Core.Model;
+using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core.Tests.Signal;
 
 public class MetricAccumulatorTests
 {
-    private static string ScriptPath([CallerFilePath] string here = "") =>
-        Path.Combine(Path.GetDirectoryName(here)!, "Reference", "metric_statistics.py");
+    private static string ScriptPath() => ReferenceScripts.Path("metric_statistics.py");
 
     private static (double Mean, double P95, double Max, double TimeOfMaxS) Numpy(double[] values, double[] starts, bool signed)
     {

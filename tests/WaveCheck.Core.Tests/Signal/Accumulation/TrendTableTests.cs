@@ -1,5 +1,5 @@
-using WaveCheck.Core.Signal;
 using WaveCheck.Core.Model;
+using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core.Tests.Signal;
 

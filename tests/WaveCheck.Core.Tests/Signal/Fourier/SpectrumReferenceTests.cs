@@ -1,14 +1,12 @@
 using System.Diagnostics;
 using System.Globalization;
-using System.Runtime.CompilerServices;
 using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core.Tests.Signal;
 
 public class SpectrumReferenceTests
 {
-    private static string ScriptPath([CallerFilePath] string here = "") =>
-        Path.Combine(Path.GetDirectoryName(here)!, "Reference", "periodogram.py");
+    private static string ScriptPath() => ReferenceScripts.Path("periodogram.py");
 
     [Theory]
     [InlineData(10000)]

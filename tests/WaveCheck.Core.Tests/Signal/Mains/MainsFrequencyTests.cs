@@ -1,6 +1,6 @@
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Signal;
 using WaveCheck.Core.Model;
+using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core.Tests.Signal;
 

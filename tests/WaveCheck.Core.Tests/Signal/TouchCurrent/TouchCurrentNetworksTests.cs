@@ -1,7 +1,6 @@
 using System.Diagnostics;
 using System.Globalization;
 using System.Numerics;
-using System.Runtime.CompilerServices;
 using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core.Tests.Signal;
@@ -167,10 +166,9 @@ public class TouchCurrentNetworksTests
         Assert.Throws<ArgumentException>(() => TouchCurrentNetworks.Discretise(new AnalogTransferFunction([1.0], [1.0, 1, 1, 1]), 1000));
     }
 
-    private static List<(string Name, string Kind, double F, double Fs, Complex H)> RunScipy(double[] freqs, double[] rates,
-        [CallerFilePath] string here = "")
+    private static List<(string Name, string Kind, double F, double Fs, Complex H)> RunScipy(double[] freqs, double[] rates)
     {
-        var script = Path.Combine(Path.GetDirectoryName(here)!, "touch_networks_reference.py");
+        var script = ReferenceScripts.Path("touch_networks_reference.py");
         var inv = CultureInfo.InvariantCulture;
         var psi = new ProcessStartInfo("/usr/bin/python3")
         {

@@ -1,7 +1,7 @@
 using WaveCheck.Core.Capture;
-using WaveCheck.Core.Signal;
-using WaveCheck.Core.Model;
 using WaveCheck.Core.Export;
+using WaveCheck.Core.Model;
+using WaveCheck.Core.Signal;
 
 namespace WaveCheck.Core.Tests.Signal;
 
