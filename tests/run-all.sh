@@ -28,4 +28,6 @@ status=0
 dotnet test WaveCheck.sln -c Release --collect:"XPlat Code Coverage" --settings tests/coverage.runsettings \
   --results-directory "$coverage" || status=$?
 /usr/bin/python3 tests/coverage_summary.py "$coverage" || true
+# The CLI packed as a .NET tool, installed into a temporary tool path, and run (README "Install").
+bash tests/tool-install.sh || status=$?
 exit "$status"

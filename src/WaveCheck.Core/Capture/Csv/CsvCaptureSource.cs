@@ -108,7 +108,10 @@ public sealed class CsvCaptureSource : ICaptureSource
 
         var voltageChannels = VoltageSelection.Indices(channels, options, problem => new CaptureFormatException(path, problem, headerLine, 1));
         var spareVoltages = VoltageSelection.Without(voltages, voltageChannels);
-        _selection = ChannelSelection.Resolve(channels, options, currents.Count > 0 ? currents : spareVoltages,
+        // Of several current columns, the one named as the residual current is taken (Ires_mA beside L1_A, L2_A);
+        // otherwise all are candidates, and several are refused by the shared choice.
+        var named = currents.Where(i => NamesResidualCurrent(channels[i].Name)).ToList();
+        _selection = ChannelSelection.Resolve(channels, options, named.Count == 1 ? named : currents.Count > 0 ? currents : spareVoltages,
             "no current or voltage column found: name the unit in the header, e.g. 'I [mA]'",
             problem => new CaptureFormatException(path, problem, headerLine, 1),
             writtenNames: [.. dataColumns.Select(c => dialect.Header[c.FileColumn - 1])]);
@@ -359,5 +362,26 @@ public sealed class CsvCaptureSource : ICaptureSource
 
         var measured = _axis is null ? Info.MeasuredSampleRateHz : _axis.Finish(Info.SampleRateHz, Info.MeasuredSampleRateHz);
         Info = Info with { SampleCount = _row, SampleCountExact = true, MeasuredSampleRateHz = measured };
+    }
+
+    /// <summary>Words of a column name that mark it as the residual current. Unlike COMTRADE's phase labels, N is not
+    /// among them: in a logger export of conductor currents N is the neutral conductor, one of the currents to sum.</summary>
+    private static readonly HashSet<string> ResidualWords = new(StringComparer.OrdinalIgnoreCase)
+    {
+        "IRES", "RES", "RESIDUAL", "IDELTA", "IΔ", "IΔN", "IDN", "LEAK", "LEAKAGE", "EARTH", "IEARTH", "RCM",
+    };
+
+    /// <summary>Whether a column's name (without its unit), or a word of it, names the residual current.</summary>
+    internal static bool NamesResidualCurrent(string name)
+    {
+        foreach (var word in name.Split([' ', '_', '-', '.', '/'], StringSplitOptions.RemoveEmptyEntries))
+        {
+            if (ResidualWords.Contains(word))
+            {
+                return true;
+            }
+        }
+
+        return false;
     }
 }

@@ -221,6 +221,21 @@ public sealed class CsvCaptureSourceTests : IDisposable
     }
 
     [Fact]
+    public void OfSeveralCurrentColumnsTheOneNamedAsTheResidualCurrentIsTaken()
+    {
+        // A logger that records the phases and the residual current: the column named so is used, without a guess.
+        var path = _folder.Write("named.csv", "time_s,L1_A,L2_A,I_res_mA\n0,10,-10,1\n0.001,11,-11,2\n0.002,12,-12,3\n");
+        using var source = CaptureOpener.Open(path, new ImportOptions());
+        Assert.Equal("I_res", source.Info.ResidualSource);
+        Assert.DoesNotContain(source.Warnings, w => w.Code == ChannelSelection.GuessedCode);
+        Assert.Equal(0.003, Signals.ReadAll(source).Residual[2], 1e-15);   // 3 mA, column unit mA
+
+        // N is the neutral conductor in such an export, not a residual name: L1, L2, N without a choice are refused.
+        var conductors = _folder.Write("conductors.csv", "time_s,L1_A,L2_A,N_A\n0,10,-10,0\n0.001,11,-11,0\n");
+        Assert.Throws<CaptureFormatException>(() => CaptureOpener.Open(conductors, new ImportOptions()));
+    }
+
+    [Fact]
     public void TheFixtureFromAnInventedLoggerReads()
     {
         using var source = CaptureOpener.Open(TempFolder.Fixture("invented-logger-semicolon.csv"), new ImportOptions());
