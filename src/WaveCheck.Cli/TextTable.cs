@@ -22,7 +22,8 @@ internal sealed class TextTable
             throw new ArgumentException("a table needs at least one column", nameof(columns));
         }
 
-        Title = title;
+        // Cleaned before measuring: an escaped control character is wider than the character.
+        Title = title is null ? null : TerminalText.CleanLines(title);
         _columns = [.. columns];
     }
 
@@ -47,7 +48,7 @@ internal sealed class TextTable
             throw new ArgumentException($"a row needs {_columns.Count} cells (got {cells.Length})", nameof(cells));
         }
 
-        _rows.Add(cells);
+        _rows.Add([.. cells.Select(c => c with { Text = TerminalText.CleanLines(c.Text) })]);
     }
 
     /// <summary>The lines of the table, each a list of styled spans no longer than <paramref name="width"/> in all.</summary>
