@@ -34,6 +34,9 @@ internal sealed class Screen
     /// (or after <paramref name="indent"/>).</summary>
     public void Paragraph(string text, string label = "", string? indent = null, Style? style = null, Style? labelStyle = null)
     {
+        // Cleaned before measuring: an escaped control character is wider than the character.
+        text = TerminalText.CleanLines(text);
+        label = TerminalText.Clean(label);
         indent ??= new string(' ', label.Length);
         var first = true;
         foreach (var line in WordWrap.Lines(text, Width, label, indent))

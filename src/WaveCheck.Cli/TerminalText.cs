@@ -16,7 +16,8 @@ namespace WaveCheck.Cli;
 /// and the bidirectional formatting characters (U+200E, U+200F, U+202A to U+202E, U+2066 to U+2069), which reorder
 /// what is displayed. With ESC and CSI escaped, no escape sequence can start, so the rest of one prints as plain text.
 /// Applied at the print edges: every renderable on the standard-output console (<see cref="Hook"/>), every stderr
-/// line (<see cref="CliRun"/>), the progress description and the few lines written straight to <see cref="Terminal.Out"/>.
+/// line (<see cref="CliRun"/>), the progress description, and text laid out by <see cref="Screen"/> and
+/// <see cref="TextTable"/>, cleaned before it is measured.
 /// </remarks>
 internal static class TerminalText
 {
@@ -54,6 +55,16 @@ internal static class TerminalText
         }
 
         return clean.ToString();
+    }
+
+    /// <summary><see cref="Clean"/> applied to each line of <paramref name="text"/>, its line breaks kept: for text laid
+    /// out by <see cref="WordWrap"/>, which must measure what will be printed.</summary>
+    public static string CleanLines(string text)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        return text.Contains('\n', StringComparison.Ordinal)
+            ? string.Join('\n', text.Replace("\r\n", "\n", StringComparison.Ordinal).Split('\n').Select(Clean))
+            : Clean(text);
     }
 
     /// <summary>Whether <paramref name="c"/> is escaped by <see cref="Clean"/>.</summary>

@@ -5,7 +5,7 @@ namespace WaveCheck.Cli;
 
 /// <summary>
 /// A table laid out for a width without cutting a word: each column is at least as wide as its longest word, the
-/// remaining room goes to the columns that wrap, in proportion to what they would need to stay on one line. Where
+/// remaining room goes first to the columns that need least of it to stay on one line. Where
 /// even the longest words do not fit side by side, each row is printed as its first cell followed by the others as
 /// labelled, indented lines. Rounded Unicode borders on a terminal, ASCII when piped: one style per output.
 /// </summary>
@@ -22,7 +22,8 @@ internal sealed class TextTable
             throw new ArgumentException("a table needs at least one column", nameof(columns));
         }
 
-        Title = title;
+        // Cleaned before measuring: an escaped control character is wider than the character.
+        Title = title is null ? null : TerminalText.CleanLines(title);
         _columns = [.. columns];
     }
 
@@ -47,7 +48,7 @@ internal sealed class TextTable
             throw new ArgumentException($"a row needs {_columns.Count} cells (got {cells.Length})", nameof(cells));
         }
 
-        _rows.Add(cells);
+        _rows.Add([.. cells.Select(c => c with { Text = TerminalText.CleanLines(c.Text) })]);
     }
 
     /// <summary>The lines of the table, each a list of styled spans no longer than <paramref name="width"/> in all.</summary>
@@ -107,32 +108,14 @@ internal sealed class TextTable
             return null;
         }
 
+        // The columns that need least to stay on one line get it first; the widest text wraps in what is left.
         var widths = (int[])min.Clone();
         var spare = available - min.Sum();
-        var wanted = max.Zip(min, (a, b) => a - b).ToArray();
-        var totalWanted = wanted.Sum();
-        for (var i = 0; i < n && totalWanted > 0; i++)
+        foreach (var i in Enumerable.Range(0, n).OrderBy(i => max[i] - min[i]))
         {
-            widths[i] += (int)((long)spare * wanted[i] / totalWanted);
-        }
-
-        // What rounding left goes to the columns that still wrap, left to right.
-        for (var left = available - widths.Sum(); left > 0;)
-        {
-            var before = left;
-            for (var i = 0; i < n && left > 0; i++)
-            {
-                if (widths[i] < max[i])
-                {
-                    widths[i]++;
-                    left--;
-                }
-            }
-
-            if (left == before)
-            {
-                break;
-            }
+            var add = Math.Min(max[i] - min[i], spare);
+            widths[i] += add;
+            spare -= add;
         }
 
         return widths;

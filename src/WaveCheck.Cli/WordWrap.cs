@@ -6,8 +6,8 @@ namespace WaveCheck.Cli;
 /// <summary>
 /// Wraps text on words to a width: lines break only at spaces, a figure stays with its unit (<c>30.0 mA</c>), and a
 /// prefix on the first line is matched by an indent on the others. A single word longer than a whole line (a long
-/// path) is the one thing that must be cut; it is cut after a <c>/</c>, <c>\</c>, <c>-</c>, <c>_</c>, <c>,</c> or
-/// <c>.</c> where it has one, else at the width.
+/// path) is the one thing that must be cut; it is cut after a <c>/</c> or <c>\</c> where it has one, else after a
+/// <c>-</c>, <c>_</c>, <c>,</c> or <c>.</c>, else at the width.
 /// </summary>
 internal static partial class WordWrap
 {
@@ -94,13 +94,18 @@ internal static partial class WordWrap
         return [.. lines.Select(l => l.Replace(Glue, ' '))];
     }
 
+    /// <summary>Where to cut a word longer than a line: after the last path separator within the line, else after
+    /// the last other natural break, else at the width.</summary>
     private static int CutPoint(string word, int limit)
     {
-        for (var i = limit; i > limit / 3; i--)
+        foreach (var breaks in (char[][])[['/', '\\'], ['-', '_', ',', '.', Glue]])
         {
-            if (word[i - 1] is '/' or '\\' or '-' or '_' or ',' or '.' or Glue)
+            for (var i = limit; i > limit / 3; i--)
             {
-                return i;
+                if (Array.IndexOf(breaks, word[i - 1]) >= 0)
+                {
+                    return i;
+                }
             }
         }
 

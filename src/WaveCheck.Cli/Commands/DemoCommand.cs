@@ -24,8 +24,8 @@ internal static class DemoCommand
             var outputDirectory = parse.GetValue(output)!;
             var document = SurveyCommand.Run(site.Jobs(), site.Upstream, site.Site, siteFile, outputDirectory, parquet: false,
                 parse.GetValue(quiet), run);
-            run.Terminal.Out.WriteLine(TerminalText.Clean(
-                $"Open {Path.GetFullPath(Path.Combine(outputDirectory, "index.html"))} in a browser; each circuit links its report."));
+            new Screen(run.Terminal).Paragraph(
+                $"Open {Path.GetFullPath(Path.Combine(outputDirectory, "index.html"))} in a browser; each circuit links its report.", "", "  ");
             return SurveyCommand.Exit(run.Terminal, document, Core.Model.Finding.None);
         }));
         return command;

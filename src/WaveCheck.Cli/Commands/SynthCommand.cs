@@ -140,8 +140,8 @@ internal static class SynthCommand
             }
 
             plan.MarkWritten("--output");
-            run.Terminal.Out.WriteLine(TerminalText.Clean(string.Create(CultureInfo.InvariantCulture,
-                $"wrote {path}: {written:N0} samples at {rateHz:G6} Hz ({durationS:G6} s){scaleNote}; {string.Join(" + ", components.Select(c => c.Describe()))}")));
+            new Screen(run.Terminal).Paragraph(string.Create(CultureInfo.InvariantCulture,
+                $"wrote {path}: {written:N0} samples at {rateHz:G6} Hz ({durationS:G6} s){scaleNote}; {string.Join(" + ", components.Select(c => c.Describe()))}"), "", "  ");
             return CliRun.Ok;
         }));
         return command;
