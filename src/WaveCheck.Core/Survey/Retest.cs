@@ -178,7 +178,8 @@ public static class Retest
     }
 
     /// <summary>The outcome: the verdict decides first (ok better than cannot-tell better than upgrade; an error
-    /// tells nothing and counts as cannot-tell), then the required type (a stronger one is worse).</summary>
+    /// tells nothing and counts as cannot-tell), then the required type (a stronger one is worse, and so is one that
+    /// was decided and no longer is).</summary>
     public static RetestOutcome Outcome(CircuitFigures before, CircuitFigures after)
     {
         ArgumentNullException.ThrowIfNull(before);
@@ -194,10 +195,14 @@ public static class Retest
             return verdict > 0 ? RetestOutcome.Worse : RetestOutcome.Better;
         }
 
+        // A type that was decided and now is not: less is known, which is never better.
+        if (after.RequiredType is null && before.RequiredType is not null)
+        {
+            return RetestOutcome.Worse;
+        }
+
         var demand = Demand(after).CompareTo(Demand(before));
-        return demand > 0 ? RetestOutcome.Worse : demand < 0 ? RetestOutcome.Better
-            : after.RequiredType is null && before.RequiredType is not null ? RetestOutcome.Worse
-            : RetestOutcome.Unchanged;
+        return demand > 0 ? RetestOutcome.Worse : demand < 0 ? RetestOutcome.Better : RetestOutcome.Unchanged;
     }
 
     private static int Rank(SurveyVerdict verdict) => verdict switch
