@@ -16,6 +16,11 @@ wavecheck synth switching:rms=40mA,freq=8kHz,motor=45Hz sine:rms=6mA,freq=150Hz 
 wavecheck synth composite:rms=12mA,motor=12Hz,switch=1kHz noise:rms=0.1mA,seed=2 \
   --duration 2s --rate 50kHz --format pcm16 -o "$here/c2-extractor-fan.wav"
 
+# C2 again, at start-up: the drive runs the fan up from standstill (5 Hz motor frequency) while its DC link settles,
+# with more leakage and 2 mA smooth DC: this state, not the running one, decides what C2 needs.
+wavecheck synth composite:rms=15mA,motor=5Hz,switch=1kHz dc:level=2mA noise:rms=0.1mA,seed=7 \
+  --duration 2s --rate 50kHz --format pcm16 -o "$here/c2-extractor-fan-start.wav"
+
 # C3: charging point, bay 1: 2.5 mA smooth DC of the on-board charger, the charger's filter capacitance (40 nF) and
 # damp in the yard cable's buried junction box (150 kΩ to earth); the logger's second channel recorded L to PE
 # (500 V full scale), so the leakage splits into its resistive and capacitive parts.

@@ -113,6 +113,28 @@ public sealed class SurveyCommandTests : IDisposable
         Assert.Equal("B", adequate["c5-heat-pump.wav"].GetProperty("minimumType").GetString());
         Assert.Equal("A", adequate["c6-office-dimmers.csv"].GetProperty("minimumType").GetString());
         Assert.Single(doc.RootElement.GetProperty("upstream").EnumerateArray());
+
+        // samples/README.md: C2 has two captures, running (composite current, type F) and start-up (smooth DC, type
+        // B); as one circuit it takes the stronger: type B, with both captures listed under it.
+        Assert.Equal("F", required["c2-extractor-fan.wav"]);
+        Assert.Equal("B", required["c2-extractor-fan-start.wav"]);
+        var circuits = doc.RootElement.GetProperty("circuits").EnumerateArray().ToList();
+        Assert.Equal(6, circuits.Count);
+        var c2 = circuits.Single(c => c.GetProperty("circuit").GetString()!.StartsWith("C2 ", StringComparison.Ordinal));
+        Assert.Equal("B", c2.GetProperty("requiredType").GetString());
+        Assert.Equal("upgrade", c2.GetProperty("verdict").GetString());
+        Assert.Equal(["running", "start-up"], c2.GetProperty("captures").EnumerateArray().Select(k => k.GetProperty("state").GetString()));
+        Assert.Contains("start-up: c2-extractor-fan-start.wav", stdout, StringComparison.Ordinal);
+
+        // The remedial schedule: every circuit but C3 (adequate, low risk) and the upstream device, safety first.
+        var actions = File.ReadAllLines(Path.Combine(output, "actions.csv"));
+        Assert.Equal("rank,priority,circuit,upstream,installedType,ratedResidualCurrentA,required,reason", actions[0]);
+        Assert.Equal(7, actions.Length);
+        Assert.DoesNotContain(actions, a => a.Contains("C3 charging point", StringComparison.Ordinal));
+        Assert.All(actions.Skip(1), a => Assert.Contains(",device-too-weak,", a, StringComparison.Ordinal));
+        var index = File.ReadAllText(Path.Combine(output, "index.html"));
+        Assert.Contains("<h2>Remedial schedule</h2>", index, StringComparison.Ordinal);
+        Assert.Contains("↳ start-up: <a href=\"reports/c2-extractor-fan-start.html\">", index, StringComparison.Ordinal);
     }
 
     [Theory]

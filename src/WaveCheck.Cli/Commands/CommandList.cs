@@ -10,6 +10,7 @@ internal static class CommandList
         yield return InfoCommand.Create();
         yield return AnalyzeCommand.Create();
         yield return SurveyCommand.Create();
+        yield return CompareCommand.Create();
         yield return SynthCommand.Create();
         yield return DemoCommand.Create();
     }

@@ -88,7 +88,7 @@ public static class UpstreamCheck
         var type = group.Device;
         var failed = new List<string>();
         var dcUnknown = new List<string>();
-        var needMore = new List<string>();
+        var needMore = new List<(string Name, DeviceType Type)>();
         var typeUnknown = new List<string>();
         double standing = 0, dc = 0;
         // Captures of one circuit are its operating states, recorded one after another: the circuit adds its worst
@@ -113,7 +113,16 @@ public static class UpstreamCheck
             var needed = row.RequiredType ?? row.MinimumType;
             if (needed > type)
             {
-                needMore.Add($"{Name(row)} needs type {needed.Value.ToTradeName()}");
+                // One entry per circuit, at the strongest type any of its captures needs.
+                var at = needMore.FindIndex(n => n.Name == Name(row));
+                if (at < 0)
+                {
+                    needMore.Add((Name(row), needed.Value));
+                }
+                else if (needed > needMore[at].Type)
+                {
+                    needMore[at] = (Name(row), needed.Value);
+                }
             }
             else if (row.RequiredType is null)
             {
@@ -155,7 +164,7 @@ public static class UpstreamCheck
         } + (blinded is not null ? missing : string.Empty);
         var typeText = mismatch switch
         {
-            true => $"{string.Join("; ", needMore.Distinct())}: residual current from such a circuit passes through the {deviceText} device, which may not detect it or may be blinded by it (practice).",
+            true => $"{string.Join("; ", needMore.Select(n => $"{n.Name} needs type {n.Type.ToTradeName()}"))}: residual current from such a circuit passes through the {deviceText} device, which may not detect it or may be blinded by it (practice).",
             false => $"No circuit needs a more capable type than the {deviceText} device.",
             null => $"No counted circuit is known to need more than type {type.ToTradeName()}, but "
                 + (typeUnknown.Count > 0 ? $"the required type is undetermined for {string.Join(", ", typeUnknown.Distinct())}." : "not every circuit was analysed."),
