@@ -4,7 +4,6 @@ namespace WaveCheck.Cli.Tests;
 
 /// <summary><c>wavecheck compare</c> end to end: two analyses, two surveys, and every kind of bad input (one stderr
 /// line, exit 2). The waveforms are the standards' test currents synthesised by <c>wavecheck synth</c>.</summary>
-[Collection(ConsoleCollection.Name)]
 public sealed class CompareCommandTests : IDisposable
 {
     private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));

@@ -1,5 +1,4 @@
 using System.CommandLine;
-using Spectre.Console;
 using WaveCheck.Core.Export;
 using WaveCheck.Core.Model;
 using WaveCheck.Core.Survey;
@@ -23,7 +22,7 @@ internal static class CompareCommand
         {
             before, after, html, json,
         };
-        command.SetAction(parse => CliRun.Guard(run =>
+        command.SetAction(parse => CliRun.Guard(parse, run =>
         {
             var beforePath = parse.GetValue(before)!;
             var afterPath = parse.GetValue(after)!;
@@ -64,13 +63,13 @@ internal static class CompareCommand
 
             if (jsonPath is not null)
             {
-                ResultJson.Write(jsonPath, comparison, run.Token, Console.Out);
+                ResultJson.Write(jsonPath, comparison, run.Token, run.Terminal.Out);
                 plan.MarkWritten("--json");
             }
 
             if (jsonPath != "-")
             {
-                Print(ConsoleOutput.Create(), comparison);
+                Print(new Screen(run.Terminal), comparison);
             }
 
             return CliRun.Ok;
@@ -78,34 +77,30 @@ internal static class CompareCommand
         return command;
     }
 
-    private static void Print(IAnsiConsole console, RetestComparison comparison)
+    private static void Print(Screen screen, RetestComparison comparison)
     {
-        var table = new Table().Border(ConsoleOutput.Plain ? TableBorder.Ascii : TableBorder.Rounded)
-            .Title(comparison.Site is { } site ? $"Retest: {site}" : "Retest");
-        foreach (var column in new[] { "circuit", "outcome", "required", "verdict", "worst-window RMS", "smooth DC", "nuisance margin" })
-        {
-            table.AddColumn(column);
-        }
-
+        var table = new TextTable(comparison.Site is { } site ? $"Retest: {site}" : "Retest",
+            new("circuit"), new("outcome"), new("required"), new("verdict"), new("worst-window RMS", Right: true),
+            new("smooth DC", Right: true), new("nuisance margin", Right: true));
         foreach (var change in comparison.Circuits)
         {
             table.AddRow(
-                new Text(change.Circuit + (change.Match == RetestMatch.File ? " (by file name)" : "")),
-                new Text(RetestWriter.OutcomeLabel(change.Outcome)),
-                new Text(RetestWriter.Pair(change, c => c.RequiredType?.ToTradeName() ?? (c.MinimumType is { } m ? $"≥ {m.ToTradeName()}" : "-"))),
-                new Text(RetestWriter.Pair(change, c => VerdictText.Of(c.Verdict))),
-                new Text(RetestWriter.Pair(change, c => Amps(c.WorstWindowRmsA))),
-                new Text(RetestWriter.Pair(change, c => Amps(c.SmoothDcA))),
-                new Text(RetestWriter.Pair(change, c => Amps(c.NuisanceMarginA))));
+                change.Circuit + (change.Match == RetestMatch.File ? " (by file name)" : ""),
+                RetestWriter.OutcomeLabel(change.Outcome),
+                RetestWriter.Pair(change, c => c.RequiredType?.ToTradeName() ?? (c.MinimumType is { } m ? $"at least {m.ToTradeName()}" : "-")),
+                RetestWriter.Pair(change, c => VerdictText.Of(c.Verdict)),
+                RetestWriter.Pair(change, c => Amps(c.WorstWindowRmsA)),
+                RetestWriter.Pair(change, c => Amps(c.SmoothDcA)),
+                RetestWriter.Pair(change, c => Amps(c.NuisanceMarginA)));
         }
 
-        console.Write(table);
+        screen.Table(table);
         foreach (var change in comparison.Circuits.Where(c => c.Outcome != RetestOutcome.Unchanged || c.Changes is not ["no change"]))
         {
-            console.WriteLine($"{change.Circuit}: {string.Join("; ", change.Changes)}");
+            screen.Paragraph(string.Join("; ", change.Changes), change.Circuit + ": ", "  ");
         }
 
-        console.WriteLine(RetestWriter.Tally(comparison.Circuits));
+        screen.Paragraph(RetestWriter.Tally(comparison.Circuits));
     }
 
     private static string Amps(double? amperes) => amperes is { } a ? Core.Text.CurrentText.WithUnit(a) : "-";

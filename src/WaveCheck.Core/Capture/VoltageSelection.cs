@@ -73,15 +73,15 @@ internal static class VoltageSelection
         for (var k = 0; k < indices.Count; k++)
         {
             var channel = channels[indices[k]];
-            if (residual.Contains(indices[k]))
-            {
-                throw fail(indices[k], $"channel '{channel.Name}' is named by {Setting.Ref(nameof(ImportOptions.VoltageChannels))} and also forms the residual current");
-            }
-
             if (channel.Quantity != ChannelQuantity.Voltage)
             {
                 throw fail(indices[k],
                     $"{Setting.Ref(nameof(ImportOptions.VoltageChannels))}: channel '{channel.Name}' is in '{channel.SourceUnit}', not a voltage (V, mV or kV)");
+            }
+
+            if (residual.Contains(indices[k]))
+            {
+                throw fail(indices[k], $"channel '{channel.Name}' is named by {Setting.Ref(nameof(ImportOptions.VoltageChannels))} and also forms the residual current");
             }
 
             factors[k] = blockFactor(indices[k]) * ratio;
