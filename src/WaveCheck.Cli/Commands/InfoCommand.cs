@@ -43,7 +43,8 @@ internal static class InfoCommand
             List<CaptureWarning> warnings = [.. source.Warnings, .. scan.Warnings];
             if (jsonPath is not null)
             {
-                ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings), run.Token, Console.Out);
+                ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings),
+                    ResultJson.TypeInfo<InfoReport>(CliJsonContext.Default), run.Token, Console.Out);
                 plan.MarkWritten("--json");
                 if (jsonPath == "-")
                 {
