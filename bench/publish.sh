@@ -28,6 +28,6 @@ for rid in ${RIDS:-linux-x64 win-x64}; do
         -p:PublishReadyToRun=true -p:IncludeNativeLibrariesForSelfExtract=true -o "$out" -v q -nologo
       ;;
   esac
-  rm -f "$out"/*.pdb "$out"/*.dbg
+  rm -f "$out"/*.pdb "$out"/*.dbg "$out"/*.xml
   echo "$rid: $out ($(du -sh "$out" | cut -f1))"
 done
