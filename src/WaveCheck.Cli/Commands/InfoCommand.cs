@@ -42,7 +42,8 @@ internal static class InfoCommand
             List<CaptureWarning> warnings = [.. source.Warnings, .. scan.Warnings];
             if (jsonPath is not null)
             {
-                ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings), run.Token, run.Terminal.Out);
+                ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings),
+                    ResultJson.TypeInfo<InfoReport>(CliJsonContext.Default), run.Token, run.Terminal.Out);
                 plan.MarkWritten("--json");
                 if (jsonPath == "-")
                 {

@@ -79,6 +79,13 @@ internal sealed record RiffLayout(long FormatOffset, int FormatBytes, long DataO
                 // A data chunk may claim more than the file holds: a recording cut short, read as far as it goes.
                 data = position + 8;
                 dataBytes = size;
+                if (size == uint.MaxValue)
+                {
+                    // 0xFFFFFFFF marks samples written as a stream of unknown length, and is the only way a RIFF file
+                    // holds more than 4 GiB of them (a day at 50 kS/s in PCM16 is 8.6 GB): they run to the end of the file.
+                    dataBytes = length - (position + 8);
+                    break;
+                }
             }
             else if (end > length)
             {

@@ -7,16 +7,14 @@ namespace WaveCheck.Core.Signal;
 /// value of each bin, so that the bins sum to the window's mean square (Parseval). Holds scratch: not thread-safe.
 /// </summary>
 /// <remarks>
-/// An even length is transformed as a complex sequence of half the length (even samples real, odd imaginary) and
-/// split afterwards, which halves the work; an odd length goes through the full complex DFT.
+/// One window's bins come from <see cref="RealFft"/> (an even length as a half-length complex transform and a split
+/// step); two windows of the same odd length share one complex transform (<see cref="PowerPair"/>).
 /// </remarks>
 public sealed class RealSpectrum
 {
-    private readonly ComplexDft _dft;
-    private readonly double[] _re;
-    private readonly double[] _im;
-    private readonly double[]? _twiddleRe;
-    private readonly double[]? _twiddleIm;
+    private readonly RealFft _fft;
+    private readonly double[] _binRe;
+    private readonly double[] _binIm;
     private ComplexDft? _pairDft;
     private double[]? _pairRe;
     private double[]? _pairIm;
@@ -31,23 +29,9 @@ public sealed class RealSpectrum
         }
 
         Length = length;
-        var even = length % 2 == 0;
-        var inner = even ? length / 2 : length;
-        _dft = new ComplexDft(inner);
-        _re = new double[inner];
-        _im = new double[inner];
-        if (even)
-        {
-            var half = length / 2;
-            _twiddleRe = new double[half + 1];
-            _twiddleIm = new double[half + 1];
-            for (var k = 0; k <= half; k++)
-            {
-                var angle = -2.0 * Math.PI * k / length;
-                _twiddleRe[k] = Math.Cos(angle);
-                _twiddleIm[k] = Math.Sin(angle);
-            }
-        }
+        _fft = new RealFft(length);
+        _binRe = new double[_fft.BinCount];
+        _binIm = new double[_fft.BinCount];
     }
 
     /// <summary>Samples per window.</summary>
@@ -76,7 +60,7 @@ public sealed class RealSpectrum
         var n = Length;
         var re = new Span<double>(_pairRe ??= new double[n]);
         var im = new Span<double>(_pairIm ??= new double[n]);
-        _pairDft ??= _twiddleRe is null ? _dft : new ComplexDft(n);
+        _pairDft ??= new ComplexDft(n);
         first.CopyTo(re);
         second.CopyTo(im);
         _pairDft.Forward(re, im);
@@ -105,47 +89,14 @@ public sealed class RealSpectrum
             throw new ArgumentException($"expected {Length} samples, got {samples.Length}", nameof(samples));
         }
 
-        var n = Length;
         var bins = BinCount;
-        var norm = 1.0 / ((double)n * n);
-        if (_twiddleRe is null)
+        var even = Length % 2 == 0;
+        var norm = 1.0 / ((double)Length * Length);
+        _fft.Forward(samples, _binRe, _binIm);
+        for (var k = 0; k < bins; k++)
         {
-            samples.CopyTo(_re);
-            Array.Clear(_im);
-            _dft.Forward(_re, _im);
-            power[0] = ((_re[0] * _re[0]) + (_im[0] * _im[0])) * norm;
-            for (var k = 1; k < bins; k++)
-            {
-                power[k] = 2 * ((_re[k] * _re[k]) + (_im[k] * _im[k])) * norm;
-            }
-
-            return;
-        }
-
-        var h = n / 2;
-        for (var m = 0; m < h; m++)
-        {
-            _re[m] = samples[2 * m];
-            _im[m] = samples[(2 * m) + 1];
-        }
-
-        _dft.Forward(_re, _im);
-        var tr = _twiddleRe;
-        var ti = _twiddleIm!;
-        for (var k = 0; k <= h; k++)
-        {
-            // Z index k mod h and (h − k) mod h, without a division per bin.
-            var a = k == h ? 0 : k;
-            var b = k == 0 ? 0 : h - k;
-            // E = (Z_a + conj Z_b)/2, O = (Z_a - conj Z_b)/(2i), X = E + W^k O.
-            var er = 0.5 * (_re[a] + _re[b]);
-            var ei = 0.5 * (_im[a] - _im[b]);
-            var or = 0.5 * (_im[a] + _im[b]);
-            var oi = -0.5 * (_re[a] - _re[b]);
-            var xr = er + ((tr[k] * or) - (ti[k] * oi));
-            var xi = ei + ((tr[k] * oi) + (ti[k] * or));
-            var p = ((xr * xr) + (xi * xi)) * norm;
-            power[k] = k == 0 || k == h ? p : 2 * p;
+            var p = ((_binRe[k] * _binRe[k]) + (_binIm[k] * _binIm[k])) * norm;
+            power[k] = k == 0 || (even && k == bins - 1) ? p : 2 * p;
         }
     }
 }

@@ -98,4 +98,30 @@ public sealed class RiffLayoutTests : IDisposable
         var layout = RiffLayout.Scan(stream, path);
         Assert.Equal(20, layout.DataClaimedBytes); // 10 frames of 2 bytes
     }
+
+    [Fact]
+    public void A_data_size_of_all_ones_runs_to_the_end_of_the_file()
+    {
+        // 0xFFFFFFFF is what streaming writers put in a size they cannot know (and the only way past 4 GiB): the
+        // samples run to the end of the file, even when they look like a chunk header (common practice, no source).
+        var samples = new byte[] { 0, 0, 0, 64, (byte)'L', (byte)'I', (byte)'S', (byte)'T', 0, 192 };
+        byte[] body =
+        [
+            .. "WAVE"u8,
+            .. "fmt "u8, 16, 0, 0, 0, 1, 0, 1, 0, 0x40, 0x1F, 0, 0, 0x80, 0x3E, 0, 0, 2, 0, 16, 0,
+            .. "data"u8, 0xFF, 0xFF, 0xFF, 0xFF, .. samples,
+        ];
+        var path = _folder.File("stream.wav");
+        File.WriteAllBytes(path, [.. "RIFF"u8, 0xFF, 0xFF, 0xFF, 0xFF, .. body]);
+        using (var stream = File.OpenRead(path))
+        {
+            var layout = RiffLayout.Scan(stream, path);
+            Assert.Equal(samples.Length, layout.DataClaimedBytes);
+        }
+
+        // 16-bit codes 0, 0x4000, 0x494C, 0x5453, 0xC000 of full scale 1 A (closed form: code / 32768), no warning.
+        using var source = CaptureOpener.Open(path, new ImportOptions { ScaleA = 1 });
+        Assert.Equal([0, 0.5, 0x494C / 32768.0, 0x5453 / 32768.0, -0.5], Signals.ReadAll(source).Residual);
+        Assert.Empty(source.Warnings);
+    }
 }
