@@ -23,7 +23,7 @@ internal static class DemoCommand
             var site = SiteConfigReader.Read(siteFile);
             var outputDirectory = parse.GetValue(output)!;
             var document = SurveyCommand.Run(site.Jobs(), site.Upstream, site.Site, siteFile, outputDirectory, parquet: false,
-                parse.GetValue(quiet), run);
+                parse.GetValue(quiet), run, job => site.IdentityOf(job.File, job.Settings.Circuit));
             Console.Out.WriteLine(TerminalText.Clean(
                 $"Open {Path.GetFullPath(Path.Combine(outputDirectory, "index.html"))} in a browser; each circuit links its report."));
             return SurveyCommand.Exit(document, (false, false, false));
