@@ -177,12 +177,14 @@ public static class SpectrumPlot
             var text = $"{ToneLabel(marks[i].Tone.FrequencyHz)}: {CurrentText.WithUnit(marks[i].Tone.RmsA)}";
             var size = placer.Measure(text, LabelFontSize, new OxyThickness(2, 1, 2, 1));
             var p = points[i];
+            // Over its own marker first (centred, then shifted either way), a row higher at a time, then level with
+            // it and below; never across another tone's line, where it would read as that tone's label.
             var candidates = new List<ScreenPoint>();
+            double[] shares = [0.5, 0.6, 0.4, 0.7, 0.3, 0.8, 0.2, 0.9, 0.1, 1.0, 0.0];
             for (var row = 0; row < 4; row++)
             {
                 var top = p.Y - 8 - size.Height - (row * (size.Height + 3));
-                candidates.Add(new ScreenPoint(p.X + 4, top));
-                candidates.Add(new ScreenPoint(p.X - 4 - size.Width, top));
+                candidates.AddRange(shares.Select(f => new ScreenPoint(p.X - (f * size.Width), top)));
             }
 
             candidates.Add(new ScreenPoint(p.X + 9, p.Y - (size.Height / 2)));
@@ -190,9 +192,11 @@ public static class SpectrumPlot
             for (var row = 0; row < 8; row++)
             {
                 var top = p.Y + 8 + (row * (size.Height + 3));
-                candidates.Add(new ScreenPoint(p.X + 4, top));
-                candidates.Add(new ScreenPoint(p.X - 4 - size.Width, top));
+                candidates.AddRange(shares.Select(f => new ScreenPoint(p.X - (f * size.Width), top)));
             }
+
+            var others = points.Where((_, j) => j != i).Select(o => o.X).ToList();
+            candidates.RemoveAll(c => others.Any(x => x > c.X - 8 && x < c.X + size.Width + 8));
             placer.Place(text, LabelFontSize, candidates, OxyColor.FromAColor(210, OxyColors.White));
         }
     }

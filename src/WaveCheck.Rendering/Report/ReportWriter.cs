@@ -138,7 +138,11 @@ public static class ReportWriter
         }
         else if (identity.StatedRecordedAt is DateTimeOffset stated)
         {
-            html.Text(Timestamp(stated)).Raw(" <span class=\"from\">(as stated by the user; the file does not say)</span>");
+            // A date stated without a time reads as a date, not as midnight UTC.
+            var text = stated.TimeOfDay == TimeSpan.Zero && stated.Offset == TimeSpan.Zero
+                ? stated.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)
+                : Timestamp(stated);
+            html.Text(text).Raw(" <span class=\"from\">(as stated by the user; the file does not say)</span>");
         }
         else
         {

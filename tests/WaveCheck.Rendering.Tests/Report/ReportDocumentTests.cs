@@ -69,7 +69,7 @@ public sealed class ReportDocumentTests
         var stated = Bare with { Identity = new ReportIdentity { StatedRecordedAt = new DateTimeOffset(2026, 11, 20, 0, 0, 0, TimeSpan.Zero) } };
         var fromFile = analysis with { Capture = analysis.Capture with { StartTime = new DateTimeOffset(2026, 11, 19, 9, 14, 0, TimeSpan.Zero) } };
 
-        Assert.Contains("2026-11-20 00:00:00 +00:00 <span class=\"from\">(as stated by the user", ReportWriter.Render(analysis, null, stated), StringComparison.Ordinal);
+        Assert.Contains("2026-11-20 <span class=\"from\">(as stated by the user", ReportWriter.Render(analysis, null, stated), StringComparison.Ordinal);
         Assert.Contains("2026-11-19 09:14:00 +00:00 <span class=\"from\">(from the capture file)", ReportWriter.Render(fromFile, null, stated), StringComparison.Ordinal);
     }
 
