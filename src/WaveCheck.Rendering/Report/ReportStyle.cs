@@ -92,8 +92,12 @@ internal static class ReportStyle
           table { min-width: 0; width: 100%; font-size: 12px; }
           tbody th { min-width: 0; width: 40%; }
           table.identity th { width: 40%; }
-          th, td { padding: 2px 4px; overflow-wrap: anywhere; }
-          td.num, th.num, td.verdict-cell { white-space: normal; }
+          th, td { padding: 2px 4px; }
+          table.identity td, tbody th { overflow-wrap: anywhere; }
+          /* A data table of several columns scrolls inside itself: words are not broken letter by letter, and the
+             page never scrolls sideways. */
+          table:has(> thead):not(.signoff) { display: block; overflow-x: auto; max-width: 100%; }
+          table:has(> thead):not(.signoff) td:last-child { min-width: 15em; }
           .blank { min-width: 6em; }
           .verdict { padding: 8px 10px; }
           .verdict .required { font-size: 18px; }
