@@ -56,6 +56,7 @@ internal static class AnalyzeCommand
         command.Options.Add(touch);
         command.Options.Add(details);
         outputs.AddTo(command);
+        outputs.AddIdentityTo(command);
         command.SetAction(parse => CliRun.Guard(parse, run =>
         {
             var import = imports.Read(parse);
@@ -75,6 +76,7 @@ internal static class AnalyzeCommand
             var csvPath = parse.GetValue(windowsCsv);
             var plotsDir = parse.GetValue(outputs.Plots);
             var reportPath = parse.GetValue(outputs.Report);
+            var pdfPath = parse.GetValue(outputs.Pdf);
             var path = parse.GetValue(file)!;
 
             var plan = new OutputPlan();
@@ -99,7 +101,18 @@ internal static class AnalyzeCommand
                 plan.AddOutputFile(reportPath, "--report");
             }
 
+            if (pdfPath is not null)
+            {
+                plan.AddOutputFile(pdfPath, "--pdf");
+            }
+
             plan.Check();
+            if (pdfPath is not null && PdfPrinter.FindBrowser() is null)
+            {
+                // Said before the analysis, so that nothing is written for a run that cannot finish.
+                throw new UserInputException($"--pdf {pdfPath}: {PdfPrinter.InstallHint}");
+            }
+
             run.Plan = plan;
             var token = run.Token;
 
@@ -113,7 +126,11 @@ internal static class AnalyzeCommand
                 plan.MarkWritten("--windows-csv");
             }
 
-            var result = evaluation.Analysis;
+            // The report's identity travels into the JSON too, with the capture's digest, so a filed report and its
+            // analysis can be matched to the capture.
+            var result = jsonPath is null && reportPath is null && pdfPath is null
+                ? evaluation.Analysis
+                : evaluation.Analysis with { Identity = CaptureDigest.WithDigest(outputs.ReadIdentity(parse), path, token) };
             if (jsonPath is not null)
             {
                 ResultJson.Write(jsonPath, result, token, run.Terminal.Out);
@@ -127,13 +144,25 @@ internal static class AnalyzeCommand
                 plan.MarkWritten("--plots");
             }
 
-            if (reportPath is not null)
+            if (reportPath is not null || pdfPath is not null)
             {
                 token.ThrowIfCancellationRequested();
-                ReportWriter.Write(reportPath, result, evaluation.Assessment, new ReportContext(
+                var html = ReportWriter.Render(result, evaluation.Assessment, new ReportContext(
                     parse.GetValue(outputs.Site), parse.GetValue(outputs.Circuit), parse.GetValue(outputs.Note),
-                    DateTimeOffset.Now, result.ToolVersion));
-                plan.MarkWritten("--report");
+                    DateTimeOffset.Now, result.ToolVersion)
+                { Identity = result.Identity!, Paper = parse.GetValue(outputs.Paper) });
+                if (reportPath is not null)
+                {
+                    AtomicFile.WriteText(reportPath, html, token);
+                    plan.MarkWritten("--report");
+                }
+
+                if (pdfPath is not null)
+                {
+                    var browser = PdfPrinter.Print(html, pdfPath, token);
+                    plan.MarkWritten("--pdf");
+                    Console.Error.WriteLine(TerminalText.Clean($"PDF printed with {browser}: {pdfPath}"));
+                }
             }
 
             if (jsonPath != "-")

@@ -23,7 +23,7 @@ internal static class DemoCommand
             var site = SiteConfigReader.Read(siteFile);
             var outputDirectory = parse.GetValue(output)!;
             var document = SurveyCommand.Run(site.Jobs(), site.Upstream, site.Site, siteFile, outputDirectory, parquet: false,
-                parse.GetValue(quiet), run);
+                parse.GetValue(quiet), run, identityOf: job => site.IdentityOf(job.File, job.Settings.Circuit));
             new Screen(run.Terminal).Paragraph(
                 $"Open {Path.GetFullPath(Path.Combine(outputDirectory, "index.html"))} in a browser; each circuit links its report.", "", "  ");
             return SurveyCommand.Exit(run.Terminal, document, Core.Model.Finding.None);

@@ -68,9 +68,11 @@ internal static class SurveyCommand
             IReadOnlyList<SurveyJob> jobs;
             IReadOnlyList<UpstreamGroup> upstream = [];
             var site = "unnamed site";
+            Func<SurveyJob, ReportIdentity>? identityOf = null;
             if (configPath is not null)
             {
                 var siteConfig = SiteConfigReader.Read(configPath);
+                identityOf = job => siteConfig.IdentityOf(job.File, job.Settings.Circuit);
                 jobs = siteConfig.Jobs(overrides);
                 upstream = siteConfig.Upstream;
                 site = siteConfig.Site;
@@ -103,7 +105,7 @@ internal static class SurveyCommand
                     (overrides.Regime is not null, nameof(AssessmentOptions.Regime)),
                 }.Where(s => s.Given).Select(s => s.Property), StringComparer.Ordinal);
             var document = Run(jobs, upstream, site, configPath, parse.GetValue(output)!, parse.GetValue(parquet), parse.GetValue(quiet), run,
-                SettingFlags.ForSurvey(configPath is not null, onCommandLine));
+                SettingFlags.ForSurvey(configPath is not null, onCommandLine), identityOf);
             return Exit(run.Terminal, document, fail);
         }));
         return command;
@@ -111,7 +113,8 @@ internal static class SurveyCommand
 
     /// <summary>Runs the survey with reports and the index; prints the summary. Shared with <c>demo</c>.</summary>
     internal static SurveyDocument Run(IReadOnlyList<SurveyJob> jobs, IReadOnlyList<UpstreamGroup> upstream, string site,
-        string? siteFile, string outputDirectory, bool parquet, bool quiet, RunContext run, Func<string, string>? settingName = null)
+        string? siteFile, string outputDirectory, bool parquet, bool quiet, RunContext run, Func<string, string>? settingName = null,
+        Func<SurveyJob, ReportIdentity>? identityOf = null)
     {
         run.Describe = () => $"nothing written: --output {outputDirectory} is as it was, and no temporary or staging files are left";
         var options = new SiteSurveyOptions
@@ -124,7 +127,10 @@ internal static class SurveyCommand
             Parquet = parquet,
             WriteReport = (job, evaluation, path) =>
                 ReportWriter.Write(path, evaluation.Analysis, evaluation.Assessment,
-                    new ReportContext(site, job.Settings.Circuit, null, DateTimeOffset.Now, evaluation.Analysis.ToolVersion)),
+                    new ReportContext(site, job.Settings.Circuit, null, DateTimeOffset.Now, evaluation.Analysis.ToolVersion)
+                    {
+                        Identity = CaptureDigest.WithDigest(identityOf?.Invoke(job) ?? ReportIdentity.Empty, job.File, run.Token),
+                    }),
             WriteIndex = (document, path) => SurveyIndexWriter.Write(path, document),
         };
         SurveyDocument document;

@@ -72,6 +72,10 @@ public sealed record AnalysisResult
 
     /// <summary>The verdict on this capture (JSON <c>assessment</c>); null when only measured.</summary>
     public AssessmentResult? Assessment { get; init; }
+
+    /// <summary>Report number, who and where, instruments and the capture's content digest (JSON <c>identity</c>);
+    /// null when the run made no report identity.</summary>
+    public ReportIdentity? Identity { get; init; }
 }
 
 /// <summary>Mains frequency.</summary>

@@ -24,6 +24,19 @@ public sealed record SiteConfig
     /// <summary>Upstream devices, each with the captures of the circuits it protects.</summary>
     public required IReadOnlyList<UpstreamGroup> Upstream { get; init; }
 
+    /// <summary>Client, address, report number, operator, instruments: what every report of the site states.</summary>
+    public ReportIdentity Identity { get; init; } = ReportIdentity.Empty;
+
+    /// <summary>The identity of the report on <paramref name="capturePath"/>: its entry's own keys over the site's,
+    /// with the circuit as the entry names it.</summary>
+    /// <param name="capturePath">A capture's resolved path (<see cref="SiteCapture.Path"/>).</param>
+    /// <param name="circuit">The circuit as the job's settings name it; null: not given.</param>
+    public ReportIdentity IdentityOf(string capturePath, string? circuit)
+    {
+        var own = Captures.FirstOrDefault(c => c.Path == capturePath)?.Identity ?? ReportIdentity.Empty;
+        return (own with { Circuit = string.IsNullOrWhiteSpace(circuit) ? null : circuit.Trim() }).Over(Identity);
+    }
+
     /// <summary>One job per capture, settings merged in this order (later wins): built-in defaults, the site file's
     /// <c>defaults</c>, the capture's entry, then <paramref name="overrides"/> (the command line).</summary>
     /// <param name="overrides">Values from the command line that apply to every capture; null for none.</param>
@@ -50,7 +63,11 @@ public sealed record SiteConfig
 /// <param name="File">The file as written in the site file (relative to the site file's folder, or absolute).</param>
 /// <param name="Path">The file resolved against the site file's folder: what jobs open and rows carry.</param>
 /// <param name="Settings">What the entry states.</param>
-public sealed record SiteCapture(string File, string Path, CaptureSettingsPatch Settings);
+public sealed record SiteCapture(string File, string Path, CaptureSettingsPatch Settings)
+{
+    /// <summary>What the entry states of the report's identity (its own report number, recording date, product test).</summary>
+    public ReportIdentity Identity { get; init; } = ReportIdentity.Empty;
+}
 
 /// <summary>An upstream device shared by several circuits (a sub-board RCD, a main switch RCD).</summary>
 /// <param name="Name">For a person, e.g. <c>Q2 sub-board RCD</c>.</param>

@@ -27,6 +27,10 @@ namespace WaveCheck.Core.Survey;
 /// Settings keys: <c>rated</c>, <c>device</c> (a type, or a type with <c>+RDC-DD</c>), <c>sensor</c> (dc, ac, unknown),
 /// <c>regime</c> (iec, na), <c>ev</c>, <c>chargerDcDetection</c> (the charging equipment detects 6 mA DC itself),
 /// <c>scale</c>, <c>sensitivity</c>, <c>range</c>, <c>rate</c>, <c>channel</c>, <c>sum</c>; a null value means "not stated".
+/// Identity keys (docs/report.md) at the top: <c>client</c>, <c>address</c>, <c>reportNumber</c>, <c>operator</c>,
+/// <c>instrument</c>, <c>instrumentSerial</c>, <c>clamp</c>, <c>clampSerial</c>, <c>calibrationDue</c> (yyyy-mm-dd),
+/// <c>date</c> (when recorded, where the file does not say), <c>productTest</c>; a capture entry may state its own
+/// <c>reportNumber</c>, <c>date</c> and <c>productTest</c>.
 /// Upstream <c>circuits</c> name captures by their <c>file</c> exactly as written in <c>captures</c>, or circuits by
 /// their name; either way every capture of that circuit is behind the device.
 /// </remarks>
@@ -39,7 +43,14 @@ public static class SiteConfigReader
     /// <summary>Longest text (a value or a key), UTF-8 bytes: 4096, the longest path Linux accepts.</summary>
     public const int MaxTextBytes = 4096;
 
-    private static readonly string[] TopKeys = ["site", "defaults", "captures", "upstream"];
+    /// <summary>Keys naming who, where and with what (docs/report.md): the report's identity block.</summary>
+    private static readonly string[] IdentityKeys =
+        ["client", "address", "reportNumber", "operator", "instrument", "instrumentSerial", "clamp", "clampSerial", "calibrationDue", "date", "productTest"];
+
+    /// <summary>Identity keys a capture entry may state for itself (its own report number, recording date, product test).</summary>
+    private static readonly string[] CaptureIdentityKeys = ["reportNumber", "date", "productTest"];
+
+    private static readonly string[] TopKeys = ["site", "defaults", "captures", "upstream", .. IdentityKeys];
 
     private static readonly string[] SettingKeys =
         ["rated", "device", "sensor", "regime", "ev", "chargerDcDetection", "scale", "sensitivity", "range", "rate", "channel", "sum", "voltage", "voltageScale"];
@@ -66,7 +77,7 @@ public static class SiteConfigReader
         _ => null,
     } is { } key ? $"the site file's \"{key}\"" : null;
 
-    private static readonly string[] CaptureKeys = ["file", "circuit", "state", .. SettingKeys];
+    private static readonly string[] CaptureKeys = ["file", "circuit", "state", .. SettingKeys, .. CaptureIdentityKeys];
 
     private static readonly string[] UpstreamKeys = ["name", "device", "rated", "circuits"];
 
@@ -346,11 +357,13 @@ public static class SiteConfigReader
             var defaults = new CaptureSettingsPatch();
             Node? captures = null;
             Node? upstream = null;
+            var identity = ReadIdentity(root, IdentityKeys);
             foreach (var (key, keyNode, value) in root.Members!)
             {
                 switch (key)
                 {
                     case "site": site = OptionalString(value, key); break;
+                    case var _ when Array.IndexOf(IdentityKeys, key) >= 0: break;
                     case "defaults":
                         RequireKind(value, JsonTokenType.StartObject, "an object of settings such as { \"rated\": \"30mA\" }");
                         defaults = ReadSettings(value, SettingKeys, "defaults");
@@ -376,8 +389,54 @@ public static class SiteConfigReader
                 Defaults = defaults,
                 Captures = captureList,
                 Upstream = groups,
+                Identity = identity with { Site = string.IsNullOrWhiteSpace(site) ? null : site.Trim() },
             };
         }
+
+        /// <summary>The identity keys of <paramref name="item"/> among <paramref name="keys"/>; text values trimmed,
+        /// blank text as not given.</summary>
+        private ReportIdentity ReadIdentity(Node item, string[] keys)
+        {
+            var identity = ReportIdentity.Empty;
+            foreach (var (key, _, value) in item.Members!)
+            {
+                if (Array.IndexOf(keys, key) < 0)
+                {
+                    continue;
+                }
+
+                identity = key switch
+                {
+                    "client" => identity with { Client = IdentityText(value, key) },
+                    "address" => identity with { SiteAddress = IdentityText(value, key) },
+                    "reportNumber" => identity with { ReportNumber = IdentityText(value, key) },
+                    "operator" => identity with { Operator = IdentityText(value, key) },
+                    "instrument" => identity with { Instrument = IdentityText(value, key) },
+                    "instrumentSerial" => identity with { InstrumentSerial = IdentityText(value, key) },
+                    "clamp" => identity with { Clamp = IdentityText(value, key) },
+                    "clampSerial" => identity with { ClampSerial = IdentityText(value, key) },
+                    "calibrationDue" => identity with { CalibrationDue = DateOf(value, key) },
+                    "date" => identity with { StatedRecordedAt = TimeOf(value, key) },
+                    "productTest" => identity with { ProductTest = BoolOf(value, key) ?? false },
+                    _ => identity,
+                };
+            }
+
+            return identity;
+        }
+
+        private string? IdentityText(Node value, string key) => OptionalString(value, key) is { } text && !string.IsNullOrWhiteSpace(text) ? text.Trim() : null;
+
+        private DateOnly? DateOf(Node value, string key) =>
+            OptionalString(value, key) is not { } text ? null
+            : DateOnly.TryParseExact(text.Trim(), "yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture, System.Globalization.DateTimeStyles.None, out var date) ? date
+            : throw Error(value, $"\"{key}\": cannot use \"{text}\": expected a date such as \"2027-03-31\" (year-month-day)");
+
+        private DateTimeOffset? TimeOf(Node value, string key) =>
+            OptionalString(value, key) is not { } text ? null
+            : DateTimeOffset.TryParse(text.Trim(), System.Globalization.CultureInfo.InvariantCulture,
+                System.Globalization.DateTimeStyles.AssumeUniversal, out var time) && text.Trim().Length >= 10 ? time
+            : throw Error(value, $"\"{key}\": cannot use \"{text}\": expected a date or date and time such as \"2026-11-20\" or \"2026-11-20T09:14:00Z\"");
 
         private List<SiteCapture> ReadCaptures(Node list)
         {
@@ -403,7 +462,7 @@ public static class SiteConfigReader
 
                 byPath.Add(full, fileNode);
                 var settings = ReadSettings(item, CaptureKeys, "a capture entry");
-                result.Add(new SiteCapture(file, full, settings));
+                result.Add(new SiteCapture(file, full, settings) { Identity = ReadIdentity(item, CaptureIdentityKeys) });
             }
 
             return result;
@@ -554,6 +613,7 @@ public static class SiteConfigReader
                 patch = key switch
                 {
                     "file" => patch,
+                    "reportNumber" or "date" or "productTest" => patch,
                     "circuit" => patch with { Circuit = OptionalString(value, key) },
                     "state" => patch with { State = OptionalString(value, key) },
                     "rated" => patch with { RatedResidualCurrentA = RatedOf(value) },

@@ -19,7 +19,9 @@ public static class CurrentText
         var mA = amperes * 1000.0;
         var magnitude = Math.Abs(mA);
         var format = magnitude >= 100 ? "0" : magnitude >= 10 ? "0.0" : magnitude >= 1 ? "0.00" : "0.000";
-        return mA.ToString(format, CultureInfo.InvariantCulture);
+        var text = mA.ToString(format, CultureInfo.InvariantCulture);
+        // A tiny negative value rounds to "-0.000": a sign on zero says nothing and reads as a fault.
+        return text.StartsWith('-') && text.AsSpan(1).Trim("0.").IsEmpty ? text[1..] : text;
     }
 
     /// <summary>Formats a current given in amperes with its unit, e.g. <c>12.3 mA</c>.</summary>

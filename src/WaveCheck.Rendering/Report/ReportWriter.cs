@@ -33,13 +33,6 @@ public static class ReportWriter
     /// <summary>Cautions stated with every report, whatever the assessment adds.</summary>
     public static IReadOnlyList<string> StandingCautions => Core.Assessment.StandingCautions.All;
 
-    /// <summary>Share of the largest value below which harmonic and band rows are left out of the tables
-    /// (engineering choice: 0.1 % keeps every row a reader could act on).</summary>
-    public const double NegligibleShare = 1e-3;
-
-    /// <summary>Absolute value below which table rows are left out, amperes (1 µA: engineering choice, below any residual current of interest).</summary>
-    public const double NegligibleA = 1e-6;
-
     /// <summary>Most event rows listed.</summary>
     public const int MaxEventRows = 200;
 
@@ -61,15 +54,16 @@ public static class ReportWriter
         ArgumentNullException.ThrowIfNull(context);
         var html = new HtmlWriter();
         var fileName = Path.GetFileName(analysis.Capture.FilePath);
+        var identity = context.EffectiveIdentity;
         html.Raw("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
         html.Raw("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
         html.Raw("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">\n");
-        html.Raw("<title>").Text($"Residual-current report: {fileName}").Raw("</title>\n<style>\n").Raw(ReportStyle.Css).Raw("\n</style>\n</head>\n<body>\n");
+        html.Raw("<title>").Text($"Residual-current report: {fileName}").Raw("</title>\n<style>\n").Raw(ReportStyle.Css(context.Paper, RunningHeader(identity))).Raw("\n</style>\n</head>\n<body>\n");
 
-        Header(html, analysis, context);
+        Header(html, analysis, context, identity);
         if (assessment is null)
         {
-            html.Raw("<section id=\"verdict\"><div class=\"verdict\"><p class=\"required\">No device assessment</p>");
+            html.Raw("<section id=\"verdict\"><div class=\"verdict\"><p class=\"outcome cannot-tell\">? Cannot tell: not assessed</p><p class=\"required\">No device assessment</p>");
             html.Raw("<p class=\"headline\">This report shows the analysis only; no RCD type was assessed.</p></div></section>\n");
         }
         else
@@ -77,7 +71,7 @@ public static class ReportWriter
             Verdict(html, assessment);
             ClassTable(html, assessment);
             TypeTable(html, assessment);
-            DeviceMargins(html, analysis, assessment);
+            DeviceMargins(html, analysis, assessment, identity.ProductTest);
             TripReplaySection.Write(html, assessment);
         }
 
@@ -86,6 +80,7 @@ public static class ReportWriter
         Figures(html, analysis);
         Limitations(html, analysis);
         Cautions(html, assessment);
+        SignOff(html, identity);
         Methods(html, analysis, context);
         if (assessment is not null)
         {
@@ -106,6 +101,15 @@ public static class ReportWriter
         null => "? cannot be determined",
     };
 
+    /// <summary>The verdict box's outcome at a glance: its CSS class and its words with a symbol (never colour alone).</summary>
+    internal static (string CssClass, string Text) Outcome(AssessmentResult a) => (a.InstalledType, a.InstalledAdequate) switch
+    {
+        (not null, true) => ("adequate", "✔ Adequate: the installed device suits this circuit"),
+        (not null, false) => ("not-adequate", "✘ Not adequate: the installed device does not suit this circuit"),
+        (not null, null) => ("cannot-tell", "? Cannot tell whether the installed device suits this circuit"),
+        _ => ("cannot-tell", "? Cannot tell: no installed device was stated (--device)"),
+    };
+
     /// <summary>Words and a symbol for the installed device's adequacy.</summary>
     public static string AdequacyText(bool? adequate) => adequate switch
     {
@@ -114,21 +118,69 @@ public static class ReportWriter
         null => "? cannot be determined",
     };
 
-    private static void Header(HtmlWriter html, AnalysisResult analysis, ReportContext context)
+    /// <summary>The line at the top of every printed page: site, circuit, report number.</summary>
+    internal static string RunningHeader(ReportIdentity identity) =>
+        $"{identity.Site ?? "site not given"} · {identity.Circuit ?? "circuit not given"} · report {identity.ReportNumber ?? "no number given"}";
+
+    private static void Header(HtmlWriter html, AnalysisResult analysis, ReportContext context, ReportIdentity identity)
     {
         var capture = analysis.Capture;
-        html.Raw("<header>\n<h1>Residual-current assessment</h1>\n<p class=\"muted\">")
-            .Text($"Capture {Path.GetFileName(capture.FilePath)}, {Seconds(capture.DurationS)} at {Hertz(capture.SampleRateHz)}")
-            .Raw("</p>\n<dl class=\"facts\">\n");
-        Fact(html, "Site", Given(context.Site));
-        Fact(html, "Circuit", Given(context.Circuit));
-        Fact(html, "Capture file", capture.FilePath);
+        html.Raw("<header>\n<h1>Residual-current assessment</h1>\n<p class=\"doc-no\"><strong>Report number:</strong> ");
+        Filled(html, identity.ReportNumber);
+        html.Raw(" &nbsp; <strong>Capture digest:</strong> ").Text(identity.CaptureDigest ?? "not computed").Raw("</p>\n");
+        html.Raw("<table class=\"identity\"><tbody>\n");
+        IdentityRow(html, "Client", identity.Client);
+        IdentityRow(html, "Site", identity.Site);
+        IdentityRow(html, "Site address", identity.SiteAddress);
+        IdentityRow(html, "Circuit", identity.Circuit);
+        html.Raw("<tr><th scope=\"row\">Recorded</th><td>");
+        if (capture.StartTime is DateTimeOffset start)
+        {
+            html.Text(Timestamp(start)).Raw(" <span class=\"from\">(from the capture file)</span>");
+        }
+        else if (identity.StatedRecordedAt is DateTimeOffset stated)
+        {
+            // A date stated without a time reads as a date, not as midnight UTC.
+            var text = stated.TimeOfDay == TimeSpan.Zero && stated.Offset == TimeSpan.Zero
+                ? stated.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)
+                : Timestamp(stated);
+            html.Text(text).Raw(" <span class=\"from\">(as stated by the user; the file does not say)</span>");
+        }
+        else
+        {
+            html.Raw("<span class=\"blank\" aria-label=\"to be filled in\"></span> <span class=\"from\">(the file does not say)</span>");
+        }
+
+        html.Raw("</td></tr>\n");
+        IdentityRow(html, "Operator", identity.Operator);
+        IdentityRow(html, "Instrument", Joined(identity.Instrument, identity.InstrumentSerial));
+        IdentityRow(html, "Clamp / sensor", Joined(identity.Clamp, identity.ClampSerial));
+        html.Raw("<tr><th scope=\"row\">Calibration due</th><td>");
+        if (identity.CalibrationDue is DateOnly due)
+        {
+            html.Text(due.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
+            var when = capture.StartTime ?? identity.StatedRecordedAt ?? context.GeneratedAt;
+            if (due < DateOnly.FromDateTime(when.Date))
+            {
+                html.Raw(" <strong>").Text("✘ past due on the day of the recording: the figures rest on an instrument out of calibration").Raw("</strong>");
+            }
+        }
+        else
+        {
+            html.Raw("<span class=\"blank\" aria-label=\"to be filled in\"></span>");
+        }
+
+        html.Raw("</td></tr>\n");
+        IdentityRow(html, "Capture file", Path.GetFileName(capture.FilePath));
+        IdentityRow(html, "Capture digest", identity.CaptureDigest is { } digest
+            ? $"{digest} (first {CaptureDigest.ShortLength} hex digits of the SHA-256 of {string.Join(" + ", identity.DigestFiles)})"
+            : null);
+        html.Raw("</tbody></table>\n<dl class=\"facts\">\n");
         Fact(html, "Format", $"{capture.Format}: {capture.Encoding}");
         Fact(html, "Residual current", capture.ResidualSource);
         Fact(html, "Calibration", capture.Calibration.Source);
         Fact(html, "Sample rate", Hertz(capture.SampleRateHz) + (capture.MeasuredSampleRateHz is double m ? $" (measured {Hertz(m)})" : string.Empty));
         Fact(html, "Duration", $"{Seconds(capture.DurationS)} ({capture.SampleCount.ToString(CultureInfo.InvariantCulture)} samples{(capture.SampleCountExact ? string.Empty : ", estimated")})");
-        Fact(html, "Recorded", capture.StartTime is DateTimeOffset start ? Timestamp(start) : "not stated in the file");
         Fact(html, "Sensor coupling", CouplingText(capture.SensorCoupling));
         Fact(html, "Mains", $"{Hertz(analysis.Mains.FrequencyHz)} ({analysis.Mains.Source}; {Hertz(analysis.Mains.MinHz)} to {Hertz(analysis.Mains.MaxHz)})");
         Fact(html, "Report made", $"{Timestamp(context.GeneratedAt)}, WaveCheck {context.ToolVersion}");
@@ -141,9 +193,52 @@ public static class ReportWriter
         html.Raw("</header>\n");
     }
 
+    /// <summary>Name and serial number together; null when neither is given.</summary>
+    private static string? Joined(string? name, string? serial) => (name, serial) switch
+    {
+        (null, null) => null,
+        (_, null) => $"{name}, serial number not given",
+        (null, _) => $"serial {serial} (model not given)",
+        _ => $"{name}, serial {serial}",
+    };
+
+    /// <summary>A row of the identity block; a missing value is a blank line to fill by hand.</summary>
+    private static void IdentityRow(HtmlWriter html, string name, string? value)
+    {
+        html.Raw("<tr><th scope=\"row\">").Text(name).Raw("</th><td>");
+        Filled(html, value);
+        html.Raw("</td></tr>\n");
+    }
+
+    private static void Filled(HtmlWriter html, string? value)
+    {
+        if (string.IsNullOrWhiteSpace(value))
+        {
+            html.Raw("<span class=\"blank\" aria-label=\"to be filled in\"></span>");
+        }
+        else
+        {
+            html.Text(value);
+        }
+    }
+
+    /// <summary>Who tested and who approved: names, signatures and dates to fill in by hand (the operator's name
+    /// printed when given).</summary>
+    private static void SignOff(HtmlWriter html, ReportIdentity identity)
+    {
+        html.Raw("<section id=\"signoff\" class=\"signoff-block\">\n<h2>Sign-off</h2>\n<p>")
+            .Text("The undersigned confirm that the capture named above was recorded on the circuit named above and that this report was reviewed.")
+            .Raw("</p>\n<table class=\"signoff\">\n<thead><tr><th></th><th>Name</th><th>Signature</th><th>Date</th></tr></thead>\n<tbody>\n");
+        html.Raw("<tr><th scope=\"row\">Tested by</th><td>").Text(identity.Operator ?? string.Empty).Raw("</td><td></td><td></td></tr>\n");
+        html.Raw("<tr><th scope=\"row\">Approved by</th><td></td><td></td><td></td></tr>\n");
+        html.Raw("</tbody>\n</table>\n</section>\n");
+    }
+
     private static void Verdict(HtmlWriter html, AssessmentResult a)
     {
-        html.Raw("<section id=\"verdict\">\n<h2>Verdict</h2>\n<div class=\"verdict\">\n<p class=\"required\">");
+        html.Raw("<section id=\"verdict\">\n<h2>Verdict</h2>\n<div class=\"verdict\">\n");
+        var (outcomeClass, outcomeText) = Outcome(a);
+        html.Raw("<p class=\"outcome ").Raw(outcomeClass).Raw("\">").Text(outcomeText).Raw("</p>\n<p class=\"required\">");
         if (a.RequiredType is { } required)
         {
             html.Text($"Required RCD type: {required.ToTradeName()}");
@@ -209,13 +304,13 @@ public static class ReportWriter
         html.Raw("</tbody>\n</table>\n</section>\n");
     }
 
-    private static void DeviceMargins(HtmlWriter html, AnalysisResult analysis, AssessmentResult a)
+    private static void DeviceMargins(HtmlWriter html, AnalysisResult analysis, AssessmentResult a, bool productTest)
     {
         var trip = a.NuisanceTrip;
         html.Raw("<section id=\"device\">\n<h2>").Text($"Margins for a type {trip.DeviceType.ToTradeName()} device, IΔn {CurrentText.WithUnit(a.RatedResidualCurrentA)}").Raw("</h2>\n");
         html.Raw("<h3>Nuisance tripping</h3>\n<table><tbody>\n");
         Row(html, "Risk", RiskText(trip.Risk));
-        Row(html, "Standing residual current (unweighted, each range's worst window)", CurrentText.WithUnit(trip.StandingA));
+        Row(html, "Standing residual current (each frequency range's worst window, combined; unweighted)", CurrentText.WithUnit(trip.StandingA));
         Row(html, "As a typical device responds (frequency-weighted, second figure)", CurrentText.WithUnit(trip.TypicalStandingA));
         Row(html, $"Non-operating limit {a.NonOperatingLimitText()}", CurrentText.WithUnit(trip.NonOperatingLimitA));
         Row(html, "Margin to the limit", $"{CurrentText.WithUnit(trip.MarginA)} ({Percent(trip.MarginPercent)} of the limit){(trip.MarginA < 0 ? " — above the limit" : string.Empty)}");
@@ -256,7 +351,7 @@ public static class ReportWriter
         if (a.Gfci is { } gfci)
         {
             html.Raw("<h3>GFCI (UL 943)</h3>\n<table><tbody>\n");
-            Row(html, "Standing residual RMS", CurrentText.WithUnit(gfci.StandingRmsA));
+            Row(html, $"Standing residual current ({FigureLabels.WorstWindowRms})", CurrentText.WithUnit(gfci.StandingRmsA));
             Row(html, "Class A (6 mA) trips on the standing current alone", TripsText(gfci.ClassATripsAlone));
             Row(html, "Class A trip time at that level", gfci.ClassATripTimeS is double ta ? Seconds(ta) : "not applicable (below 6 mA)");
             Row(html, "Special-purpose (20 mA) trips on it alone", TripsText(gfci.SpecialPurposeTripsAlone));
@@ -265,19 +360,26 @@ public static class ReportWriter
             List(html, gfci.Notes, null);
         }
 
-        if (a.TouchCurrent is { } touch)
+        if (!productTest)
+        {
+            if (a.TouchCurrent is not null || analysis.TouchCurrent is not null)
+            {
+                html.Raw("<p class=\"muted\">").Text("Touch-current readings (IEC 60990) are in the analysis JSON; their limits belong to product (equipment) tests and are compared only when one is asked for (--product-test, or \"productTest\": true in the site file).").Raw("</p>\n");
+            }
+        }
+        else if (a.TouchCurrent is { } touch)
         {
             html.Raw("<h3>Touch current (IEC 60990)</h3>\n");
             TouchReadings(html, touch.Readings);
             if (touch.Comparisons.Count > 0)
             {
-                html.Raw("<table>\n<thead><tr><th>Limit</th><th>Reading</th><th class=\"num\">Reading value</th><th class=\"num\">Limit value</th><th>Within</th><th>Source</th></tr></thead>\n<tbody>\n");
+                html.Raw("<table class=\"wide\">\n<thead><tr><th>Limit</th><th>Reading</th><th class=\"num\">Reading value</th><th class=\"num\">Limit value</th><th>Within</th><th>Source</th></tr></thead>\n<tbody>\n");
                 foreach (var c in touch.Comparisons)
                 {
                     html.Raw("<tr><td>").Text(c.Limit).Raw("</td><td>").Text(c.Reading).Raw("</td>");
                     Num(html, CurrentText.WithUnit(c.ValueA));
                     Num(html, CurrentText.WithUnit(c.LimitA));
-                    html.Raw("<td class=\"verdict-cell\">").Text(c.Within ? "✔ within" : "✘ above").Raw("</td><td>").Text(c.Source).Raw("</td></tr>\n");
+                    html.Raw("<td class=\"verdict-cell\">").Text(c.Within ? "✔ within" : "✘ above").Raw("</td><td>").Text(FigureLabels.ForClient(c.Source)).Raw("</td></tr>\n");
                 }
 
                 html.Raw("</tbody>\n</table>\n");
@@ -350,14 +452,20 @@ public static class ReportWriter
         var s = analysis.Summary;
         var c = analysis.Components;
         html.Raw("<section id=\"figures\">\n<h2>Measured figures</h2>\n<h3>Whole capture</h3>\n<table><tbody>\n");
-        Row(html, "True RMS", CurrentText.WithUnit(s.RmsA));
+        Row(html, Capitalised(FigureLabels.WholeCaptureRms), CurrentText.WithUnit(s.RmsA));
+        if (analysis.Windows.Statistics.TryGetValue("rmsA", out var rmsStats))
+        {
+            Row(html, Capitalised(FigureLabels.WorstWindowRms), $"{CurrentText.WithUnit(rmsStats.Max)} (at {Seconds(rmsStats.TimeOfMaxS)})");
+            Row(html, $"RMS, {FigureLabels.Percentile95}", CurrentText.WithUnit(rmsStats.P95));
+        }
+
         Row(html, "DC (mean)", CurrentText.WithUnit(s.DcA));
         Row(html, "AC RMS (mean removed)", CurrentText.WithUnit(s.AcRmsA));
         Row(html, "Peak (largest absolute sample)", CurrentText.WithUnit(s.PeakA));
         Row(html, "Highest / lowest sample", $"{CurrentText.WithUnit(s.PeakPositiveA)} / {CurrentText.WithUnit(s.PeakNegativeA)}");
-        Row(html, "Crest factor", Number(s.CrestFactor, "0.00"));
+        Row(html, "Crest factor", double.IsFinite(s.CrestFactor) ? Number(s.CrestFactor, "0.00") : "not defined (no current)");
         html.Raw("</tbody></table>\n<h3>Components</h3>\n<table><tbody>\n");
-        Row(html, "Smooth DC (capture mean / worst window)", $"{CurrentText.WithUnit(c.SmoothDcA)} / {CurrentText.WithUnit(c.SmoothDcMaxA)}");
+        Row(html, "Smooth DC (whole capture / worst window)", $"{CurrentText.WithUnit(c.SmoothDcA)} / {CurrentText.WithUnit(c.SmoothDcMaxA)}");
         Row(html, "Pulsating DC", $"{(c.PulsatingDc ? "yes" : "no")} ({Percent(c.PulsatingDcShare * 100)} of windows)");
         Row(html, "Current-delay angle", c.CurrentDelayAngleDeg is double alpha ? Number(alpha, "0") + "°" : "not a phase-controlled half-wave");
         Row(html, "Mains frequency (harmonic group 1)", CurrentText.WithUnit(c.MainsRmsA));
@@ -382,7 +490,7 @@ public static class ReportWriter
         }
 
         Harmonics(html, analysis);
-        Bands(html, analysis.Bands);
+        Bands(html, analysis);
         Events(html, analysis.Events);
         Statistics(html, analysis.Windows);
         html.Raw("</section>\n");
@@ -390,54 +498,61 @@ public static class ReportWriter
 
     private static void Harmonics(HtmlWriter html, AnalysisResult analysis)
     {
-        var largest = analysis.Harmonics.Count == 0 ? 0 : analysis.Harmonics.Max(h => h.RmsA);
-        var shown = analysis.Harmonics.Where(h => h.Order is >= 1 and <= 50 && !Negligible(h.RmsA, largest)).ToList();
+        var level = TableSignificance.LevelA(analysis);
+        var shown = analysis.Harmonics.Where(h => h.Order is >= 1 and <= 50 && TableSignificance.Significant(h.RmsA, level)).ToList();
         var fundamental = analysis.Harmonics.FirstOrDefault(h => h.Order == 1)?.RmsA ?? 0;
         html.Raw("<h3>Harmonic groups (IEC 61000-4-7)</h3>\n");
         if (shown.Count == 0)
         {
-            html.Raw("<p>No harmonic group above the table's floor.</p>\n");
-            return;
+            html.Raw("<p>").Text($"No harmonic group at or above {CurrentText.WithUnit(level)}.").Raw("</p>\n");
         }
-
-        html.Raw("<table>\n<thead><tr><th class=\"num\">Order</th><th class=\"num\">Frequency</th><th class=\"num\">RMS</th><th class=\"num\">Largest window</th><th class=\"num\">Of fundamental</th></tr></thead>\n<tbody>\n");
-        foreach (var h in shown)
+        else
         {
-            html.Raw("<tr>");
-            Num(html, h.Order.ToString(CultureInfo.InvariantCulture));
-            Num(html, Hertz(h.FrequencyHz));
-            Num(html, CurrentText.WithUnit(h.RmsA));
-            Num(html, CurrentText.WithUnit(h.MaxA));
-            Num(html, fundamental > 0 ? Percent(100 * h.RmsA / fundamental) : "–");
-            html.Raw("</tr>\n");
+            html.Raw("<table>\n<thead><tr><th class=\"num\">Order</th><th class=\"num\">Frequency</th><th class=\"num\">Whole-capture RMS</th><th class=\"num\">Worst window</th><th class=\"num\">Of fundamental</th></tr></thead>\n<tbody>\n");
+            foreach (var h in shown)
+            {
+                html.Raw("<tr>");
+                Num(html, h.Order.ToString(CultureInfo.InvariantCulture));
+                Num(html, Hertz(h.FrequencyHz));
+                Num(html, CurrentText.WithUnit(h.RmsA));
+                Num(html, CurrentText.WithUnit(h.MaxA));
+                Num(html, fundamental > 0 ? Percent(100 * h.RmsA / fundamental) : "–");
+                html.Raw("</tr>\n");
+            }
+
+            html.Raw("</tbody>\n</table>\n");
         }
 
-        html.Raw("</tbody>\n</table>\n<p class=\"muted\">").Text(FloorNote(analysis.Harmonics.Count - shown.Count, "groups")).Raw("</p>\n");
+        html.Raw("<p class=\"muted\">").Text(FloorNote(analysis.Harmonics.Count - shown.Count, "harmonic groups", level)).Raw("</p>\n");
     }
 
-    private static void Bands(HtmlWriter html, IReadOnlyList<BandValue> bands)
+    private static void Bands(HtmlWriter html, AnalysisResult analysis)
     {
-        var largest = bands.Count == 0 ? 0 : bands.Max(b => b.RmsA);
-        var shown = bands.Where(b => !Negligible(b.RmsA, largest)).ToList();
+        var bands = analysis.Bands;
+        var level = TableSignificance.LevelA(analysis);
+        var shown = bands.Where(b => TableSignificance.Significant(b.RmsA, level)).ToList();
         html.Raw("<h3>Frequency bands above 2 kHz</h3>\n");
         if (shown.Count == 0)
         {
-            html.Raw("<p>No band above the table's floor.</p>\n");
-            return;
+            html.Raw("<p>").Text($"No band at or above {CurrentText.WithUnit(level)}.").Raw("</p>\n");
         }
-
-        html.Raw("<table>\n<thead><tr><th class=\"num\">From</th><th class=\"num\">To</th><th class=\"num\">RMS</th><th class=\"num\">Largest window</th></tr></thead>\n<tbody>\n");
-        foreach (var b in shown)
+        else
         {
-            html.Raw("<tr>");
-            Num(html, Hertz(b.LowHz));
-            Num(html, Hertz(b.HighHz));
-            Num(html, CurrentText.WithUnit(b.RmsA));
-            Num(html, CurrentText.WithUnit(b.MaxA));
-            html.Raw("</tr>\n");
+            html.Raw("<table>\n<thead><tr><th class=\"num\">From</th><th class=\"num\">To</th><th class=\"num\">Whole-capture RMS</th><th class=\"num\">Worst window</th></tr></thead>\n<tbody>\n");
+            foreach (var b in shown)
+            {
+                html.Raw("<tr>");
+                Num(html, Hertz(b.LowHz));
+                Num(html, Hertz(b.HighHz));
+                Num(html, CurrentText.WithUnit(b.RmsA));
+                Num(html, CurrentText.WithUnit(b.MaxA));
+                html.Raw("</tr>\n");
+            }
+
+            html.Raw("</tbody>\n</table>\n");
         }
 
-        html.Raw("</tbody>\n</table>\n<p class=\"muted\">").Text(FloorNote(bands.Count - shown.Count, "bands")).Raw("</p>\n");
+        html.Raw("<p class=\"muted\">").Text(FloorNote(bands.Count - shown.Count, "bands", level)).Raw("</p>\n");
     }
 
     private static void Events(HtmlWriter html, IReadOnlyList<EventRecord> events)
@@ -476,10 +591,15 @@ public static class ReportWriter
             return;
         }
 
-        html.Raw("<table>\n<thead><tr><th>Metric</th><th class=\"num\">Mean</th><th class=\"num\">95th percentile</th><th class=\"num\">Maximum</th><th class=\"num\">At</th></tr></thead>\n<tbody>\n");
-        foreach (var (name, stat) in windows.Statistics.OrderBy(p => p.Key, StringComparer.Ordinal))
+        html.Raw("<table>\n<thead><tr><th>Figure per window</th><th class=\"num\">Mean of windows</th><th class=\"num\">95th percentile</th><th class=\"num\">Worst window</th><th class=\"num\">At</th></tr></thead>\n<tbody>\n");
+        foreach (var (name, stat) in windows.Statistics.OrderBy(p => FigureLabels.MetricRank(p.Key)).ThenBy(p => p.Key, StringComparer.Ordinal))
         {
-            html.Raw("<tr><td><code>").Text(name).Raw("</code></td>");
+            if (!double.IsFinite(stat.Mean) && !double.IsFinite(stat.Max))
+            {
+                continue; // a figure no window had (no delay angle, no THD): nothing to list
+            }
+
+            html.Raw("<tr><td>").Text(FigureLabels.Metric(name)).Raw("</td>");
             Num(html, MetricValue(name, stat.Mean));
             Num(html, MetricValue(name, stat.P95));
             Num(html, MetricValue(name, stat.Max));
@@ -517,7 +637,7 @@ public static class ReportWriter
 
         foreach (var warning in analysis.Warnings)
         {
-            html.Raw("<li><code>").Text(warning.Code).Raw("</code> ").Text(warning.Message);
+            html.Raw("<li>").Text(warning.Message);
             if (warning.TimeS is double t)
             {
                 html.Text($" (at {Seconds(t)})");
@@ -554,15 +674,29 @@ public static class ReportWriter
 
     private static void Thresholds(HtmlWriter html, AssessmentResult a)
     {
-        html.Raw("<section id=\"thresholds\">\n<h2>Thresholds applied</h2>\n<table>\n<thead><tr><th>Name</th><th class=\"num\">Value</th><th>Source</th></tr></thead>\n<tbody>\n");
+        html.Raw("<section id=\"thresholds\">\n<h2>Appendix: thresholds applied</h2>\n<p>")
+            .Text($"Status of each value: \"std\" is the standard's value as reproduced in public sources; values marked {FigureLabels.ToConfirm} were taken from memory of the standard and not checked against its text; \"engineering choice\" and \"practice\" are this tool's or the trade's choices, not a standard's.")
+            .Raw("</p>\n<table class=\"wide\">\n<thead><tr><th>Threshold</th><th class=\"num\">Value</th><th>Source</th><th>Status</th></tr></thead>\n<tbody>\n");
         foreach (var t in a.Thresholds)
         {
-            html.Raw("<tr><td><code>").Text(t.Name).Raw("</code></td>");
-            Num(html, t.Unit == "A" ? CurrentText.WithUnit(t.Value) : t.Unit == "1" ? Number(t.Value, "0.####") : $"{Number(t.Value, "0.####")} {t.Unit}");
-            html.Raw("<td>").Text(t.Source).Raw("</td></tr>\n");
+            html.Raw("<tr><td>").Text(FigureLabels.Threshold(t.Name)).Raw("</td>");
+            Num(html, t.Unit == "A" ? CurrentText.WithUnit(t.Value) : t.Unit == "1" ? Number(t.Value, "0.####") : t.Unit == "deg" ? Number(t.Value, "0.#") + "°" : $"{Number(t.Value, "0.####")} {t.Unit}");
+            html.Raw("<td>").Text(FigureLabels.ForClient(t.Source)).Raw("</td><td>").Text(Status(t.Source)).Raw("</td></tr>\n");
         }
 
         html.Raw("</tbody>\n</table>\n</section>\n");
+    }
+
+    /// <summary>The status of a limit from its source text (docs/references.md): from memory, standard, engineering
+    /// choice or practice; "overridden" when the user set it.</summary>
+    internal static string Status(string source)
+    {
+        var status = FigureLabels.FromMemory(source) ? "from memory: to confirm against the standard"
+            : source.Contains("engineering choice", StringComparison.OrdinalIgnoreCase) ? "engineering choice"
+            : source.Contains("practice", StringComparison.OrdinalIgnoreCase) ? "practice of the trade"
+            : source.Contains("(std)", StringComparison.Ordinal) ? "standard"
+            : "as stated";
+        return source.Contains("(overridden)", StringComparison.Ordinal) ? status + "; overridden by the user" : status;
     }
 
     private static void Fact(HtmlWriter html, string name, string value) =>
@@ -589,11 +723,11 @@ public static class ReportWriter
         html.Raw("</ul>\n");
     }
 
-    private static bool Negligible(double valueA, double largestA) => valueA < Math.Max(NegligibleA, NegligibleShare * largestA);
+    private static string FloorNote(int left, string what, double levelA) => left > 0
+        ? $"Listed: {what} {TableSignificance.Rule}, here from {CurrentText.WithUnit(levelA)}; {left} below it are left out. The analysis JSON and the per-window CSV hold them all."
+        : $"All {what} listed.";
 
-    private static string FloorNote(int left, string what) => left > 0
-        ? $"{left} {what} below {Percent(NegligibleShare * 100)} of the largest (or below {CurrentText.WithUnit(NegligibleA)}) are left out."
-        : $"All {what} shown.";
+    private static string Capitalised(string text) => text.Length == 0 ? text : char.ToUpperInvariant(text[0]) + text[1..];
 
     private static string MetricValue(string name, double value) =>
         name.EndsWith('A') ? CurrentText.WithUnit(value)
@@ -606,7 +740,17 @@ public static class ReportWriter
 
     private static string Current(double? amperes) => amperes is double a ? CurrentText.WithUnit(a) : "none specified";
 
-    private static string Number(double value, string format) => value.ToString(format, CultureInfo.InvariantCulture);
+    /// <summary>A number for a person: "–" for a value that is not one (never "NaN"), no sign on a zero.</summary>
+    private static string Number(double value, string format)
+    {
+        if (!double.IsFinite(value))
+        {
+            return "–";
+        }
+
+        var text = value.ToString(format, CultureInfo.InvariantCulture);
+        return text.StartsWith('-') && text.AsSpan(1).Trim("0.").IsEmpty ? text[1..] : text;
+    }
 
     private static string Percent(double value) => Number(value, Math.Abs(value) >= 10 ? "0.0" : "0.00") + " %";
 

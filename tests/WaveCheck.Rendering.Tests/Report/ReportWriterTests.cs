@@ -42,6 +42,51 @@ public sealed partial class ReportWriterTests : IDisposable
         Assert.True(problems.Count == 0, string.Join('\n', problems));
     }
 
+    [Theory]
+
+    // 390 CSS px: the viewport width of a common phone in portrait; 1240 px as the control that the measure sees a
+    // page's width at all.
+    [InlineData(390, false)]
+    [InlineData(390, true)]
+    public void Report_fits_a_phone_width_without_sideways_scrolling(int widthPx, bool control)
+    {
+        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment(blinded: true), Context with
+        {
+            Identity = new ReportIdentity { ReportNumber = "R-1", Client = "invented client with a fairly long name, Ltd", CaptureDigest = "0123456789ab", DigestFiles = ["workshop-press.wav"] },
+        });
+
+        // Chromium will not make a window narrower than 500 px, so the report is laid out in a 390 px wide frame
+        // (its media queries see the frame's width) and the host page reads its widths (file pages may read each
+        // other with --allow-file-access-from-files). The report itself keeps its no-script policy.
+        if (control)
+        {
+            html = html.Replace("</body>", "<div style=\"width:1000px;height:1px\"></div></body>", StringComparison.Ordinal);
+        }
+
+        var report = Path.Combine(output.Path, control ? "phone-control.html" : "phone.html");
+        File.WriteAllText(report, html);
+        var host = Path.Combine(output.Path, control ? "host-control.html" : "host.html");
+        File.WriteAllText(host, $$"""
+            <!DOCTYPE html><html><body style="margin:0"><iframe id="f" src="{{Path.GetFileName(report)}}" style="width:{{widthPx}}px;height:800px;border:0"></iframe>
+            <script>document.getElementById('f').addEventListener('load', function () { var d = this.contentDocument.documentElement;
+            document.body.setAttribute('data-scroll-width', d.scrollWidth); document.body.setAttribute('data-client-width', d.clientWidth); });</script></body></html>
+            """);
+
+        var dom = Chromium.Run(host, "--dump-dom", "--allow-file-access-from-files", "--window-size=800,900").Stdout;
+        int Read(string name) => int.Parse(Regex.Match(dom, $"data-{name}=\"(\\d+)\"").Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture);
+        var (scroll, client) = (Read("scroll-width"), Read("client-width"));
+
+        Assert.InRange(client, widthPx - 20, widthPx); // the frame's width less a scroll bar
+        if (control)
+        {
+            Assert.True(scroll >= 1000, $"the measure missed a 1000 px element: {scroll}");
+        }
+        else
+        {
+            Assert.True(scroll <= client, $"the report is {scroll} px wide in a {client} px wide view: it scrolls sideways");
+        }
+    }
+
     [Fact]
     public void Console_check_catches_a_page_that_logs_an_error()
     {
@@ -150,7 +195,8 @@ public sealed partial class ReportWriterTests : IDisposable
         // One second: no trend plot, the other three are there.
         Assert.Equal(3, Regex.Count(html, "<svg\\b"));
         Assert.Contains("No alarms or transients.", html, StringComparison.Ordinal);
-        Assert.Contains("No harmonic group above the table's floor.", html, StringComparison.Ordinal);
+        // No fundamental: the table's level is the 0.1 mA floor alone (TableSignificance, engineering choice).
+        Assert.Contains("No harmonic group at or above 0.100 mA.", html, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -171,7 +217,8 @@ public sealed partial class ReportWriterTests : IDisposable
         Assert.Contains("The sensor is AC-coupled", limits, StringComparison.Ordinal);
         Assert.Contains("The recorder clips at 100 mA.", limits, StringComparison.Ordinal);
         Assert.Contains("3 of the 300 windows in the trend contain clipped samples", limits, StringComparison.Ordinal);
-        Assert.Contains("<code>nyquist</code>", limits, StringComparison.Ordinal);
+        Assert.Contains("<li>Content above 12.5 kHz (Nyquist) cannot be seen at 25 kHz sampling.</li>", limits, StringComparison.Ordinal);
+        Assert.DoesNotContain("<code>", limits, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -194,10 +241,11 @@ public sealed partial class ReportWriterTests : IDisposable
         var harmonics = analysis.Harmonics.Select(h => h.Order == 37 ? h with { RmsA = 1e-9, MaxA = 1e-9 } : h).ToList();
         var html = ReportWriter.Render(analysis with { Harmonics = harmonics }, null, Context);
 
-        // Order 2 is 0.005/2^1.3 A (well above the floor); order 37 was set to 1 nA, below 1 µA.
+        // Order 2 is 0.005/2^1.3 A (well above the 0.1 mA level); order 37 was set to 1 nA; orders 21 to 50 lie
+        // below 0.1 mA (5 mA / n^1.3 < 0.1 mA for n > 20.3, closed form): 30 groups left out.
         Assert.Contains("<td class=\"num\">2</td><td class=\"num\">100 Hz</td>", html, StringComparison.Ordinal);
         Assert.DoesNotContain("<td class=\"num\">37</td>", html, StringComparison.Ordinal);
-        Assert.Contains("1 groups below", html, StringComparison.Ordinal);
+        Assert.Contains("30 below it are left out", html, StringComparison.Ordinal);
     }
 
     [Fact]

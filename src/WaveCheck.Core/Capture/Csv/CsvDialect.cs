@@ -54,8 +54,12 @@ internal sealed class CsvDialect
     /// <summary>0-based index of the first time column, -1 if none.</summary>
     public int TimeColumn { get; private set; } = -1;
 
-    /// <summary>The first row's time stamp, for a time-stamp column.</summary>
+    /// <summary>When the recording started: the first row's time stamp for a time-stamp column, else the preamble's
+    /// <c>start:</c> line (docs/formats.md), else null.</summary>
     public DateTimeOffset? StartTime { get; private set; }
+
+    /// <summary>The preamble's <c>start: 2026-11-20T09:14:00Z</c> line, commented or not; null when there is none.</summary>
+    private DateTimeOffset? StatedStart { get; init; }
 
     /// <summary>The dialect as a person reads it, e.g. <c>delimiter ';', decimal comma, 2 preamble lines</c>.</summary>
     public string Description =>
@@ -69,7 +73,7 @@ internal sealed class CsvDialect
     /// read (each with line and column).</exception>
     public static CsvDialect Detect(string path)
     {
-        var (lines, first, reachedEnd) = ReadFirstLines(path);
+        var (lines, first, reachedEnd, statedStart) = ReadFirstLines(path);
         long LineOf(int i) => first + i;
         var splitter = new CsvLineSplitter(lines.Max(l => l.Length));
         var content = new List<int>();
@@ -96,6 +100,11 @@ internal sealed class CsvDialect
                 }
 
                 throw new CaptureFormatException(path, fault.Problem, LineOf(i), fault.Column);
+            }
+
+            if (IsMetadata(lines[i]) && StartStamp(lines[i]) is { } stamp)
+            {
+                statedStart ??= stamp;
             }
 
             if (fields.Length == fieldCount && !IsMetadata(lines[i]) && !LooksLikeData(fields, false, out _))
@@ -176,6 +185,8 @@ internal sealed class CsvDialect
             DataRows = rows.Count,
             ReachedEnd = reachedEnd,
             BytesPerDataRow = dataChars / (double)rows.Count,
+            StatedStart = statedStart,
+            StartTime = statedStart,
         };
         if (header.Length <= CaptureLimits.MaxCsvColumns)
         {
@@ -195,8 +206,9 @@ internal sealed class CsvDialect
     /// <summary>Leading comment and blank lines are counted, not kept: a preamble of any length is passed over with
     /// bounded memory. From the first other line, up to <see cref="PrescanLines"/> lines are kept; lines[i] is line
     /// first + i.</summary>
-    private static (List<string> Lines, long First, bool ReachedEnd) ReadFirstLines(string path)
+    private static (List<string> Lines, long First, bool ReachedEnd, DateTimeOffset? StatedStart) ReadFirstLines(string path)
     {
+        DateTimeOffset? statedStart = null;
         var lines = new List<string>(PrescanLines);
         using var reader = new StreamReader(path, detectEncodingFromByteOrderMarks: true);
         var source = new BoundedLineReader(reader, path);
@@ -205,6 +217,7 @@ internal sealed class CsvDialect
         while (source.TryRead(out line) && IsCommentOrBlank(line))
         {
             leading++;
+            statedStart ??= StartStamp(line);
         }
 
         if (source.LineNumber == leading)
@@ -222,7 +235,7 @@ internal sealed class CsvDialect
             chars += line.Length;
         }
 
-        return (lines, leading + 1, !source.TryRead(out _));
+        return (lines, leading + 1, !source.TryRead(out _), statedStart);
     }
 
     /// <summary>The first time column's values, read as the reader reads them (same words for a bad cell).</summary>
@@ -254,9 +267,28 @@ internal sealed class CsvDialect
                 TimeValues.Add(t);
             }
 
-            StartTime = axis.FirstStamp;
+            StartTime = axis.FirstStamp ?? StatedStart;
             return;
         }
+    }
+
+    /// <summary>The time of a preamble line <c>start: 2026-11-20T09:14:00Z</c> (also <c>start=</c>, <c>start time:</c>,
+    /// after a comment mark), read as time-stamp cells are read (ISO 8601; no offset: UTC); null for any other line or
+    /// a value that is no time (a logger's note is not refused for it).</summary>
+    internal static DateTimeOffset? StartStamp(string line)
+    {
+        var t = line.AsSpan().Trim();
+        t = t.StartsWith("//", StringComparison.Ordinal) ? t[2..] : t.Length > 0 && t[0] is '#' or '%' or '!' ? t[1..] : t;
+        var mark = t.IndexOfAny(':', '=');
+        if (mark <= 0)
+        {
+            return null;
+        }
+
+        var key = t[..mark].Trim();
+        var isStart = key.Equals("start", StringComparison.OrdinalIgnoreCase) || key.Equals("start time", StringComparison.OrdinalIgnoreCase)
+            || key.Equals("start_time", StringComparison.OrdinalIgnoreCase) || key.Equals("starttime", StringComparison.OrdinalIgnoreCase);
+        return isStart && CsvCells.TryParseStamp(t[(mark + 1)..].Trim(), out var stamp) is null ? stamp : null;
     }
 
     private static bool IsCommentOrBlank(string line)

@@ -16,6 +16,18 @@ namespace WaveCheck.Core.Capture;
 internal sealed record RiffLayout(long FormatOffset, int FormatBytes, long DataOffset, long DataClaimedBytes,
     long? OwnChunkOffset, int OwnChunkLength)
 {
+    /// <summary>When the recording started, from a Broadcast Wave <c>bext</c> chunk's origination date and time or,
+    /// failing that, a <c>LIST</c>/<c>INFO</c> chunk's <c>ICRD</c> (creation date); null when neither states one.
+    /// Neither field carries a time zone: the time is taken as stated, with offset zero (as a CSV stamp without one).</summary>
+    public DateTimeOffset? StartTime { get; init; }
+
+    /// <summary>Offset of <c>OriginationDate</c> in a <c>bext</c> chunk: after Description (256), Originator (32) and
+    /// OriginatorReference (32) bytes (EBU Tech 3285, from memory).</summary>
+    private const int BextDateOffset = 320;
+
+    /// <summary>Largest <c>LIST</c> chunk looked into for a creation date (engineering choice: INFO lists are short).</summary>
+    private const int MaxListBytes = 64 << 10;
+
     /// <summary>Largest calibration chunk read (ours holds some 40 bytes of text).</summary>
     private const int MaxOwnChunkBytes = 4096;
 
@@ -48,6 +60,8 @@ internal sealed record RiffLayout(long FormatOffset, int FormatBytes, long DataO
         long dataBytes = 0;
         long? own = null;
         var ownLength = 0;
+        DateTimeOffset? bextStart = null;
+        DateTimeOffset? listStart = null;
         var position = 12L;
         Span<byte> chunk = stackalloc byte[8];
         while (position + 8 <= length)
@@ -121,6 +135,14 @@ internal sealed record RiffLayout(long FormatOffset, int FormatBytes, long DataO
                 own = position + 8;
                 ownLength = (int)size;
             }
+            else if (id.SequenceEqual("bext"u8) && size >= BextDateOffset + 18)
+            {
+                bextStart ??= BextStart(stream, position + 8);
+            }
+            else if (id.SequenceEqual("LIST"u8) && size is >= 12 and <= MaxListBytes)
+            {
+                listStart ??= InfoCreationDate(stream, position + 8, (int)size);
+            }
 
             position = end + (size & 1);
         }
@@ -144,7 +166,64 @@ internal sealed record RiffLayout(long FormatOffset, int FormatBytes, long DataO
                 byteOffset: 4);
         }
 
-        return new RiffLayout(fmt.Value, fmtBytes, data.Value, dataBytes, own, ownLength);
+        return new RiffLayout(fmt.Value, fmtBytes, data.Value, dataBytes, own, ownLength) { StartTime = bextStart ?? listStart };
+    }
+
+    /// <summary>A <c>bext</c> chunk's <c>OriginationDate</c> (<c>yyyy-mm-dd</c>) and <c>OriginationTime</c>
+    /// (<c>hh:mm:ss</c>; any separator); null when they do not make a date and time.</summary>
+    private static DateTimeOffset? BextStart(Stream stream, long payload)
+    {
+        Span<byte> field = stackalloc byte[18];
+        stream.Position = payload + BextDateOffset;
+        stream.ReadExactly(field);
+        var text = System.Text.Encoding.ASCII.GetString(field);
+        var digits = new System.Text.StringBuilder(14);
+        foreach (var c in text)
+        {
+            if (char.IsAsciiDigit(c))
+            {
+                digits.Append(c);
+            }
+        }
+
+        return digits.Length == 14 && DateTime.TryParseExact(digits.ToString(), "yyyyMMddHHmmss", CultureInfo.InvariantCulture,
+            DateTimeStyles.None, out var stamp)
+            ? new DateTimeOffset(stamp, TimeSpan.Zero)
+            : null;
+    }
+
+    /// <summary>The <c>ICRD</c> entry of a <c>LIST</c> chunk of type <c>INFO</c>, read as an ISO 8601 date or date
+    /// and time; null when there is none or it is no date.</summary>
+    private static DateTimeOffset? InfoCreationDate(Stream stream, long payload, int size)
+    {
+        var bytes = new byte[size];
+        stream.Position = payload;
+        stream.ReadExactly(bytes);
+        if (!bytes.AsSpan(0, 4).SequenceEqual("INFO"u8))
+        {
+            return null;
+        }
+
+        var at = 4;
+        while (at + 8 <= size)
+        {
+            var length = BinaryPrimitives.ReadInt32LittleEndian(bytes.AsSpan(at + 4));
+            if (length < 0 || at + 8 + length > size)
+            {
+                return null;
+            }
+
+            if (bytes.AsSpan(at, 4).SequenceEqual("ICRD"u8))
+            {
+                var text = System.Text.Encoding.ASCII.GetString(bytes, at + 8, length).TrimEnd('\0', ' ');
+                return DateTimeOffset.TryParse(text, CultureInfo.InvariantCulture,
+                    DateTimeStyles.AssumeUniversal | DateTimeStyles.AllowWhiteSpaces, out var stamp) ? stamp : null;
+            }
+
+            at += 8 + length + (length & 1);
+        }
+
+        return null;
     }
 
     private static bool IsChunkId(ReadOnlySpan<byte> id)

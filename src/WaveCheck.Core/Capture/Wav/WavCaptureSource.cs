@@ -118,6 +118,7 @@ public sealed class WavCaptureSource : ICaptureSource
                 ResidualChannels = _selection.Indices,
                 SampleRateHz = _format.SampleRateHz,
                 SampleCount = frames,
+                StartTime = layout.StartTime,
                 Calibration = calibration,
                 SensorCoupling = sensor,
                 FullScaleA = _selection.Indices.Count == 1 ? scaleA : null,
