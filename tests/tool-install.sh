@@ -39,7 +39,7 @@ for f in demo/index.html demo/survey.csv demo/survey.json; do
 done
 # Six bundled captures, one row each (samples/site.json), below the header.
 rows=$(($(wc -l < demo/survey.csv) - 1))
-[ "$rows" -eq 6 ] || fail "the demo's survey.csv has $rows rows, expected 6"
+[ "$rows" -eq 8 ] || fail "the demo's survey.csv has $rows rows, expected 8 (samples/site.json: C1 to C7, C2 twice)"
 
 "$wavecheck" synth halfwave:peak=30mA,angle=90 -o dimmer.wav > /dev/null
 set +e

@@ -2,9 +2,9 @@ using System.CommandLine;
 using System.CommandLine.Parsing;
 using System.Globalization;
 using WaveCheck.Core;
-using WaveCheck.Rendering.Report;
 using WaveCheck.Core.Model;
 using WaveCheck.Rendering.Plots;
+using WaveCheck.Rendering.Report;
 
 namespace WaveCheck.Cli;
 

@@ -27,7 +27,7 @@ public sealed class TripReplayCommandTests : IDisposable
         // 20 ms resolution: the summary says "will trip" and the panel asks for the device to be tested.
         var wav = Surge("long.wav", "250ms");
         var json = Path.Combine(_folder, "long.json");
-        var (exit, output, error) = CliHarness.Run("analyze", wav, "--sensor", "dc", "--mains", "50", "--json", json);
+        var (exit, output, error) = CliHarness.Run("analyze", wav, "--sensor", "dc", "--mains", "50Hz", "--json", json);
         Assert.True(exit == 0, error);
         Assert.Contains("Trip replay (IΔn 30.0 mA): 1 episode at or above 0.5 IΔn", output, StringComparison.Ordinal);
         Assert.Contains("general type: will trip", output, StringComparison.Ordinal);
@@ -52,7 +52,7 @@ public sealed class TripReplayCommandTests : IDisposable
         // 2.2 IΔn for 170 ms: at the general type's 150 ms within the resolution, inside type S's 200 ms (std).
         var wav = Surge("mid.wav", "170ms");
         var json = Path.Combine(_folder, "mid.json");
-        var (exit, output, error) = CliHarness.Run("analyze", wav, "--sensor", "dc", "--mains", "50", "--timing", "s", "--json", json);
+        var (exit, output, error) = CliHarness.Run("analyze", wav, "--sensor", "dc", "--mains", "50Hz", "--timing", "s", "--json", json);
         Assert.True(exit == 0, error);
         Assert.DoesNotContain("TEST THE DEVICE", output, StringComparison.Ordinal);
         using var doc = JsonDocument.Parse(File.ReadAllText(json));

@@ -161,7 +161,7 @@ internal static class AnalyzeCommand
                 {
                     var browser = PdfPrinter.Print(html, pdfPath, token);
                     plan.MarkWritten("--pdf");
-                    Console.Error.WriteLine(TerminalText.Clean($"PDF printed with {browser}: {pdfPath}"));
+                    run.Terminal.Error.WriteLine(TerminalText.Clean($"PDF printed with {browser}: {pdfPath}"));
                 }
             }
 

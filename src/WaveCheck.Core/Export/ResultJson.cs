@@ -87,6 +87,11 @@ public static class ResultJson
         options.Converters.Add(new JsonStringEnumConverter<SensorCoupling>(JsonNamingPolicy.CamelCase));
         options.Converters.Add(new JsonStringEnumConverter<ComtradeDataFileType>(JsonNamingPolicy.CamelCase));
         options.Converters.Add(new JsonStringEnumConverter<WavSampleFormat>(JsonNamingPolicy.CamelCase));
+        options.Converters.Add(new JsonStringEnumConverter<ActionPriority>(JsonNamingPolicy.CamelCase));
+        options.Converters.Add(new JsonStringEnumConverter<DeviceTiming>(JsonNamingPolicy.CamelCase));
+        options.Converters.Add(new JsonStringEnumConverter<RetestMatch>(JsonNamingPolicy.CamelCase));
+        options.Converters.Add(new JsonStringEnumConverter<RetestOutcome>(JsonNamingPolicy.CamelCase));
+        options.Converters.Add(new JsonStringEnumConverter<TripFinding>(JsonNamingPolicy.CamelCase));
         options.Converters.Add(new FiniteDoubleConverter());
         options.TypeInfoResolver = ResultJsonContext.Default;
         options.MakeReadOnly();

@@ -13,5 +13,6 @@ namespace WaveCheck.Core.Export;
 [JsonSerializable(typeof(AnalysisResult))]
 [JsonSerializable(typeof(AssessmentResult))]
 [JsonSerializable(typeof(SurveyDocument))]
+[JsonSerializable(typeof(RetestComparison))]
 [JsonSerializable(typeof(double))]
 public sealed partial class ResultJsonContext : JsonSerializerContext;

@@ -47,7 +47,7 @@ public static class PdfPrinter
         }
 
         var path = Environment.GetEnvironmentVariable("PATH") ?? string.Empty;
-        var suffixes = RuntimeInformation.IsOSPlatform(OSPlatform.Windows) ? new[] { ".exe", string.Empty } : [string.Empty];
+        var suffixes = OperatingSystem.IsWindows() ? new[] { ".exe", string.Empty } : [string.Empty];
         foreach (var name in Names)
         {
             foreach (var folder in path.Split(Path.PathSeparator, StringSplitOptions.RemoveEmptyEntries))

@@ -58,7 +58,7 @@ public sealed class ChannelSelectionTests
         // and taking the first would judge a load current as a residual current. Refused, naming both ways out.
         var several = Assert.Throws<InvalidDataException>(() => Resolve(new ImportOptions()));
         Assert.Equal("3 channels could carry the residual current (L1, L2, N) and none is named as the residual current: " +
-                     "give --sum L1,L2,N to add live conductors' currents, or --channel L1 if that one is the residual current", several.Message);
+                     "give ⟦SumChannels⟧ L1,L2,N to add live conductors' currents, or ⟦Channel⟧ L1 if that one is the residual current", several.Message);
         var reason = Assert.Throws<InvalidDataException>(() => Resolve(new ImportOptions(), [0, 1], "2 channels are named as the earth current, not one"));
         Assert.Contains("(L1, L2) and 2 channels are named as the earth current, not one:", reason.Message, StringComparison.Ordinal);
 
@@ -80,7 +80,7 @@ public sealed class ChannelSelectionTests
         var one = ChannelSelection.Resolve(Channels, new ImportOptions { Channel = "N_A" }, Currents, "nothing to choose", Fail,
             writtenNames: written);
         Assert.Equal([2], one.Indices);
-        Assert.Equal("--channel: no channel named 'N_B' (channels: L1, L2, N, clamp, freq)",
+        Assert.Equal("⟦Channel⟧: no channel named 'N_B' (channels: L1, L2, N, clamp, freq)",
             Assert.Throws<InvalidDataException>(() => ChannelSelection.Resolve(Channels, new ImportOptions { Channel = "N_B" },
                 Currents, "nothing to choose", Fail, writtenNames: written)).Message);
     }

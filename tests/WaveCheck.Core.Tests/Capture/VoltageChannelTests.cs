@@ -11,7 +11,7 @@ using WaveCheck.Core.Tests.Capture.Comtrade;
 namespace WaveCheck.Core.Tests.Capture;
 
 /// <summary>
-/// Voltage channels in every format: named with <c>--voltage</c>, set aside from the residual current, scaled to volts
+/// Voltage channels in every format: named with <c>VoltageChannels</c> (the CLI's <c>--voltage</c>), set aside from the residual current, scaled to volts
 /// (WAV by <c>--voltage-scale</c>, CSV and COMTRADE by their units and a probe ratio), and refused in clear words
 /// when they cannot be one. The split's figures are checked within 1 % of the closed form I = V(1/R + jωC)
 /// (Ohm's law and the capacitor's admittance, REFERENCE.md "Insulation").
@@ -63,7 +63,7 @@ public sealed class VoltageChannelTests
         }
 
         var e = Assert.Throws<CaptureFormatException>(() => CaptureOpener.Open(path, new ImportOptions { VoltageChannels = ["ch2"] }));
-        Assert.Contains("--voltage on a WAV file needs --voltage-scale", e.Message, StringComparison.Ordinal);
+        Assert.Contains("VoltageChannels on a WAV file needs VoltageScale", e.Message, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -109,11 +109,11 @@ public sealed class VoltageChannelTests
     }
 
     [Theory]
-    [InlineData(new[] { "I" }, null, "--voltage: channel 'I' is in 'mA', not a voltage (V, mV or kV)")]
-    [InlineData(new[] { "U", "I" }, null, "--voltage names 2 channels: expected one (single-phase, line to earth or neutral) or three (L1,L2,L3 to earth)")]
-    [InlineData(new[] { "U", "u", "I" }, null, "--voltage names channel 'U' twice")]
-    [InlineData(new[] { "W" }, null, "--voltage: no channel named 'W' (channels: I, U)")]
-    [InlineData(null, 10.0, "--voltage-scale was given without --voltage: name the voltage channel(s)")]
+    [InlineData(new[] { "I" }, null, "VoltageChannels: channel 'I' is in 'mA', not a voltage (V, mV or kV)")]
+    [InlineData(new[] { "U", "I" }, null, "VoltageChannels names 2 channels: expected one (single-phase, line to earth or neutral) or three (L1,L2,L3 to earth)")]
+    [InlineData(new[] { "U", "u", "I" }, null, "VoltageChannels names channel 'U' twice")]
+    [InlineData(new[] { "W" }, null, "VoltageChannels: no channel named 'W' (channels: I, U)")]
+    [InlineData(null, 10.0, "VoltageScale was given without VoltageChannels: name the voltage channel(s)")]
     public void CsvVoltageChoicesThatCannotBeAreRefused(string[]? voltage, double? scale, string message)
     {
         using var folder = new TempFolder();
@@ -129,7 +129,7 @@ public sealed class VoltageChannelTests
         var path = folder.Write("both.csv", "time [s],I [mA],U [V]\n0,1,2\n0.001,1,2\n0.002,1,2\n");
         var e = Assert.Throws<CaptureFormatException>(() => CaptureOpener.Open(path,
             new ImportOptions { VoltageChannels = ["U"], SumChannels = ["I", "U"], SensitivityVPerA = 10 }));
-        Assert.Contains("channel 'U' is named by --voltage and also forms the residual current", e.Message, StringComparison.Ordinal);
+        Assert.Contains("channel 'U' is named by VoltageChannels and also forms the residual current", e.Message, StringComparison.Ordinal);
     }
 
     [Fact]

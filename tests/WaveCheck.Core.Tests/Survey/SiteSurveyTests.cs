@@ -1,9 +1,9 @@
+using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Export;
 using WaveCheck.Core.Model;
 using WaveCheck.Core.Survey;
 using WaveCheck.Core.Tests.Capture;
-using WaveCheck.Core.Assessment;
 
 namespace WaveCheck.Core.Tests.Survey;
 

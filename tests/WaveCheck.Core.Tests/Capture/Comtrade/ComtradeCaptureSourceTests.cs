@@ -167,7 +167,7 @@ public sealed class ComtradeCaptureSourceTests : IDisposable
         // The words of the shared channel choice (CSV and WAV give the same), with the reason no channel is taken.
         var error = Assert.Throws<CaptureFormatException>(() => ComtradeCaptureSource.Open(path, new ImportOptions()));
         Assert.Contains("(IL1, IL2, IL3) and no channel is named as the residual or earth current", error.Problem, StringComparison.Ordinal);
-        Assert.Contains("give --sum IL1,IL2,IL3", error.Problem, StringComparison.Ordinal);
+        Assert.Contains("give SumChannels IL1,IL2,IL3", error.Problem, StringComparison.Ordinal);
         Assert.DoesNotContain("UL1", error.Problem, StringComparison.Ordinal);
     }
 

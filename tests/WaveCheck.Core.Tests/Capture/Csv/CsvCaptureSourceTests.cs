@@ -207,7 +207,7 @@ public sealed class CsvCaptureSourceTests : IDisposable
         var path = _folder.Write("two.csv", "time [s],Ia [mA],Ib [mA]\n0,1,2\n0.001,3,4\n0.002,5,6\n");
         var refused = Assert.Throws<CaptureFormatException>(() => CaptureOpener.Open(path, new ImportOptions()));
         Assert.Equal(1, refused.Line);
-        Assert.StartsWith("2 channels could carry the residual current (Ia, Ib) and none is named as the residual current: give --sum Ia,Ib",
+        Assert.StartsWith("2 channels could carry the residual current (Ia, Ib) and none is named as the residual current: give SumChannels Ia,Ib",
             refused.Problem, StringComparison.Ordinal);
 
         using var second = CaptureOpener.Open(path, new ImportOptions { Channel = "2" });
