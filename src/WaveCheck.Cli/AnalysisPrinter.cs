@@ -24,12 +24,12 @@ internal static class AnalysisPrinter
             screen.Paragraph(warning.Message, "WARNING: not a residual current? ", "  ", labelStyle: new Style(Color.Red, decoration: Decoration.Bold));
         }
 
-        VerdictPrinter.Verdict(screen, a);
+        VerdictPrinter.Verdict(screen, a, full: details);
         if (details)
         {
             VerdictPrinter.Tables(screen, a, showTouchCurrent);
-            LeakageSplitLine.Print(screen, result.LeakageSplit);
-            TripReplayLines(screen, a);
+            LeakageSplitLine.Print(screen, result.LeakageSplit, details: true);
+            TripReplayLines(screen, a, details: true);
             Quantities(screen, result);
             foreach (var warning in result.Warnings)
             {
@@ -42,8 +42,8 @@ internal static class AnalysisPrinter
         {
             VerdictPrinter.TypeLines(screen, a);
             VerdictPrinter.MarginLines(screen, a, chargingPoint);
-            LeakageSplitLine.Print(screen, result.LeakageSplit);
-            TripReplayLines(screen, a);
+            LeakageSplitLine.Print(screen, result.LeakageSplit, details: false);
+            TripReplayLines(screen, a, details: false);
             var more = VerdictPrinter.TopCautions(screen, a, VerdictPrinter.SummaryCautions);
             var info = result.Capture;
             screen.Paragraph(string.Create(CultureInfo.InvariantCulture,
@@ -59,9 +59,10 @@ internal static class AnalysisPrinter
     }
 
     /// <summary>The trip replay's one line, and each event a compliant device should have tripped on, loudly.</summary>
-    private static void TripReplayLines(Screen screen, AssessmentResult a)
+    private static void TripReplayLines(Screen screen, AssessmentResult a, bool details)
     {
-        if (a.TripReplay is not { } replay)
+        // On the first screen only when a surge reached 0.5 IΔn (the level the replay starts from).
+        if (a.TripReplay is not { } replay || (!details && replay.EpisodesFound == 0 && replay.Alerts.Count == 0))
         {
             return;
         }

@@ -9,7 +9,7 @@ namespace WaveCheck.Cli;
 /// <summary>The terminal summary's line on the leakage split (only for a capture with a voltage channel).</summary>
 internal static class LeakageSplitLine
 {
-    public static void Print(Screen screen, LeakageSplitResult? split)
+    public static void Print(Screen screen, LeakageSplitResult? split, bool details)
     {
         if (split is null)
         {
@@ -19,7 +19,10 @@ internal static class LeakageSplitLine
         screen.Paragraph(Text(split), VerdictPrinter.Label("Leakage"), VerdictPrinter.Indent);
         if (split.Insulation is { State: LeakageInterpretation.BelowMinimum or LeakageInterpretation.AtLimit } insulation)
         {
-            screen.Paragraph(insulation.Message, VerdictPrinter.Indent);
+            // The first screen keeps the finding and what to do; the reasoning comes with --details.
+            var message = details ? insulation.Message : insulation.Message.Split(" even counting", 2)[0].Split("; ", 2)[0]
+                + "; to be confirmed with an insulation resistance tester, the circuit isolated, by a qualified person (--details)";
+            screen.Paragraph(message, VerdictPrinter.Indent);
         }
     }
 

@@ -26,25 +26,28 @@ internal static class VerdictPrinter
     private static readonly Style? Good = new(Color.Green);
     private static readonly Style? Open = new(Color.Yellow);
 
-    /// <summary>The deciding reason in full, and the installed device's adequacy.</summary>
-    public static void Verdict(Screen screen, AssessmentResult a)
+    /// <summary>The verdict (in full with its reasons for <c>--details</c>, else its lead: the type lines below give the
+    /// reasons), and the installed device's adequacy.</summary>
+    public static void Verdict(Screen screen, AssessmentResult a, bool full = true)
     {
-        screen.Paragraph(a.Headline, Label("VERDICT"), labelStyle: Bold);
+        screen.Paragraph(full ? a.Headline : Lead(a), Label("VERDICT"), labelStyle: Bold);
         if (a.InstalledType is not null)
         {
             screen.Paragraph(Installed(a), Label("Installed"), style: AdequacyStyle(a.InstalledAdequate), labelStyle: Bold);
         }
     }
 
+    /// <summary>The verdict without its reasons: the headline's lead, and the least type when the verdict is open.</summary>
+    private static string Lead(AssessmentResult a)
+    {
+        var lead = a.Headline.Split(": ", 2)[0];
+        return a.RequiredType is null ? lead + $"; at least type {a.MinimumType.ToTradeName()}" : lead;
+    }
+
     /// <summary>The verdict in one line, for the last line of the output.</summary>
     public static void LastLine(Screen screen, AssessmentResult a)
     {
-        var lead = a.Headline.Split(": ", 2)[0];
-        if (a.RequiredType is null)
-        {
-            lead += $"; at least type {a.MinimumType.ToTradeName()}";
-        }
-
+        var lead = Lead(a);
         var installed = a.InstalledType is null ? "" : "; installed " + Installed(a);
         screen.Paragraph(lead + installed, Label("VERDICT"), labelStyle: Bold);
     }

@@ -3,24 +3,8 @@ using System.Text.Json;
 namespace WaveCheck.Cli.Tests;
 
 /// <summary><c>wavecheck analyze</c> end to end on files written by <c>wavecheck synth</c>.</summary>
-public sealed class AnalyzeCommandTests : IDisposable
+public sealed class AnalyzeCommandTests : CliTestFolder
 {
-    private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));
-
-    public AnalyzeCommandTests() => Directory.CreateDirectory(_folder);
-
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
-
-    private string FilePath(string name) => Path.Combine(_folder, name);
-
-    private string Synth(string name, params string[] parts)
-    {
-        var path = FilePath(name);
-        var (exit, _, error) = CliHarness.Run(["synth", .. parts, "-o", path, "--duration", "1s"]);
-        Assert.True(exit == 0, error);
-        return path;
-    }
-
     [Fact]
     public void Json_carries_the_contract_and_the_verdict()
     {

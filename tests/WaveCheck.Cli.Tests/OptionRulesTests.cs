@@ -6,24 +6,8 @@ namespace WaveCheck.Cli.Tests;
 
 /// <summary>The rules of issue 14 for the command line: one rule for units, no guessing which channel is the residual
 /// current, typed options with their value names in help, and the <c>analyse</c> alias.</summary>
-public sealed class OptionRulesTests : IDisposable
+public sealed class OptionRulesTests : CliTestFolder
 {
-    private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));
-
-    public OptionRulesTests() => Directory.CreateDirectory(_folder);
-
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
-
-    private string FilePath(string name) => Path.Combine(_folder, name);
-
-    private string Synth(string name, params string[] parts)
-    {
-        var path = FilePath(name);
-        var (exit, _, error) = CliHarness.Run(["synth", .. parts, "-o", path, "--duration", "1s"]);
-        Assert.True(exit == 0, error);
-        return path;
-    }
-
     private static string OneLine(string error)
     {
         var lines = error.Split('\n', StringSplitOptions.RemoveEmptyEntries);

@@ -6,25 +6,8 @@ namespace WaveCheck.Cli.Tests;
 
 /// <summary><c>analyze</c>'s identity, paper and PDF options end to end: the identity and the capture's digest in
 /// the JSON, the PDF read back with poppler-utils, and one line for each bad value or a missing browser.</summary>
-[Collection(ConsoleCollection.Name)]
-public sealed class ReportOptionsTests : IDisposable
+public sealed class ReportOptionsTests : CliTestFolder
 {
-    private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));
-
-    public ReportOptionsTests() => Directory.CreateDirectory(_folder);
-
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
-
-    private string FilePath(string name) => Path.Combine(_folder, name);
-
-    private string Synth(string name, params string[] parts)
-    {
-        var path = FilePath(name);
-        var (exit, _, error) = CliHarness.Run(["synth", .. parts, "-o", path, "--duration", "1s"]);
-        Assert.True(exit == 0, error);
-        return path;
-    }
-
     [Fact]
     public void Identity_goes_into_json_report_and_pdf_with_the_captures_sha256()
     {

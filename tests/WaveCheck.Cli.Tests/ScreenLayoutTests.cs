@@ -24,7 +24,7 @@ public sealed partial class ScreenLayoutTests : IDisposable
     {
         { "c1-panel-saw-drive.wav", ["--device", "A", "--rated", "300mA", "--sensor", "dc"] },
         { "c2-extractor-fan.wav", ["--device", "A", "--rated", "30mA", "--sensor", "dc"] },
-        { "c3-ev-bay1.wav", ["--device", "A+RDC-DD", "--ev", "--rated", "30mA", "--sensor", "dc"] },
+        { "c3-ev-bay1.wav", ["--device", "A+RDC-DD", "--ev", "--rated", "30mA", "--sensor", "dc", "--voltage", "ch2", "--voltage-scale", "500V"] },
         { "c4-ev-bay2.wav", ["--device", "A", "--ev", "--rated", "30mA", "--sensor", "dc"] },
         { "c5-heat-pump.wav", ["--device", "F", "--rated", "30mA", "--sensor", "dc"] },
         { "c6-office-dimmers.csv", ["--device", "AC", "--rated", "30mA", "--sensor", "dc"] },

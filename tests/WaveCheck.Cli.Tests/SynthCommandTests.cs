@@ -2,16 +2,8 @@ using System.Text.Json;
 
 namespace WaveCheck.Cli.Tests;
 
-public sealed class SynthCommandTests : IDisposable
+public sealed class SynthCommandTests : CliTestFolder
 {
-    private readonly string _folder = Path.Combine(Path.GetTempPath(), "wavecheck-cli-tests", Guid.NewGuid().ToString("N"));
-
-    public SynthCommandTests() => Directory.CreateDirectory(_folder);
-
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
-
-    private string FilePath(string name) => Path.Combine(_folder, name);
-
     private static JsonElement Residual(JsonDocument info)
     {
         foreach (var channel in info.RootElement.GetProperty("channels").EnumerateArray())
