@@ -40,6 +40,32 @@ public sealed class ReportOptionsTests : CliTestFolder
         Assert.Contains("612 x 792 pts", Run("/usr/bin/pdfinfo", pdf), StringComparison.Ordinal); // US Letter, 8.5 × 11 in
     }
 
+    [Fact]
+    public void Survey_prints_its_index_to_pdf_outside_the_output_folder()
+    {
+        // A sine is what type AC detects; IEC 61008-1's half-wave test current (pulsating DC) needs type A: with type AC
+        // installed, C2 needs an upgrade and the index lists it in its remedial schedule.
+        var c1 = Synth("c1.wav", "sine:rms=5mA");
+        var c2 = Synth("c2.wav", "halfwave:peak=10mA");
+        var output = FilePath("out");
+        var pdf = FilePath("index.pdf");
+        var (exit, _, error) = CliHarness.Run("survey", c1, c2, "--device", "AC", "--rated", "30mA", "--sensor", "dc",
+            "-o", output, "--pdf", pdf, "-q");
+        Assert.True(exit == 0, error);
+        Assert.Contains("PDF printed with ", error, StringComparison.Ordinal);
+        var text = Run("/usr/bin/pdftotext", "-layout", pdf, "-");
+        Assert.Contains("Remedial schedule", text, StringComparison.Ordinal);
+        Assert.Contains("c2", text, StringComparison.Ordinal);
+
+        // Inside the output folder the PDF would be a stranger in a folder each survey replaces as a whole: refused
+        // before any work, the folder as it was.
+        var before = Directory.GetFileSystemEntries(output).Order(StringComparer.Ordinal).ToArray();
+        var (refused, _, why) = CliHarness.Run("survey", c1, "-o", output, "--pdf", Path.Combine(output, "index.pdf"), "-q");
+        Assert.Equal(2, refused);
+        Assert.Contains("outside --output", why, StringComparison.Ordinal);
+        Assert.Equal(before, Directory.GetFileSystemEntries(output).Order(StringComparer.Ordinal).ToArray());
+    }
+
     [Theory]
     [InlineData("--calibration-due", "31.03.2027", "expected a date such as 2027-03-31")]
     [InlineData("--recorded", "yesterday", "expected a date or date and time")]

@@ -37,13 +37,16 @@ internal static class SurveyCommand
         var sensor = ValueOptions.Choice("--sensor", "Sensor coupling for every capture: dc, ac or unknown (overrides the site file).", ValueOptions.SensorWords);
         var scale = ValueOptions.Current("--scale", "WAV full scale for every capture, e.g. 100mA (overrides the site file).", positive: true);
         var regime = ValueOptions.Choice("--regime", "iec or na for every capture (overrides the site file).", ValueOptions.RegimeWords);
+        var pdf = ValueOptions.Text("--pdf",
+            "Also print the index (circuits, remedial schedule, upstream checks) to this PDF file, outside --output, with a Chromium, Chrome or Edge found on this machine (headless).",
+            "FILE");
 
         var command = new Command("survey",
             "Judge every capture of a site in parallel and write a summary (CSV, JSON, HTML index, reports). Examples:\n" +
             "  wavecheck survey samples --config samples/site.json -o survey\n" +
             "  wavecheck survey logs/ --device A --rated 30mA --sensor dc --parquet")
         {
-            paths, config, output, parquet, quiet, failOn, rated, device, sensor, scale, regime,
+            paths, config, output, parquet, quiet, failOn, rated, device, sensor, scale, regime, pdf,
         };
         command.SetAction(parse => CliRun.Guard(parse, run =>
         {
@@ -94,6 +97,12 @@ internal static class SurveyCommand
                 AssessmentOptionSet.WarnAboutRating(run.Terminal, ratedA);
             }
 
+            var pdfPath = parse.GetValue(pdf);
+            if (pdfPath is not null)
+            {
+                CheckPdf(pdfPath, parse.GetValue(output)!, jobs, configPath);
+            }
+
             // Settings given as flags override the site file's: an error row names those by their flag.
             var onCommandLine = new HashSet<string>(
                 new (bool Given, string Property)[]
@@ -106,9 +115,45 @@ internal static class SurveyCommand
                 }.Where(s => s.Given).Select(s => s.Property), StringComparer.Ordinal);
             var document = Run(jobs, upstream, site, configPath, parse.GetValue(output)!, parse.GetValue(parquet), parse.GetValue(quiet), run,
                 SettingFlags.ForSurvey(configPath is not null, onCommandLine), identityOf);
+            if (pdfPath is not null)
+            {
+                var browser = PdfPrinter.Print(SurveyIndexWriter.Render(document), pdfPath, run.Token);
+                run.Terminal.Error.WriteLine(TerminalText.Clean($"PDF printed with {browser}: {pdfPath}"));
+            }
+
             return Exit(run.Terminal, document, fail);
         }));
         return command;
+    }
+
+    /// <summary>Before any work: a browser to print with, and a PDF path that replaces no input and lies outside the
+    /// output folder (which a survey replaces as a whole, so a file of its own there would stop the next survey).</summary>
+    private static void CheckPdf(string pdfPath, string outputDirectory, IReadOnlyList<SurveyJob> jobs, string? configPath)
+    {
+        if (PdfPrinter.FindBrowser() is null)
+        {
+            throw new UserInputException($"--pdf {pdfPath}: {PdfPrinter.InstallHint}");
+        }
+
+        var folder = Path.GetFullPath(outputDirectory) + Path.DirectorySeparatorChar;
+        if (Path.GetFullPath(pdfPath).StartsWith(folder, StringComparison.Ordinal))
+        {
+            throw new OptionValueException("--pdf", pdfPath, $"a file outside --output {outputDirectory}, which each survey replaces as a whole");
+        }
+
+        var plan = new OutputPlan();
+        foreach (var job in jobs)
+        {
+            plan.AddCapture(job.File);
+        }
+
+        if (configPath is not null)
+        {
+            plan.AddInput(configPath, "the site file");
+        }
+
+        plan.AddOutputFile(pdfPath, "--pdf");
+        plan.Check();
     }
 
     /// <summary>Runs the survey with reports and the index; prints the summary. Shared with <c>demo</c>.</summary>
