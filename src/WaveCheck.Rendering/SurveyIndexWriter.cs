@@ -149,9 +149,10 @@ public static class SurveyIndexWriter
     public static string PriorityLabel(ActionPriority priority) => priority switch
     {
         ActionPriority.DeviceTooWeak => "1 safety: device too weak",
-        ActionPriority.NotShown => "2 safety not shown",
-        ActionPriority.NuisanceTripping => "3 nuisance tripping",
-        _ => "4 leakage budget",
+        ActionPriority.TestDevice => "2 safety: test the device",
+        ActionPriority.NotShown => "3 safety not shown",
+        ActionPriority.NuisanceTripping => "4 nuisance tripping",
+        _ => "5 leakage budget",
     };
 
     private static void Captures(StringBuilder html, IReadOnlyList<SurveyRow> rows)

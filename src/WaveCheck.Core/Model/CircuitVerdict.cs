@@ -60,6 +60,10 @@ public sealed record CircuitVerdict
     /// <summary>True when any capture blinds the device; null when none does but one cannot tell; false otherwise.</summary>
     public bool? Blinded { get; init; }
 
+    /// <summary>True when a capture holds an event a compliant device of the installed rating must trip on (the trip
+    /// replay's alert); false when none does; null when no capture was replayed.</summary>
+    public bool? TripAlert { get; init; }
+
     /// <summary>The captures of the circuit, in the order of the survey.</summary>
     public required IReadOnlyList<CircuitCapture> Captures { get; init; }
 }

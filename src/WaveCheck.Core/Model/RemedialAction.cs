@@ -10,17 +10,22 @@ public enum ActionPriority
     [System.Text.Json.Serialization.JsonStringEnumMemberName("device-too-weak")]
     DeviceTooWeak = 1,
 
+    /// <summary>An event in a capture reached a current and duration at which a compliant device of the installed
+    /// rating must trip (the trip replay's alert): if it did not, the device itself is suspect.</summary>
+    [System.Text.Json.Serialization.JsonStringEnumMemberName("test-device")]
+    TestDevice = 2,
+
     /// <summary>Adequacy could not be shown (no installed device stated, a capture failed, or a class left open).</summary>
     [System.Text.Json.Serialization.JsonStringEnumMemberName("not-shown")]
-    NotShown = 2,
+    NotShown = 3,
 
     /// <summary>Standing residual current at or above the non-operating limit (0.5 IΔn): trips without a fault likely.</summary>
     [System.Text.Json.Serialization.JsonStringEnumMemberName("nuisance-tripping")]
-    NuisanceTripping = 3,
+    NuisanceTripping = 4,
 
     /// <summary>Standing residual current above the leakage budget (0.3 IΔn) but below the non-operating limit.</summary>
     [System.Text.Json.Serialization.JsonStringEnumMemberName("leakage-budget")]
-    LeakageBudget = 4,
+    LeakageBudget = 5,
 }
 
 /// <summary>One row of the remedial schedule: a circuit (or an upstream device) that needs action, with its most

@@ -105,6 +105,7 @@ public static class CircuitVerdicts
                 : analysed.Any(r => r.Blinded == true) ? true
                 : analysed.Any(r => r.Blinded is null) ? null
                 : false,
+            TripAlert = analysed.Any(r => r.TripAlert == true) ? true : analysed.Any(r => r.TripAlert == false) ? false : null,
             Captures = [.. captures.Select(r => new CircuitCapture(r.File, r.State, r.Verdict, r.RequiredType, r.MinimumType,
                 r.WorstWindowRmsA ?? r.RmsA, r.ReportPath))],
         };

@@ -6,7 +6,8 @@ namespace WaveCheck.Core.Survey;
 
 /// <summary>
 /// The remedial schedule of a survey: one row per circuit (and per upstream device) that needs action, ordered by
-/// <see cref="ActionPriority"/>: safety first (a device too weak or blinded), then what the survey could not show,
+/// <see cref="ActionPriority"/>: safety first (a device too weak or blinded, then a device that should have tripped on a
+/// recorded event), then what the survey could not show,
 /// then nuisance tripping, then the leakage budget; within a priority, in the order of the survey.
 /// </summary>
 public static class RemedialSchedule
@@ -53,6 +54,13 @@ public static class RemedialSchedule
         {
             reasons.Add((ActionPriority.DeviceTooWeak,
                 $"smooth DC {Amps(circuit.SmoothDcA)} (worst window) beyond what the installed device tolerates: it may not trip on a real fault"));
+        }
+
+        if (circuit.TripAlert == true)
+        {
+            // Safety before nuisance: a device that did not trip where a compliant one must may be faulty.
+            reasons.Add((ActionPriority.TestDevice,
+                "a compliant device would have tripped on an event in a capture (trip replay): if the installed device did not, test it with an RCD tester before relying on it"));
         }
 
         if (circuit.Verdict is SurveyVerdict.CannotTell or SurveyVerdict.Error)

@@ -55,6 +55,26 @@ public class RemedialScheduleTests
     };
 
     [Fact]
+    public void A_device_that_should_have_tripped_is_tested_before_anything_but_a_device_too_weak()
+    {
+        // A recorded event at or past a break time of IEC 61008-1 (e.g. 1.5 IΔn for 400 ms, past the 300 ms at IΔn)
+        // means a compliant device must have tripped: if it did not, the device is suspect. That is a safety action,
+        // after a device too weak and before what the survey could not show and before nuisance tripping (engineering
+        // choice, docs/methods.md "remedial schedule").
+        var surge = Circuit("C7", SurveyVerdict.Ok, RiskLevel.Likely, worstA: 0.042) with { TripAlert = true };
+        var open = Circuit("C5", SurveyVerdict.CannotTell, RiskLevel.Low, required: null);
+        var weak = Circuit("C4", SurveyVerdict.Upgrade, RiskLevel.Low, required: DeviceType.B);
+        var quiet = Circuit("C1", SurveyVerdict.Ok, RiskLevel.Low) with { TripAlert = false };
+
+        var schedule = RemedialSchedule.From([quiet, open, surge, weak], []);
+
+        Assert.Equal(["C4", "C7", "C5"], schedule.Select(a => a.Circuit));
+        Assert.Equal(ActionPriority.TestDevice, schedule[1].Priority);
+        Assert.StartsWith("a compliant device would have tripped", schedule[1].Reason, StringComparison.Ordinal);
+        Assert.Contains("nuisance tripping likely", schedule[1].Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Safety_comes_first_then_what_is_not_shown_then_nuisance_then_the_budget()
     {
         // Listed in the reverse of the expected order, so the order cannot come from the input.
