@@ -260,6 +260,12 @@ public static class ReportWriter
 
         html.Raw("<p class=\"muted\">").Text($"Rated residual operating current assessed: IΔn = {CurrentText.WithUnit(a.RatedResidualCurrentA)}; rules: {RegimeText(a.Regime)}.").Raw("</p>\n");
         html.Raw("</div>\n");
+        if (a.TripReplay is { Alerts.Count: > 0 } replay)
+        {
+            // Beside the verdict, not only in the replay's section: an adequate type does not make a silent device safe.
+            html.Raw("<div class=\"alert\">").Text($"Test the device: {replay.Alerts.Count} recorded event(s) reached a current and duration at which a compliant device of this rating must trip (see the trip replay below). If the installed device did not trip, test it with an RCD tester before relying on it.").Raw("</div>\n");
+        }
+
         if (a.Blinding.Blinded == true)
         {
             html.Raw("<div class=\"alert\">").Text($"Blinding: the smooth DC of {CurrentText.WithUnit(a.Blinding.SmoothDcA)} exceeds what a type {a.Blinding.DeviceType.ToTradeName()} device is specified to work with ({Current(a.Blinding.ToleranceA)}). It may fail to trip on a real earth fault.").Raw("</div>\n");

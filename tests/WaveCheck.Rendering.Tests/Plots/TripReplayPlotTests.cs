@@ -59,6 +59,12 @@ public class TripReplayPlotTests
         Assert.Contains("<svg", section, StringComparison.Ordinal);
         Assert.Contains("type S: non-actuating times", section, StringComparison.Ordinal);
         Assert.Contains("What to do", section, StringComparison.Ordinal);
+
+        // The same alert stands right after the verdict box, before the first section: a reader who stops at "adequate"
+        // (the type suits the circuit) still learns that the device itself is to be tested.
+        var verdictEnd = html.IndexOf("<p class=\"muted\">Rated residual operating current assessed", StringComparison.Ordinal);
+        var early = html.IndexOf("Test the device:", verdictEnd, StringComparison.Ordinal);
+        Assert.True(verdictEnd > 0 && early > verdictEnd && early < start);
     }
 
     [Fact]
@@ -68,6 +74,7 @@ public class TripReplayPlotTests
         var html = ReportWriter.Render(evaluation.Analysis, evaluation.Assessment with { TripReplay = null },
             new ReportContext(null, null, null, DateTimeOffset.UnixEpoch, "test"));
         Assert.DoesNotContain("id=\"trip-replay\"", html, StringComparison.Ordinal);
+        Assert.DoesNotContain("Test the device:", html, StringComparison.Ordinal);
         Assert.False(TripReplayPlot.Applies(evaluation.Assessment with { TripReplay = null }));
     }
 }
