@@ -166,7 +166,7 @@ public static class SubMainsDc
     /// <summary>Solves <paramref name="a"/>·u = <paramref name="b"/> by Gaussian elimination with partial pivoting
     /// (<paramref name="a"/> and <paramref name="b"/> are overwritten); false when the system is singular (a pivot
     /// below 1e-9 of the sample count: the regressors are not independent over the window).</summary>
-    private static bool Solve(Span<double> a, Span<double> b, int k, int samples, Span<double> u)
+    internal static bool Solve(Span<double> a, Span<double> b, int k, int samples, Span<double> u)
     {
         var tiny = 1e-9 * samples;
         for (var col = 0; col < k; col++)
