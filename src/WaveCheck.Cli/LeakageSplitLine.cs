@@ -20,8 +20,7 @@ internal static class LeakageSplitLine
         if (split.Insulation is { State: LeakageInterpretation.BelowMinimum or LeakageInterpretation.AtLimit } insulation)
         {
             // The first screen keeps the finding and what to do; the reasoning comes with --details.
-            var message = details ? insulation.Message : insulation.Message.Split(" even counting", 2)[0].Split("; ", 2)[0]
-                + "; to be confirmed with an insulation resistance tester, the circuit isolated, by a qualified person (--details)";
+            var message = details ? insulation.Message : insulation.Summary + " Reasoning: --details.";
             screen.Paragraph(message, VerdictPrinter.Indent);
         }
     }

@@ -70,7 +70,10 @@ public static class LeakageInterpretation
         if (resistiveA - uncertaintyA >= limitA)
         {
             return new InsulationFinding(BelowMinimum, r, minimumOhm, limitA, uncertaintyA, string.Create(CultureInfo.InvariantCulture,
-                $"POSSIBLE INSULATION FAULT: the resistive leakage ({CurrentText.WithUnit(resistiveA)} at {voltage:0} V, the worst window) means a leakage resistance of {rText}, below the {minText} minimum insulation resistance of IEC 60364-6 (from memory) even counting ±{CurrentText.WithUnit(uncertaintyA)}; {test} {note}."));
+                $"POSSIBLE INSULATION FAULT: the resistive leakage ({CurrentText.WithUnit(resistiveA)} at {voltage:0} V, the worst window) means a leakage resistance of {rText}, below the {minText} minimum insulation resistance of IEC 60364-6 (from memory) even counting ±{CurrentText.WithUnit(uncertaintyA)}; {test} {note}."))
+            {
+                Summary = $"POSSIBLE INSULATION FAULT: leakage resistance {rText} (worst window), below the {minText} minimum of IEC 60364-6 (from memory); {ShortTest}.",
+            };
         }
 
         if (resistiveA + uncertaintyA < limitA)
@@ -80,8 +83,14 @@ public static class LeakageInterpretation
         }
 
         return new InsulationFinding(AtLimit, r, minimumOhm, limitA, uncertaintyA, string.Create(CultureInfo.InvariantCulture,
-            $"Insulation cannot be ruled out: the resistive leakage ({CurrentText.WithUnit(resistiveA)} at {voltage:0} V, leakage resistance {rText}) is within its uncertainty (±{CurrentText.WithUnit(uncertaintyA)}: the clamp's accuracy and a {phaseUncertaintyDeg:0.#}° phase error on the whole current) of the {CurrentText.WithUnit(limitA)} a {minText} insulation resistance would draw; resolved to the safe side: a possible insulation fault, {test} {note}."));
+            $"Insulation cannot be ruled out: the resistive leakage ({CurrentText.WithUnit(resistiveA)} at {voltage:0} V, leakage resistance {rText}) is within its uncertainty (±{CurrentText.WithUnit(uncertaintyA)}: the clamp's accuracy and a {phaseUncertaintyDeg:0.#}° phase error on the whole current) of the {CurrentText.WithUnit(limitA)} a {minText} insulation resistance would draw; resolved to the safe side: a possible insulation fault, {test} {note}."))
+        {
+            Summary = $"POSSIBLE INSULATION FAULT (at the limit, safe side): leakage resistance {rText} against the {minText} minimum of IEC 60364-6 (from memory); {ShortTest}.",
+        };
     }
+
+    /// <summary>What to do about a possible insulation fault, in short.</summary>
+    private const string ShortTest = "to be confirmed with an insulation resistance tester, the circuit isolated, by a qualified person";
 
     /// <summary>A resistance for a person: kΩ or MΩ.</summary>
     public static string ResistanceText(double ohms) => ohms >= 1e6

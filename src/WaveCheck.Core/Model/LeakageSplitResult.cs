@@ -132,4 +132,9 @@ public sealed record LeakageTrendPoint(double StartS, double ResistiveA, double 
 /// share of the whole current a phase error between the two sensors moves into it, amperes.</param>
 /// <param name="Message">The finding and what to do, for a person.</param>
 public sealed record InsulationFinding(string State, double? ResistanceOhm, double MinimumOhm, double ResistiveLimitA,
-    double UncertaintyA, string Message);
+    double UncertaintyA, string Message)
+{
+    /// <summary>The finding and what to do in one sentence, without the reasoning (a terminal's first screen); the
+    /// same as <see cref="Message"/> where that is short already.</summary>
+    public string Summary { get; init; } = Message;
+}

@@ -128,6 +128,11 @@ public class LeakageAnalysisTests
         Assert.Equal(LeakageInterpretation.BelowMinimum, split.Insulation!.State);
         Assert.Contains("insulation resistance tester", split.Insulation.Message, StringComparison.Ordinal);
         Assert.Contains("qualified person", split.Insulation.Message, StringComparison.Ordinal);
+        // The short form keeps the finding, its figure against the minimum and what to do; only the reasoning goes.
+        Assert.StartsWith("POSSIBLE INSULATION FAULT: leakage resistance 12", split.Insulation.Summary, StringComparison.Ordinal);
+        Assert.Contains("1 MΩ minimum of IEC 60364-6", split.Insulation.Summary, StringComparison.Ordinal);
+        Assert.Contains("insulation resistance tester", split.Insulation.Summary, StringComparison.Ordinal);
+        Assert.True(split.Insulation.Summary.Length < split.Insulation.Message.Length);
     }
 
     [Fact]
