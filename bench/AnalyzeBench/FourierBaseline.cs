@@ -4,6 +4,8 @@ using System.Numerics;
 using MathNet.Numerics.IntegralTransforms;
 using WaveCheck.Core.Signal;
 
+namespace WaveCheck.AnalyzeBench;
+
 /// <summary>
 /// The hand-written FFT (<see cref="RealSpectrum"/>) against the library baseline, MathNet.Numerics' Fourier, on the
 /// window lengths the analysis meets: 10 000 (50 Hz at 50 kS/s), 10 006 (49.97 Hz), 8 333 (60 Hz) and a power of two

@@ -2,6 +2,8 @@ using System.Diagnostics;
 using System.Globalization;
 using WaveCheck.Core.Signal;
 
+namespace WaveCheck.AnalyzeBench;
+
 /// <summary>Per-stage cost of one window (profile before optimising): run with the argument <c>stages</c>.</summary>
 internal static class Stages
 {

@@ -58,7 +58,9 @@ public static class ResultJson
         AtomicFile.Write(path, s => JsonSerializer.Serialize(s, value, typeInfo), cancellationToken);
     }
 
-    private static JsonTypeInfo<T> TypeInfo<T>() => (JsonTypeInfo<T>)Options.GetTypeInfo(typeof(T));
+    /// <summary>The source-generated metadata of <typeparamref name="T"/> under <see cref="Options"/> (a type
+    /// <see cref="ResultJsonContext"/> lists): reading or writing through it needs no reflection, so it works trimmed.</summary>
+    internal static JsonTypeInfo<T> TypeInfo<T>() => (JsonTypeInfo<T>)Options.GetTypeInfo(typeof(T));
 
     private static JsonSerializerOptions Create()
     {

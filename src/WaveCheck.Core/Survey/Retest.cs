@@ -296,7 +296,7 @@ public static class Retest
         SurveyDocument survey;
         try
         {
-            survey = root.Deserialize<SurveyDocument>(ResultJson.Options)
+            survey = root.Deserialize(ResultJson.TypeInfo<SurveyDocument>())
                 ?? throw new UserInputException($"{file}: the survey is null");
         }
         catch (JsonException e)
