@@ -33,8 +33,13 @@ run() {
 }
 for capture in "$root"/samples/*.wav "$root"/samples/*.csv; do
   name="$(basename "${capture%.*}")"
-  run "$capture" "$name"
-  run "$capture" "$name-alarm" --sensor dc --alarm 5mA --windows-csv "$out/$name-alarm.csv"
+  # A capture's own channel settings, as samples/site.json gives them (C3 records its supply voltage on ch2).
+  extra=()
+  case "$name" in
+    c3-ev-bay1) extra=(--voltage ch2 --voltage-scale 500V) ;;
+  esac
+  run "$capture" "$name" "${extra[@]}"
+  run "$capture" "$name-alarm" "${extra[@]}" --sensor dc --alarm 5mA --windows-csv "$out/$name-alarm.csv"
 done
 
 for capture in "$@"; do

@@ -1,4 +1,5 @@
 using System.Runtime.CompilerServices;
+using System.Runtime.Intrinsics;
 
 namespace WaveCheck.Core.Signal;
 
@@ -98,19 +99,64 @@ public sealed class RealFft
         }
 
         _dft.Forward(_re, _im);
-        var tr = _twiddleRe;
+        Split(re, im);
+    }
+
+    /// <summary>The split step X_k = E_k + e^{−2πik/n}·O_k for k = 0 … h, from the half-length transform in
+    /// <c>_re</c>/<c>_im</c>. Bins 1 … h − 1 four at a time where 256-bit vectors run in hardware (Z_{h−k} read as a
+    /// reversed vector); every bin gets the same operations in the same order either way, so the figures are the same
+    /// bits as the scalar loop's.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void Split(Span<double> re, Span<double> im)
+    {
+        var h = Length / 2;
+        var tr = _twiddleRe!;
         var ti = _twiddleIm!;
-        for (var k = 0; k <= h; k++)
+        SplitBin(0, 0, 0, re, im);
+        var k = 1;
+        if (Vector256.IsHardwareAccelerated)
         {
-            // Z index k mod h and (h − k) mod h, without a division per bin.
-            var a = k == h ? 0 : k;
-            var b = k == 0 ? 0 : h - k;
-            var er = 0.5 * (_re[a] + _re[b]);
-            var ei = 0.5 * (_im[a] - _im[b]);
-            var or = 0.5 * (_im[a] + _im[b]);
-            var oi = -0.5 * (_re[a] - _re[b]);
-            re[k] = er + ((tr[k] * or) - (ti[k] * oi));
-            im[k] = ei + ((tr[k] * oi) + (ti[k] * or));
+            var half = Vector256.Create(0.5);
+            var minusHalf = Vector256.Create(-0.5);
+            var reverse = Vector256.Create(3L, 2, 1, 0);
+            // Lanes k … k + 3 against h − k − 3 … h − k, all within 1 … h − 1.
+            for (; k + 3 <= h - 1; k += 4)
+            {
+                var ra = Vector256.Create(_re.AsSpan(k, 4));
+                var ia = Vector256.Create(_im.AsSpan(k, 4));
+                var rb = Vector256.Shuffle(Vector256.Create(_re.AsSpan(h - k - 3, 4)), reverse);
+                var ib = Vector256.Shuffle(Vector256.Create(_im.AsSpan(h - k - 3, 4)), reverse);
+                var er = half * (ra + rb);
+                var ei = half * (ia - ib);
+                var or = half * (ia + ib);
+                var oi = minusHalf * (ra - rb);
+                var wr = Vector256.Create(tr.AsSpan(k, 4));
+                var wi = Vector256.Create(ti.AsSpan(k, 4));
+                (er + ((wr * or) - (wi * oi))).CopyTo(re.Slice(k, 4));
+                (ei + ((wr * oi) + (wi * or))).CopyTo(im.Slice(k, 4));
+            }
         }
+
+        for (; k < h; k++)
+        {
+            SplitBin(k, k, h - k, re, im);
+        }
+
+        // Z index h mod h = 0 for the last bin.
+        SplitBin(h, 0, 0, re, im);
+    }
+
+    /// <summary>One bin of the split step: Z_a and Z_b are Z_k and Z_{h−k} (indices mod h).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private void SplitBin(int k, int a, int b, Span<double> re, Span<double> im)
+    {
+        var tr = _twiddleRe!;
+        var ti = _twiddleIm!;
+        var er = 0.5 * (_re[a] + _re[b]);
+        var ei = 0.5 * (_im[a] - _im[b]);
+        var or = 0.5 * (_im[a] + _im[b]);
+        var oi = -0.5 * (_re[a] - _re[b]);
+        re[k] = er + ((tr[k] * or) - (ti[k] * oi));
+        im[k] = ei + ((tr[k] * oi) + (ti[k] * or));
     }
 }

@@ -1,4 +1,5 @@
 using System.Runtime.CompilerServices;
+using System.Runtime.Intrinsics;
 
 namespace WaveCheck.Core.Signal;
 
@@ -93,10 +94,30 @@ public sealed class RealSpectrum
         var even = Length % 2 == 0;
         var norm = 1.0 / ((double)Length * Length);
         _fft.Forward(samples, _binRe, _binIm);
-        for (var k = 0; k < bins; k++)
+        var k = 0;
+        if (Vector256.IsHardwareAccelerated)
         {
-            var p = ((_binRe[k] * _binRe[k]) + (_binIm[k] * _binIm[k])) * norm;
-            power[k] = k == 0 || (even && k == bins - 1) ? p : 2 * p;
+            // The same operations per bin as below, four bins at a time; bin 0 and the Nyquist bin put right after.
+            var vNorm = Vector256.Create(norm);
+            var two = Vector256.Create(2.0);
+            for (; k + 4 <= bins; k += 4)
+            {
+                var r = Vector256.Create(_binRe.AsSpan(k, 4));
+                var i = Vector256.Create(_binIm.AsSpan(k, 4));
+                (two * (((r * r) + (i * i)) * vNorm)).CopyTo(power.Slice(k, 4));
+            }
+        }
+
+        for (; k < bins; k++)
+        {
+            power[k] = 2 * (((_binRe[k] * _binRe[k]) + (_binIm[k] * _binIm[k])) * norm);
+        }
+
+        // Bin 0 and (even length) the Nyquist bin have no mirror: their mean square is |X_k|²/n², not twice it.
+        power[0] = ((_binRe[0] * _binRe[0]) + (_binIm[0] * _binIm[0])) * norm;
+        if (even)
+        {
+            power[bins - 1] = ((_binRe[bins - 1] * _binRe[bins - 1]) + (_binIm[bins - 1] * _binIm[bins - 1])) * norm;
         }
     }
 }
