@@ -1,5 +1,4 @@
 using System.Globalization;
-using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Model;
 using WaveCheck.Core.Text;

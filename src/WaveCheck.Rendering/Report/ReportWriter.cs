@@ -27,7 +27,7 @@ public static class ReportWriter
     ];
 
     /// <summary>Cautions stated with every report, whatever the assessment adds.</summary>
-    public static IReadOnlyList<string> StandingCautions => Core.Assessment.StandingCautions.All;
+    public static IReadOnlyList<string> StandingCautions => Core.Text.StandingCautions.All;
 
     /// <summary>Most event rows listed.</summary>
     public const int MaxEventRows = 200;
