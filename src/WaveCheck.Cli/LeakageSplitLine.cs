@@ -17,7 +17,7 @@ internal static class LeakageSplitLine
         }
 
         screen.Paragraph(Text(split), VerdictPrinter.Label("Leakage"), VerdictPrinter.Indent);
-        if (split.Insulation is { State: LeakageInterpretation.BelowMinimum or LeakageInterpretation.AtLimit } insulation)
+        if (split.Insulation is { State: InsulationState.BelowMinimum or InsulationState.AtLimit } insulation)
         {
             // The first screen keeps the finding and what to do; the reasoning comes with --details.
             var message = details ? insulation.Message : insulation.Summary + " Reasoning: --details.";
@@ -33,15 +33,15 @@ internal static class LeakageSplitLine
             return "Leakage split: no window with a usable voltage (" + string.Join(", ", split.VoltageChannels) + ").";
         }
 
-        var r = split.ResistanceOhm is { } ohms ? LeakageInterpretation.ResistanceText(ohms) : "no resistive part";
-        var c = LeakageInterpretation.CapacitanceText(split.CapacitanceF.Mean);
+        var r = split.ResistanceOhm is { } ohms ? ImpedanceText.Resistance(ohms) : "no resistive part";
+        var c = ImpedanceText.Capacitance(split.CapacitanceF.Mean);
         var head = string.Create(CultureInfo.InvariantCulture,
             $"Leakage split ({split.Kind}, {split.VoltageRmsV:0} V): resistive {CurrentText.WithUnit(split.ResistiveA.Mean)}, capacitive {CurrentText.WithUnit(split.CapacitiveA.Mean)}");
         if (split.Location is { } location)
         {
             var dominant = location.Directions.First(d => d.Phase == location.DominantPhase && d.Kind == location.DominantKind);
-            var equivalent = dominant.ResistanceOhm is { } dr ? LeakageInterpretation.ResistanceText(dr)
-                : dominant.CapacitanceF is { } dc ? LeakageInterpretation.CapacitanceText(dc) : "-";
+            var equivalent = dominant.ResistanceOhm is { } dr ? ImpedanceText.Resistance(dr)
+                : dominant.CapacitanceF is { } dc ? ImpedanceText.Capacitance(dc) : "-";
             return string.Create(CultureInfo.InvariantCulture,
                 $"{head}; asymmetry mostly {location.DominantKind} on {location.DominantPhase} ({CurrentText.WithUnit(dominant.MeanA)}, {equivalent}), assuming balanced capacitances cancel.");
         }

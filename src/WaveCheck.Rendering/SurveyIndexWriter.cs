@@ -1,7 +1,6 @@
 using System.Globalization;
 using System.Net;
 using System.Text;
-using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Export;
 using WaveCheck.Core.Model;
 using WaveCheck.Core.Text;

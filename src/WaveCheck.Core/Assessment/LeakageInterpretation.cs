@@ -11,9 +11,6 @@ namespace WaveCheck.Core.Assessment;
 /// </summary>
 public static class LeakageInterpretation
 {
-    /// <summary>Finding states.</summary>
-    public const string BelowMinimum = "below-minimum", AtLimit = "at-limit", AboveMinimum = "above-minimum", NotResolved = "not-resolved";
-
     /// <summary>Adds the insulation finding, the fit's verdict and their notes to <paramref name="split"/>.</summary>
     /// <param name="split">The split as measured.</param>
     /// <param name="accuracy">Accuracy of the current measurement.</param>
@@ -53,7 +50,7 @@ public static class LeakageInterpretation
         var voltage = split.VoltageRmsV;
         if (split.Windows == 0 || !(voltage > 0))
         {
-            return new InsulationFinding(NotResolved, null, minimumOhm, double.NaN, double.NaN,
+            return new InsulationFinding(InsulationState.NotResolved, null, minimumOhm, double.NaN, double.NaN,
                 "No insulation finding: no window had a usable voltage.");
         }
 
@@ -63,13 +60,13 @@ public static class LeakageInterpretation
         var wholeA = Math.Sqrt((split.ResistiveA.Max * split.ResistiveA.Max) + (split.CapacitiveA.Max * split.CapacitiveA.Max));
         var uncertaintyA = accuracy.UncertaintyA(resistiveA) + (wholeA * Math.Sin(phaseUncertaintyDeg * Math.PI / 180));
         var r = split.LeastResistanceOhm;
-        var rText = r is { } ohms ? ResistanceText(ohms) : "no resistive part";
-        var minText = ResistanceText(minimumOhm);
+        var rText = r is { } ohms ? ImpedanceText.Resistance(ohms) : "no resistive part";
+        var minText = ImpedanceText.Resistance(minimumOhm);
         var test = "to be confirmed with an insulation resistance tester, the circuit isolated and its loads disconnected, by a qualified person";
         var note = "(a leakage at operating voltage with loads connected is not the insulation test of IEC 60364-6; heating elements, surge protective devices and filter resistors also draw resistive current)";
         if (resistiveA - uncertaintyA >= limitA)
         {
-            return new InsulationFinding(BelowMinimum, r, minimumOhm, limitA, uncertaintyA, string.Create(CultureInfo.InvariantCulture,
+            return new InsulationFinding(InsulationState.BelowMinimum, r, minimumOhm, limitA, uncertaintyA, string.Create(CultureInfo.InvariantCulture,
                 $"POSSIBLE INSULATION FAULT: the resistive leakage ({CurrentText.WithUnit(resistiveA)} at {voltage:0} V, the worst window) means a leakage resistance of {rText}, below the {minText} minimum insulation resistance of IEC 60364-6 (from memory) even counting ±{CurrentText.WithUnit(uncertaintyA)}; {test} {note}."))
             {
                 Summary = $"POSSIBLE INSULATION FAULT: leakage resistance {rText} (worst window), below the {minText} minimum of IEC 60364-6 (from memory); {ShortTest}.",
@@ -78,11 +75,11 @@ public static class LeakageInterpretation
 
         if (resistiveA + uncertaintyA < limitA)
         {
-            return new InsulationFinding(AboveMinimum, r, minimumOhm, limitA, uncertaintyA, string.Create(CultureInfo.InvariantCulture,
+            return new InsulationFinding(InsulationState.AboveMinimum, r, minimumOhm, limitA, uncertaintyA, string.Create(CultureInfo.InvariantCulture,
                 $"Insulation: the resistive leakage ({CurrentText.WithUnit(resistiveA)} at {voltage:0} V) stays below the {CurrentText.WithUnit(limitA)} a {minText} insulation resistance would draw, even counting ±{CurrentText.WithUnit(uncertaintyA)}: no sign of an insulation fault in this capture."));
         }
 
-        return new InsulationFinding(AtLimit, r, minimumOhm, limitA, uncertaintyA, string.Create(CultureInfo.InvariantCulture,
+        return new InsulationFinding(InsulationState.AtLimit, r, minimumOhm, limitA, uncertaintyA, string.Create(CultureInfo.InvariantCulture,
             $"Insulation cannot be ruled out: the resistive leakage ({CurrentText.WithUnit(resistiveA)} at {voltage:0} V, leakage resistance {rText}) is within its uncertainty (±{CurrentText.WithUnit(uncertaintyA)}: the clamp's accuracy and a {phaseUncertaintyDeg:0.#}° phase error on the whole current) of the {CurrentText.WithUnit(limitA)} a {minText} insulation resistance would draw; resolved to the safe side: a possible insulation fault, {test} {note}."))
         {
             Summary = $"POSSIBLE INSULATION FAULT (at the limit, safe side): leakage resistance {rText} against the {minText} minimum of IEC 60364-6 (from memory); {ShortTest}.",
@@ -91,14 +88,4 @@ public static class LeakageInterpretation
 
     /// <summary>What to do about a possible insulation fault, in short.</summary>
     private const string ShortTest = "to be confirmed with an insulation resistance tester, the circuit isolated, by a qualified person";
-
-    /// <summary>A resistance for a person: kΩ or MΩ.</summary>
-    public static string ResistanceText(double ohms) => ohms >= 1e6
-        ? string.Create(CultureInfo.InvariantCulture, $"{ohms / 1e6:0.##} MΩ")
-        : string.Create(CultureInfo.InvariantCulture, $"{ohms / 1e3:0.#} kΩ");
-
-    /// <summary>A capacitance for a person: nF (µF above 10 µF).</summary>
-    public static string CapacitanceText(double farads) => Math.Abs(farads) >= 1e-5
-        ? string.Create(CultureInfo.InvariantCulture, $"{farads * 1e6:0.##} µF")
-        : string.Create(CultureInfo.InvariantCulture, $"{farads * 1e9:0.#} nF");
 }

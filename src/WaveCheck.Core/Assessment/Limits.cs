@@ -105,12 +105,12 @@ public static partial class Limits
 
     /// <summary>Upper frequency of B+'s defined tripping: 20 000 Hz.</summary>
     /// <remarks>DIN VDE 0664-400 (B+ tripping defined up to 20 kHz), std.</remarks>
-    public const double BPlusUpperFrequencyHz = 20_000;
+    public const double BPlusUpperFrequencyHz = DeviceFrequencyRanges.TypeBPlusUpperHz;
 
     /// <summary>Upper frequency of type B's defined tripping (and of "composite" content for type F): 1000 Hz.</summary>
     /// <remarks>IEC 62423 (type B: sinusoidal AC up to 1 kHz; type F's composite test current includes a 1 kHz
     /// component), std.</remarks>
-    public const double TypeBUpperFrequencyHz = 1000;
+    public const double TypeBUpperFrequencyHz = DeviceFrequencyRanges.TypeFbUpperHz;
 
     /// <summary>Sample rate at which the B+ question can be answered: 2 × 20 kHz = 40 000 Hz (Nyquist).</summary>
     /// <remarks>Derived from <see cref="BPlusUpperFrequencyHz"/>. The caution recommends ≥ 50 kS/s

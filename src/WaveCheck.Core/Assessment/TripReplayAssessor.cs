@@ -141,7 +141,7 @@ public static class TripReplayAssessor
         }
 
         var whole = overall.Select((f, i) => f ?? new DeviceFinding(devices[i], TripFinding.WillNotTrip,
-            Text($"{Kind(devices[i])}: no half-cycle reached its non-operating current of 0.5 IΔn"), false)).ToArray();
+            Text($"{TripReplayText.Device(devices[i])}: no half-cycle reached its non-operating current of 0.5 IΔn"), false)).ToArray();
         return new TripReplayResult
         {
             RatedResidualCurrentA = rated,
@@ -211,12 +211,12 @@ public static class TripReplayAssessor
         {
             if (surely is null && CompareTime(runs.Run(k, Surely), t, halfCycleS) == LimitState.Above)
             {
-                surely = Text($"{Kind(device)}: at or above {k:0.#} IΔn for {Ms(runs.Run(k, Surely))}, longer than its break time of {Ms(t)}");
+                surely = Text($"{TripReplayText.Device(device)}: at or above {k:0.#} IΔn for {Ms(runs.Run(k, Surely))}, longer than its break time of {Ms(t)}");
             }
 
             if (possibly is null && CompareTime(runs.Run(k, Possibly), t, halfCycleS) != LimitState.Below)
             {
-                possibly = Text($"{Kind(device)}: at {k:0.#} IΔn for {Ms(runs.Run(k, Possibly))} within the measurement's uncertainty of its break time of {Ms(t)}; counted as reached (engineering choice: the safe side)");
+                possibly = Text($"{TripReplayText.Device(device)}: at {k:0.#} IΔn for {Ms(runs.Run(k, Possibly))} within the measurement's uncertainty of its break time of {Ms(t)}; counted as reached (engineering choice: the safe side)");
             }
         }
 
@@ -229,7 +229,7 @@ public static class TripReplayAssessor
         if (half <= 0)
         {
             return new DeviceFinding(device, TripFinding.WillNotTrip,
-                Text($"{Kind(device)}: no half-cycle reached its non-operating current of 0.5 IΔn"), false);
+                Text($"{TripReplayText.Device(device)}: no half-cycle reached its non-operating current of 0.5 IΔn"), false);
         }
 
         if (device.Timing == DeviceTiming.S)
@@ -242,13 +242,13 @@ public static class TripReplayAssessor
             if (rides && possibly is null)
             {
                 return new DeviceFinding(device, TripFinding.WillNotTrip, Text(
-                    $"{Kind(device)}: above 0.5 IΔn for {Ms(half)} (non-actuating {Ms(na1)}), above IΔn for {Ms(runs.Run(1, Possibly))} ({Ms(na2)}), above 2 IΔn for {Ms(runs.Run(2, Possibly))} ({Ms(na5)}): shorter than its non-actuating times"),
+                    $"{TripReplayText.Device(device)}: above 0.5 IΔn for {Ms(half)} (non-actuating {Ms(na1)}), above IΔn for {Ms(runs.Run(1, Possibly))} ({Ms(na2)}), above 2 IΔn for {Ms(runs.Run(2, Possibly))} ({Ms(na5)}): shorter than its non-actuating times"),
                     false);
             }
         }
 
         return new DeviceFinding(device, TripFinding.MayTrip, possibly ?? Text(
-            $"{Kind(device)}: above 0.5 IΔn for {Ms(half)}, above IΔn for {Ms(runs.Run(1, Possibly))}: within the range where the standard lets it trip or hold"),
+            $"{TripReplayText.Device(device)}: above 0.5 IΔn for {Ms(half)}, above IΔn for {Ms(runs.Run(1, Possibly))}: within the range where the standard lets it trip or hold"),
             possibly is not null);
     }
 
@@ -299,7 +299,7 @@ public static class TripReplayAssessor
         var highest = episodes.Count > 0 ? episodes.Max(e => e.MaxHalfCycleRmsMultiple) : 0;
         var general = overall.First(f => f.Device.Timing == DeviceTiming.General && f.Device.RatedResidualCurrentA == rated);
         var s = overall.First(f => f.Device.Timing == DeviceTiming.S && f.Device.RatedResidualCurrentA == rated);
-        var line = Text($"Trip replay (IΔn {CurrentText.WithUnit(rated)}{(installed is { } t ? ", installed " + (t == DeviceTiming.S ? "type S" : "general type") : string.Empty)}): {found} episode{(found == 1 ? "" : "s")} at or above 0.5 IΔn, longest {Ms(longest)}, highest {highest:0.##} IΔn (half-cycle RMS); general type: {Words(general.Finding)}; type S: {Words(s.Finding)}");
+        var line = Text($"Trip replay (IΔn {CurrentText.WithUnit(rated)}{(installed is { } t ? ", installed " + (t == DeviceTiming.S ? "type S" : "general type") : string.Empty)}): {found} episode{(found == 1 ? "" : "s")} at or above 0.5 IΔn, longest {Ms(longest)}, highest {highest:0.##} IΔn (half-cycle RMS); general type: {TripReplayText.Finding(general.Finding)}; type S: {TripReplayText.Finding(s.Finding)}");
         return alerts.Count > 0 ? line + Text($"; {alerts.Count} where a compliant device would have tripped: test the device if it did not") : line;
     }
 
@@ -376,21 +376,6 @@ public static class TripReplayAssessor
 
     private static string Describe(ReplayedEpisode e, double rated) =>
         Text($"{e.MaxHalfCycleRmsMultiple:0.##} IΔn = {CurrentText.WithUnit(e.MaxHalfCycleRmsMultiple * rated)} highest half-cycle RMS, above IΔn for {Ms(e.AboveRatedS)}");
-
-    /// <summary>The finding in words.</summary>
-    public static string Words(TripFinding finding) => finding switch
-    {
-        TripFinding.WillNotTrip => "will not trip",
-        TripFinding.MayTrip => "may trip",
-        _ => "will trip",
-    };
-
-    /// <summary>The device in words: <c>general type 30 mA</c>, <c>type S 100 mA</c>.</summary>
-    public static string Kind(ReplayedDevice device)
-    {
-        ArgumentNullException.ThrowIfNull(device);
-        return (device.Timing == DeviceTiming.S ? "type S " : "general type ") + CurrentText.WithUnit(device.RatedResidualCurrentA);
-    }
 
     private static string Ms(double seconds) => Text($"{seconds * 1000:0} ms");
 

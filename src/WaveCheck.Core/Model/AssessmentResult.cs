@@ -51,7 +51,7 @@ public sealed record AssessmentResult
     public bool? InstalledAdequate { get; init; }
 
     /// <summary>Rules judged by (JSON <c>iec</c> or <c>na</c>).</summary>
-    public required Assessment.Regime Regime { get; init; }
+    public required Regime Regime { get; init; }
 
     /// <summary>A verdict for every type AC, A, F, B, B+.</summary>
     public required IReadOnlyList<TypeVerdict> Types { get; init; }
@@ -92,7 +92,7 @@ public sealed record AssessmentResult
 /// <param name="LeastType">Least type specified to detect the class (JSON: the trade name).</param>
 /// <param name="CoveredByDcDetection">A 6 mA DC detection device beside type A or stronger covers it in place of type B.</param>
 /// <param name="Text">The finding with its figure, limit and source.</param>
-public sealed record ClassResult(Assessment.ResidualCurrentClass Class, string Name, Assessment.ClassPresence Presence,
+public sealed record ClassResult(ResidualCurrentClass Class, string Name, ClassPresence Presence,
     double? FigureA, double? ThresholdA, DeviceType LeastType, bool CoveredByDcDetection, string Text);
 
 /// <summary>One type's verdict.</summary>

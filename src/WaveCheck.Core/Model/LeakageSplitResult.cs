@@ -138,3 +138,19 @@ public sealed record InsulationFinding(string State, double? ResistanceOhm, doub
     /// same as <see cref="Message"/> where that is short already.</summary>
     public string Summary { get; init; } = Message;
 }
+
+/// <summary>The states of an <see cref="InsulationFinding"/>, as written in JSON.</summary>
+public static class InsulationState
+{
+    /// <summary>Possible insulation fault: the resistance is below the minimum beyond the measurement's uncertainty.</summary>
+    public const string BelowMinimum = "below-minimum";
+
+    /// <summary>A fault cannot be ruled out within the measurement's uncertainty.</summary>
+    public const string AtLimit = "at-limit";
+
+    /// <summary>Above the minimum beyond the uncertainty.</summary>
+    public const string AboveMinimum = "above-minimum";
+
+    /// <summary>No voltage or no resistive part to judge.</summary>
+    public const string NotResolved = "not-resolved";
+}

@@ -4,5 +4,5 @@ namespace WaveCheck.Core.Survey;
 public static class SurveyCautions
 {
     /// <summary>The cautions, each one sentence.</summary>
-    public static IReadOnlyList<string> All => Assessment.StandingCautions.All;
+    public static IReadOnlyList<string> All => Text.StandingCautions.All;
 }

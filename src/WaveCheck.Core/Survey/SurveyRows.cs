@@ -1,4 +1,5 @@
 using WaveCheck.Core.Model;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Survey;
 
@@ -52,7 +53,7 @@ public static class SurveyRows
     private static string? Replayed(AssessmentResult assessment, DeviceTiming timing) =>
         assessment.TripReplay?.Overall.FirstOrDefault(f => f.Device.Timing == timing
             && f.Device.RatedResidualCurrentA == assessment.TripReplay.RatedResidualCurrentA) is { } f
-            ? Assessment.TripReplayAssessor.Words(f.Finding)
+            ? TripReplayText.Finding(f.Finding)
             : null;
 
     /// <summary>The row of a capture that could not be analysed.</summary>

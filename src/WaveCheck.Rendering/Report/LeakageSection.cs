@@ -1,5 +1,4 @@
 using System.Globalization;
-using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Model;
 using WaveCheck.Core.Text;
 using WaveCheck.Rendering.Plots;
@@ -21,7 +20,7 @@ internal static class LeakageSection
             $"The residual current's fundamental split against the {split.Kind} voltage ({string.Join(", ", split.VoltageChannels)}): the part in phase with the voltage flows through resistance (insulation), the part leading it by 90° through capacitance (filters, cables).").Raw("</p>\n");
         if (split.Insulation is { } insulation)
         {
-            var css = insulation.State is LeakageInterpretation.BelowMinimum or LeakageInterpretation.AtLimit ? "alert" : "muted";
+            var css = insulation.State is InsulationState.BelowMinimum or InsulationState.AtLimit ? "alert" : "muted";
             html.Raw("<p class=\"").Raw(css).Raw("\">").Text(insulation.Message).Raw("</p>\n");
         }
 
@@ -33,11 +32,11 @@ internal static class LeakageSection
             Row(html, "capacitive I_C (mean / max)", $"{CurrentText.WithUnit(split.CapacitiveA.Mean)} / {CurrentText.WithUnit(split.CapacitiveA.Max)}");
             Row(html, "leakage resistance R = V / I_R (mean / least)",
                 $"{Ohms(split.ResistanceOhm)} / {Ohms(split.LeastResistanceOhm)}");
-            Row(html, "capacitance C = I_C / (2π f V) (mean)", LeakageInterpretation.CapacitanceText(split.CapacitanceF.Mean));
+            Row(html, "capacitance C = I_C / (2π f V) (mean)", ImpedanceText.Capacitance(split.CapacitanceF.Mean));
             if (split.Fit is { } fit)
             {
                 Row(html, "R-C fit over harmonic orders " + string.Join(", ", fit.Orders),
-                    $"R {Ohms(fit.ResistanceOhm)}, C {LeakageInterpretation.CapacitanceText(fit.CapacitanceF)}, "
+                    $"R {Ohms(fit.ResistanceOhm)}, C {ImpedanceText.Capacitance(fit.CapacitanceF)}, "
                     + (fit.WindowsTested == 0
                         ? "not tested (one order)"
                         : string.Create(CultureInfo.InvariantCulture, $"residual {fit.Residual.P95 * 100:0.#} % (95th percentile; limit {fit.ResidualLimit * 100:0} %): {(fit.SimpleRc == false ? "not a simple R-C leakage" : "an R ∥ C leakage")}")));
@@ -55,7 +54,7 @@ internal static class LeakageSection
                 var dominant = d.Phase == location.DominantPhase && d.Kind == location.DominantKind;
                 html.Raw(dominant ? "<tr class=\"dominant\"><td>" : "<tr><td>").Text(d.Phase).Raw("</td><td>").Text(d.Kind + (dominant ? " (dominant)" : string.Empty))
                     .Raw("</td><td class=\"num\">").Text(CurrentText.WithUnit(d.MeanA)).Raw("</td><td class=\"num\">")
-                    .Text(d.ResistanceOhm is { } r ? LeakageInterpretation.ResistanceText(r) : d.CapacitanceF is { } c && d.MeanA > 0 ? LeakageInterpretation.CapacitanceText(c) : "-")
+                    .Text(d.ResistanceOhm is { } r ? ImpedanceText.Resistance(r) : d.CapacitanceF is { } c && d.MeanA > 0 ? ImpedanceText.Capacitance(c) : "-")
                     .Raw("</td></tr>\n");
             }
 
@@ -93,7 +92,7 @@ internal static class LeakageSection
         html.Raw("\n<figcaption>").Text(caption).Raw("</figcaption>\n</figure>\n");
     }
 
-    private static string Ohms(double? ohms) => ohms is { } r ? LeakageInterpretation.ResistanceText(r) : "no resistive part";
+    private static string Ohms(double? ohms) => ohms is { } r ? ImpedanceText.Resistance(r) : "no resistive part";
 
     private static void Row(HtmlWriter html, string name, string value) =>
         html.Raw("<tr><th>").Text(name).Raw("</th><td class=\"num\">").Text(value).Raw("</td></tr>\n");

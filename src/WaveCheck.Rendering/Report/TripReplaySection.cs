@@ -1,5 +1,4 @@
 using System.Globalization;
-using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Model;
 using WaveCheck.Core.Text;
 using WaveCheck.Rendering.Plots;
@@ -33,8 +32,8 @@ internal static class TripReplaySection
         html.Raw("<table>\n<thead><tr><th>Device</th><th>Over the capture</th><th>Deciding figures</th></tr></thead>\n<tbody>\n");
         foreach (var f in r.Overall)
         {
-            html.Raw("<tr><td>").Text(TripReplayAssessor.Kind(f.Device) + (f.Device.Installed ? " (installed rating)" : " (alternative)"))
-                .Raw("</td><td class=\"verdict-cell\">").Text(Symbol(f.Finding) + " " + TripReplayAssessor.Words(f.Finding))
+            html.Raw("<tr><td>").Text(TripReplayText.Device(f.Device) + (f.Device.Installed ? " (installed rating)" : " (alternative)"))
+                .Raw("</td><td class=\"verdict-cell\">").Text(Symbol(f.Finding) + " " + TripReplayText.Finding(f.Finding))
                 .Raw("</td><td>").Text(f.Reason).Raw("</td></tr>\n");
         }
 
@@ -69,7 +68,7 @@ internal static class TripReplaySection
             .Raw("<th class=\"num\">Highest half-cycle RMS</th><th class=\"num\">Peak</th>");
         foreach (var d in devices)
         {
-            html.Raw("<th>").Text(TripReplayAssessor.Kind(d)).Raw("</th>");
+            html.Raw("<th>").Text(TripReplayText.Device(d)).Raw("</th>");
         }
 
         html.Raw("</tr></thead>\n<tbody>\n");
@@ -83,7 +82,7 @@ internal static class TripReplaySection
             Num(html, Multiple(e.PeakMultiple));
             foreach (var f in e.Findings)
             {
-                html.Raw("<td title=\"").Text(f.Reason).Raw("\">").Text(Symbol(f.Finding) + " " + TripReplayAssessor.Words(f.Finding)
+                html.Raw("<td title=\"").Text(f.Reason).Raw("\">").Text(Symbol(f.Finding) + " " + TripReplayText.Finding(f.Finding)
                     + (f.MustTripReached ? " — must-trip limit reached" : string.Empty)).Raw("</td>");
             }
 

@@ -3,7 +3,6 @@ using Parquet.Schema;
 using WaveCheck.Core.Export;
 using WaveCheck.Core.Model;
 using WaveCheck.Core.Survey;
-using WaveCheck.Core.Tests.Survey;
 
 namespace WaveCheck.Core.Tests.Results;
 

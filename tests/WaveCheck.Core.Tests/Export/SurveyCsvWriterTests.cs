@@ -1,7 +1,6 @@
 using Sylvan.Data.Csv;
 using WaveCheck.Core.Export;
 using WaveCheck.Core.Survey;
-using WaveCheck.Core.Tests.Survey;
 
 namespace WaveCheck.Core.Tests.Results;
 

@@ -2,7 +2,6 @@ using System.Text.Json;
 using WaveCheck.Core.Export;
 using WaveCheck.Core.Model;
 using WaveCheck.Core.Survey;
-using WaveCheck.Core.Tests.Survey;
 
 namespace WaveCheck.Core.Tests.Results;
 

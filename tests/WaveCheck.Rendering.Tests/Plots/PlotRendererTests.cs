@@ -14,7 +14,7 @@ public sealed class PlotRendererTests : IDisposable
     [Fact]
     public void Png_files_have_the_png_signature_and_the_stated_size()
     {
-        var written = PlotRenderer.WriteAll(ResultBuilder.Typical(), ResultBuilder.Assessment(), output.Path, PlotFormat.Png);
+        var written = PlotRenderer.WriteAll(ResultBuilder.Typical(), ResultBuilder.TypicalAssessment(), output.Path, PlotFormat.Png);
 
         // A minute-long capture gets all four plots.
         Assert.Equal(["overview.png", "cycles.png", "spectrum.png", "trend.png"], written.Select(Path.GetFileName));
@@ -37,7 +37,7 @@ public sealed class PlotRendererTests : IDisposable
     [InlineData(PlotKind.Trend, new[] { "time [s]", "residual current [mA]", "0.5 IΔn = 15.0 mA", "residual RMS", "smooth DC", "above 1 kHz (RMS)" })]
     public void Svg_is_xml_of_the_stated_size_with_the_annotation_texts(PlotKind kind, string[] texts)
     {
-        var svg = PlotRenderer.RenderSvg(kind, ResultBuilder.Typical(), ResultBuilder.Assessment());
+        var svg = PlotRenderer.RenderSvg(kind, ResultBuilder.Typical(), ResultBuilder.TypicalAssessment());
 
         var root = XDocument.Parse(svg).Root!;
         Assert.Equal("svg", root.Name.LocalName);
@@ -96,7 +96,7 @@ public sealed class PlotRendererTests : IDisposable
 
         // One second of zeros: no trend; the other plots must still draw. Trend is drawn directly to cover it too.
         var folder = System.IO.Path.Combine(output.Path, "flat");
-        var written = PlotRenderer.WriteAll(analysis, ResultBuilder.Assessment(), folder, format);
+        var written = PlotRenderer.WriteAll(analysis, ResultBuilder.TypicalAssessment(), folder, format);
         PlotRenderer.Write(PlotKind.Trend, analysis, null, System.IO.Path.Combine(folder, "trend" + format.Extension()));
 
         Assert.Equal(3, written.Count);
@@ -120,7 +120,7 @@ public sealed class PlotRendererTests : IDisposable
 
         foreach (var kind in PlotRenderer.Applicable(analysis))
         {
-            var root = XDocument.Parse(PlotRenderer.RenderSvg(kind, analysis, ResultBuilder.Assessment())).Root!;
+            var root = XDocument.Parse(PlotRenderer.RenderSvg(kind, analysis, ResultBuilder.TypicalAssessment())).Root!;
             Assert.DoesNotContain("NaN", root.ToString(), StringComparison.Ordinal);
         }
 
@@ -179,7 +179,7 @@ public sealed class PlotRendererTests : IDisposable
 
         foreach (var kind in new[] { PlotKind.Cycles, PlotKind.Spectrum })
         {
-            var svg = PlotRenderer.RenderSvg(kind, analysis, ResultBuilder.Assessment());
+            var svg = PlotRenderer.RenderSvg(kind, analysis, ResultBuilder.TypicalAssessment());
             Assert.True(svg.Length < 400_000, $"{kind}: {svg.Length} characters");
         }
 
@@ -187,7 +187,7 @@ public sealed class PlotRendererTests : IDisposable
         var spectrum = SvgTexts(XDocument.Parse(PlotRenderer.RenderSvg(PlotKind.Spectrum, analysis, null)).Root!);
         Assert.Contains("no type: above 20 kHz", spectrum);
         var png = System.IO.Path.Combine(output.Path, "high-rate-spectrum.png");
-        PlotRenderer.Write(PlotKind.Spectrum, analysis, ResultBuilder.Assessment(), png);
+        PlotRenderer.Write(PlotKind.Spectrum, analysis, ResultBuilder.TypicalAssessment(), png);
         Assert.True(new FileInfo(png).Length > 1000);
     }
 

@@ -30,7 +30,7 @@ public sealed class PdfPrinterTests : IDisposable
     [InlineData(PaperSize.Letter, 612.0, 792.0)]
     public void Report_prints_to_a_pdf_of_the_paper_asked_for_with_verdict_number_and_page_numbers(PaperSize paper, double widthPt, double heightPt)
     {
-        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment(), Context with { Paper = paper });
+        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.TypicalAssessment(), Context with { Paper = paper });
         var pdf = Path.Combine(output.Path, $"report-{paper}.pdf");
 
         var browser = PdfPrinter.Print(html, pdf);

@@ -31,7 +31,7 @@ public sealed class ReportDocumentTests
     [Fact]
     public void Missing_identity_items_are_blank_fields_to_fill()
     {
-        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment(), Bare);
+        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.TypicalAssessment(), Bare);
         var header = html[html.IndexOf("<header>", StringComparison.Ordinal)..html.IndexOf("</header>", StringComparison.Ordinal)];
 
         // Report number, client, site, address, circuit, recorded, operator, instrument, clamp, calibration due and
@@ -49,7 +49,7 @@ public sealed class ReportDocumentTests
     [Fact]
     public void Given_identity_items_fill_the_block_and_the_running_header()
     {
-        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment(), Bare with { Identity = Full });
+        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.TypicalAssessment(), Bare with { Identity = Full });
         var header = html[html.IndexOf("<header>", StringComparison.Ordinal)..html.IndexOf("</header>", StringComparison.Ordinal)];
 
         Assert.Equal(1, Regex.Count(header, "class=\"blank\"")); // only "Recorded": the builder's capture states no start
@@ -113,7 +113,7 @@ public sealed class ReportDocumentTests
     [InlineData(null, "? Cannot tell", "cannot-tell")]
     public void Verdict_box_shows_the_outcome_by_word_and_symbol(bool? adequate, string words, string cssClass)
     {
-        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment() with { InstalledAdequate = adequate }, Bare);
+        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.TypicalAssessment() with { InstalledAdequate = adequate }, Bare);
 
         Assert.Contains($"<p class=\"outcome {cssClass}\">{words}", html, StringComparison.Ordinal);
         // Each outcome's border differs in style as well as colour (solid, double, dashed).
@@ -123,7 +123,7 @@ public sealed class ReportDocumentTests
     [Fact]
     public void No_installed_device_is_cannot_tell_and_says_why()
     {
-        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment() with { InstalledType = null, InstalledAdequate = null }, Bare);
+        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.TypicalAssessment() with { InstalledType = null, InstalledAdequate = null }, Bare);
 
         Assert.Contains("? Cannot tell: no installed device was stated", html, StringComparison.Ordinal);
     }
@@ -153,7 +153,7 @@ public sealed class ReportDocumentTests
     [Fact]
     public void Touch_current_limits_appear_only_for_a_product_test()
     {
-        var assessment = ResultBuilder.Assessment();
+        var assessment = ResultBuilder.TypicalAssessment();
         var installation = ReportWriter.Render(ResultBuilder.Typical(), assessment, Bare);
         var product = ReportWriter.Render(ResultBuilder.Typical(), assessment, Bare with { Identity = new ReportIdentity { ProductTest = true } });
 
@@ -165,7 +165,7 @@ public sealed class ReportDocumentTests
     [Fact]
     public void From_memory_limits_read_value_to_confirm_with_their_status_in_the_appendix()
     {
-        var assessment = ResultBuilder.Assessment() with
+        var assessment = ResultBuilder.TypicalAssessment() with
         {
             Thresholds = [new ThresholdUse("frequencyFactor1kHz", 14, "1", "IEC 62423 §5.3 upper limit 14 IΔn at 1 kHz (from memory)")],
         };
@@ -190,7 +190,7 @@ public sealed class ReportDocumentTests
                 ["dcA"] = new MetricStatistics(-1e-9, -2e-9, -1e-10, 0.2),
             },
         };
-        var html = ReportWriter.Render(analysis with { Windows = nanWindows, Summary = analysis.Summary with { DcA = -3e-9 } }, ResultBuilder.Assessment(), Bare);
+        var html = ReportWriter.Render(analysis with { Windows = nanWindows, Summary = analysis.Summary with { DcA = -3e-9 } }, ResultBuilder.TypicalAssessment(), Bare);
         var body = html[html.IndexOf("<body>", StringComparison.Ordinal)..];
         var text = Regex.Replace(Regex.Replace(body, "<svg\\b.*?</svg>", string.Empty, RegexOptions.Singleline), "<[^>]+>", " ");
 

@@ -24,7 +24,7 @@ public sealed partial class ReportWriterTests : IDisposable
     [Fact]
     public void Report_opens_in_chromium_without_console_errors_and_screenshots_at_the_window_size()
     {
-        var report = Write("report.html", ResultBuilder.Typical(), ResultBuilder.Assessment(blinded: true), Context);
+        var report = Write("report.html", ResultBuilder.Typical(), ResultBuilder.TypicalAssessment(blinded: true), Context);
         var screenshot = Path.Combine(output.Path, "report.png");
 
         var run = Chromium.Run(report, "--enable-logging=stderr", "--v=0", "--screenshot=" + screenshot, "--window-size=1240,1754");
@@ -50,7 +50,7 @@ public sealed partial class ReportWriterTests : IDisposable
     [InlineData(390, true)]
     public void Report_fits_a_phone_width_without_sideways_scrolling(int widthPx, bool control)
     {
-        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment(blinded: true), Context with
+        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.TypicalAssessment(blinded: true), Context with
         {
             Identity = new ReportIdentity { ReportNumber = "R-1", Client = "invented client with a fairly long name, Ltd", CaptureDigest = "0123456789ab", DigestFiles = ["workshop-press.wav"] },
         });
@@ -103,7 +103,7 @@ public sealed partial class ReportWriterTests : IDisposable
     public void Dom_holds_the_verdict_the_type_table_and_one_svg_per_plot()
     {
         var analysis = ResultBuilder.Typical();
-        var report = Write("dom.html", analysis, ResultBuilder.Assessment(), Context);
+        var report = Write("dom.html", analysis, ResultBuilder.TypicalAssessment(), Context);
 
         var dom = Chromium.Run(report, "--dump-dom").Stdout;
 
@@ -132,7 +132,7 @@ public sealed partial class ReportWriterTests : IDisposable
     public void Each_caution_is_said_once()
     {
         // With an assessment its cautions replace the report's standing ones: printing both said "verify on site" twice.
-        var assessment = ResultBuilder.Assessment();
+        var assessment = ResultBuilder.TypicalAssessment();
         var html = ReportWriter.Render(ResultBuilder.Typical(), assessment, Context);
         var section = html[html.IndexOf("id=\"cautions\"", StringComparison.Ordinal)..];
         section = section[..section.IndexOf("</section>", StringComparison.Ordinal)];
@@ -146,8 +146,8 @@ public sealed partial class ReportWriterTests : IDisposable
     [Fact]
     public void Blinding_is_stated_in_words_when_blinded()
     {
-        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment(blinded: true), Context);
-        var notBlinded = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment(blinded: false), Context);
+        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.TypicalAssessment(blinded: true), Context);
+        var notBlinded = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.TypicalAssessment(blinded: false), Context);
 
         Assert.Contains("class=\"alert\">Blinding: the smooth DC of 8.40 mA exceeds", html, StringComparison.Ordinal);
         Assert.DoesNotContain("class=\"alert\"", notBlinded, StringComparison.Ordinal);
@@ -159,7 +159,7 @@ public sealed partial class ReportWriterTests : IDisposable
         const string hostile = "<script>alert(1)</script>";
         var analysis = ResultBuilder.Typical(filePath: "/data/<img src=x onerror=alert(2)>.wav");
         analysis = analysis with { WorstWindow = analysis.WorstWindow with { Reason = "<script>alert(3)</script>" } };
-        var report = Write("hostile.html", analysis, ResultBuilder.Assessment(), Context with { Site = hostile, Note = "a & b \"quoted\"" });
+        var report = Write("hostile.html", analysis, ResultBuilder.TypicalAssessment(), Context with { Site = hostile, Note = "a & b \"quoted\"" });
 
         var dom = Chromium.Run(report, "--dump-dom").Stdout;
 
@@ -190,7 +190,7 @@ public sealed partial class ReportWriterTests : IDisposable
     public void Flat_zero_capture_gives_a_report_with_every_plot()
     {
         var analysis = ResultBuilder.FlatZero();
-        var html = ReportWriter.Render(analysis, ResultBuilder.Assessment(), Context);
+        var html = ReportWriter.Render(analysis, ResultBuilder.TypicalAssessment(), Context);
 
         // One second: no trend plot, the other three are there.
         Assert.Equal(3, Regex.Count(html, "<svg\\b"));
@@ -224,7 +224,7 @@ public sealed partial class ReportWriterTests : IDisposable
     [Fact]
     public void Inline_svg_ids_are_unique_and_every_reference_resolves()
     {
-        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.Assessment(), Context);
+        var html = ReportWriter.Render(ResultBuilder.Typical(), ResultBuilder.TypicalAssessment(), Context);
 
         var ids = IdAttribute().Matches(html).Select(m => m.Groups[1].Value).ToList();
         Assert.NotEmpty(ids);
@@ -253,7 +253,7 @@ public sealed partial class ReportWriterTests : IDisposable
     {
         var path = Path.Combine(output.Path, "nested", "folder", "r.html");
 
-        ReportWriter.Write(path, ResultBuilder.Typical(), ResultBuilder.Assessment(), Context);
+        ReportWriter.Write(path, ResultBuilder.Typical(), ResultBuilder.TypicalAssessment(), Context);
 
         Assert.True(File.Exists(path));
         Assert.Single(Directory.GetFiles(Path.GetDirectoryName(path)!));

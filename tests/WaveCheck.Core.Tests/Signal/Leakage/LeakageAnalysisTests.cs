@@ -125,7 +125,7 @@ public class LeakageAnalysisTests
         // 230 V over 120 kΩ draws 1.9 mA in phase: far below the 1 MΩ (0.23 mA) of IEC 60364-6 (from memory).
         var supply = new SupplyVoltage(230, 50, []);
         var split = Run(supply, [new RcLeakageComponent(supply, 0, 120e3, 30e-9)]).LeakageSplit!;
-        Assert.Equal(LeakageInterpretation.BelowMinimum, split.Insulation!.State);
+        Assert.Equal(InsulationState.BelowMinimum, split.Insulation!.State);
         Assert.Contains("insulation resistance tester", split.Insulation.Message, StringComparison.Ordinal);
         Assert.Contains("qualified person", split.Insulation.Message, StringComparison.Ordinal);
         // The short form keeps the finding, its figure against the minimum and what to do; only the reasoning goes.
@@ -141,7 +141,7 @@ public class LeakageAnalysisTests
         // 22 nF alone: 1.6 mA capacitive, no resistive part; within 0.1 mA + 2 % + 2° of phase it stays below 0.23 mA.
         var supply = new SupplyVoltage(230, 50, []);
         var split = Run(supply, [new RcLeakageComponent(supply, 0, null, 22e-9)]).LeakageSplit!;
-        Assert.Equal(LeakageInterpretation.AboveMinimum, split.Insulation!.State);
+        Assert.Equal(InsulationState.AboveMinimum, split.Insulation!.State);
         Assert.True(Math.Abs(split.ResistiveA.Mean) < 1e-6);
     }
 
@@ -151,7 +151,7 @@ public class LeakageAnalysisTests
         // 1.1 MΩ: 0.21 mA in phase, within the 0.1 mA offset of the default accuracy of the 0.23 mA limit.
         var supply = new SupplyVoltage(230, 50, []);
         var split = Run(supply, [new RcLeakageComponent(supply, 0, 1.1e6, 10e-9)]).LeakageSplit!;
-        Assert.Equal(LeakageInterpretation.AtLimit, split.Insulation!.State);
+        Assert.Equal(InsulationState.AtLimit, split.Insulation!.State);
         Assert.Contains("possible insulation fault", split.Insulation.Message, StringComparison.Ordinal);
     }
 
@@ -172,7 +172,7 @@ public class LeakageAnalysisTests
         var split = Run(supply, [new SineComponent(0.003, 50)]).LeakageSplit!;
         Assert.Equal(0, split.Windows);
         Assert.True(split.WindowsWithoutVoltage > 0);
-        Assert.Equal(LeakageInterpretation.NotResolved, split.Insulation!.State);
+        Assert.Equal(InsulationState.NotResolved, split.Insulation!.State);
         Assert.Contains(split.Notes, n => n.Contains("check that the voltage channel is connected", StringComparison.Ordinal));
     }
 

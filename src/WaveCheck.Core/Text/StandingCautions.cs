@@ -1,4 +1,4 @@
-namespace WaveCheck.Core.Assessment;
+namespace WaveCheck.Core.Text;
 
 /// <summary>
 /// The cautions that go with every verdict, report and survey, in one place: electrical work can kill, and a
