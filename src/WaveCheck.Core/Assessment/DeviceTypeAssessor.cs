@@ -249,7 +249,7 @@ public static class DeviceTypeAssessor
         c.Add($"The verdict covers only the operating states in this capture ({analysis.Capture.DurationS:0.#} s); start-up, other speeds or charging phases may demand more: capture each.");
         if (acSignature)
         {
-            c.Add($"The sensor coupling is not stated, and the capture bears the signature of an AC-coupled sensor: one-sided pulses on a floor of {Ma(m.SmoothDcA)} while the mean of the whole capture is {Ma(m.CaptureMeanA)}. It is treated as AC-coupled (engineering choice): DC verdicts are open. Measure again with a DC-coupled clamp, or state --sensor dc if the clamp is DC-coupled.");
+            c.Add($"The sensor coupling is not stated, and the capture bears the signature of an AC-coupled sensor: one-sided pulses on a floor of {Ma(m.SmoothDcA)} while the mean of the whole capture is {Ma(m.CaptureMeanA)}. It is treated as AC-coupled (engineering choice): DC verdicts are open. Measure again with a DC-coupled clamp, or state {Setting.Ref(nameof(ImportOptions.Sensor))} dc if the clamp is DC-coupled.");
         }
         else if (!dcKnown)
         {
