@@ -3,6 +3,7 @@ using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Signal;
 using WaveCheck.Core.Survey;
+using WaveCheck.Core.Synthesis;
 
 namespace WaveCheck.Cli;
 
@@ -48,6 +49,8 @@ internal static class SettingFlags
         [nameof(AssessmentOptions.FrequencyFactor150Hz)] = "--frequency-factors",
         [nameof(AssessmentOptions.FrequencyFactor400Hz)] = "--frequency-factors",
         [nameof(AssessmentOptions.FrequencyFactor1kHz)] = "--frequency-factors",
+        [SynthesisSettings.Supply] = "--supply",
+        [SynthesisSettings.Parts] = "synth",
     };
 
     /// <summary>The flag that sets a setting; the property name itself for one the command line has no flag for.</summary>

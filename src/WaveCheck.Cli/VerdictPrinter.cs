@@ -60,7 +60,7 @@ internal static class VerdictPrinter
         foreach (var (t, index) in a.Types.Select((t, i) => (t, i)))
         {
             var same = a.Types.Take(index).FirstOrDefault(e => e.Suitable == t.Suitable && e.Reasons.SequenceEqual(t.Reasons));
-            var evidence = same is not null ? "as " + same.Type.ToTradeName() : string.Join("; ", t.Reasons.Select(r => ShortReason(a, r)));
+            var evidence = same is not null ? "as " + same.Type.ToTradeName() : string.Join("; ", ShortReasons(t));
             var label = index == 0 ? Label("Types") : Indent;
             var verdict = SuitabilityWord(t.Suitable).PadRight(14);
             var room = screen.Width - label.Length - 4 - verdict.Length;
@@ -227,10 +227,20 @@ internal static class VerdictPrinter
     private static string Installed(AssessmentResult a) => string.Create(CultureInfo.InvariantCulture,
         $"type {a.InstalledProtection ?? a.InstalledType?.ToTradeName()}, IΔn {Ma(a.RatedResidualCurrentA)}: {Adequacy(a.InstalledAdequate)}");
 
-    /// <summary>A reason in a few words: the name of the class of residual current it states (the assessment quotes
-    /// the class's finding word for word), else its lead before the first colon.</summary>
-    private static string ShortReason(AssessmentResult a, string reason) =>
-        a.Classes.FirstOrDefault(c => c.Text == reason)?.Name ?? reason.Split(": ", 2)[0];
+    /// <summary>A type's reasons in a few words: for a type not suitable or open, any rule that applies whatever the
+    /// figures by its lead before the first colon, then the name of each class of residual current the verdict rests
+    /// on (<see cref="TypeVerdict.Classes"/>, whose findings close its reasons); for a suitable type, each reason's lead.</summary>
+    private static IEnumerable<string> ShortReasons(TypeVerdict t)
+    {
+        static string Lead(string reason) => reason.Split(": ", 2)[0];
+        if (t.Suitable == true)
+        {
+            return t.Reasons.Select(Lead);
+        }
+
+        var rules = t.Reasons.Count - t.Classes.Count;
+        return t.Reasons.Take(rules).Select(Lead).Concat(t.Classes.Select(c => c.Describe()));
+    }
 
     private static string Adequacy(bool? adequate) => adequate switch
     {

@@ -4,8 +4,9 @@ using System.Text.RegularExpressions;
 namespace WaveCheck.Cli;
 
 /// <summary>
-/// Wraps text on words to a width: lines break only at spaces, a figure stays with its unit (<c>30.0 mA</c>), and a
-/// prefix on the first line is matched by an indent on the others. A single word longer than a whole line (a long
+/// Wraps text on words to a width: lines break only at spaces, a figure stays with its unit (<c>30.0 mA</c>) and a
+/// lone symbol with the word it marks (<c>✔ adequate</c>, <c>→ B</c>), and a prefix on the first line is matched by an
+/// indent on the others. A single word longer than a whole line (a long
 /// path) is the one thing that must be cut; it is cut after a <c>/</c> or <c>\</c> where it has one, else after a
 /// <c>-</c>, <c>_</c>, <c>,</c> or <c>.</c>, else at the width.
 /// </summary>
@@ -112,10 +113,18 @@ internal static partial class WordWrap
         return limit;
     }
 
-    /// <summary>Joins a figure to the unit after it (<c>30.0 mA</c>, <c>50 kS/s</c>, <c>17 %</c>).</summary>
+    /// <summary>Joins a figure to the unit after it (<c>30.0 mA</c>, <c>50 kS/s</c>, <c>17 %</c>), and a symbol standing
+    /// alone to the word after it (<c>✔ remedied</c>, <c>= unchanged</c>): either alone at a line's end says nothing.</summary>
     private static string GlueFigures(string text) =>
-        FigureAndUnit().Replace(text, m => m.Groups[1].Value + Glue + m.Groups[2].Value);
+        SymbolAndWord().Replace(
+            FigureAndUnit().Replace(text, m => m.Groups[1].Value + Glue + m.Groups[2].Value),
+            m => m.Groups[1].Value + Glue);
 
     [GeneratedRegex(@"(\d) (mA|A|µA|kA|Hz|kHz|MHz|s|ms|min|h|%|S/s|kS/s|MS/s|V|mV|°|IΔn|cycles?|windows?)(?![\p{L}\d])")]
     private static partial Regex FigureAndUnit();
+
+    /// <summary>A symbol or dash that is a word of its own (<c>✔</c>, <c>▲</c>, <c>=</c>, <c>→</c>, <c>–</c>) and the
+    /// space before the next word.</summary>
+    [GeneratedRegex(@"(?<!\S)([\p{S}\p{Pd}]) (?=\S)")]
+    private static partial Regex SymbolAndWord();
 }

@@ -78,6 +78,11 @@ public sealed record Evaluation(AnalysisResult Analysis)
         return new Evaluation(analysis with { Assessment = assessment });
     }
 
+    /// <summary>The evaluation with the settings its texts name written as <paramref name="settingName"/> gives them
+    /// (<see cref="ResultWording"/>): a front end calls it once, before any output.</summary>
+    /// <param name="settingName">From a property name (<c>SumChannels</c>) to the user's word for it (<c>--sum</c>).</param>
+    public Evaluation InWords(Func<string, string> settingName) => new(Analysis.InWords(settingName));
+
     /// <summary>Code of the warning for a residual current too large at mains frequency to be one.</summary>
     public const string ImplausibleResidualCode = "implausible-residual";
 
@@ -87,7 +92,7 @@ public sealed record Evaluation(AnalysisResult Analysis)
     /// <param name="source">The channel or sum that formed it.</param>
     public static CaptureWarning ImplausibleResidual(double mainsRmsA, string source) =>
         new(ImplausibleResidualCode,
-            $"'{source}' carries {Text.CurrentText.WithUnit(mainsRmsA)} at mains frequency, at or above {Text.CurrentText.WithUnit(Limits.ImplausibleResidualMainsRmsA)} (an engineering choice: more than any residual-current device in use would hold): it looks like one conductor's load current, not a residual current; clamp all live conductors together, or add every live conductor's channel with --sum, before trusting any verdict");
+            $"'{source}' carries {Text.CurrentText.WithUnit(mainsRmsA)} at mains frequency, at or above {Text.CurrentText.WithUnit(Limits.ImplausibleResidualMainsRmsA)} (an engineering choice: more than any residual-current device in use would hold): it looks like one conductor's load current, not a residual current; clamp all live conductors together, or add every live conductor's channel with {Setting.Ref(nameof(ImportOptions.SumChannels))}, before trusting any verdict");
 
     /// <summary>Opens <paramref name="path"/> and runs <see cref="Run(ICaptureSource, AnalysisOptions, AssessmentOptions, IProgress{double}?, CancellationToken)"/>.</summary>
     /// <exception cref="CaptureFormatException">The file cannot be read as a capture.</exception>

@@ -87,6 +87,16 @@ public sealed partial class ScreenLayoutTests : IDisposable
     }
 
     [Fact]
+    public void A_type_line_names_the_classes_its_verdict_rests_on()
+    {
+        // c2: a motor-frequency tone, the composite current of IEC 62423 that type F adds; types AC and A are not
+        // specified for it. The line names the class (the verdict's classes), not a cut of the finding's sentence.
+        var summary = Analyze("c2-extractor-fan.wav", ["--device", "A"], 100);
+        Assert.Contains(summary, l => Regex.IsMatch(l, @"^Types\s+AC\s+NOT suitable\s+composite current \(motor frequency, 1 kHz\)$"));
+        Assert.Contains(summary, l => Regex.IsMatch(l, @"^\s+F\s+suitable\s+detects every class of residual current present$"));
+    }
+
+    [Fact]
     public void Evidence_shared_by_several_types_is_said_once()
     {
         // c2: the motor-frequency tone is the evidence against both AC and A (IEC 62423: type F adds composite current).

@@ -84,7 +84,7 @@ public sealed class SurveyCommandTests : IDisposable
     public void Every_flag_a_setting_maps_to_is_an_option_of_a_command()
     {
         // SettingFlags is the one table from Core's settings to this command line's flags: each must exist.
-        var help = string.Join("\n", new[] { "analyze", "survey", "info" }.Select(c => CliHarness.Run(c, "--help").Out));
+        var help = string.Join("\n", new[] { "analyze", "survey", "info", "synth" }.Select(c => CliHarness.Run(c, "--help").Out));
         Assert.All(SettingFlags.Settings, s => Assert.Contains(SettingFlags.Of(s) + " ", help, StringComparison.Ordinal));
         Assert.Equal("--mains", SettingFlags.Of(nameof(WaveCheck.Core.Signal.AnalysisOptions.MainsHz)));
         Assert.Equal("SomethingElse", SettingFlags.Of("SomethingElse"));

@@ -32,6 +32,30 @@ public sealed class WordWrapTests
     }
 
     [Fact]
+    public void A_lone_symbol_stays_with_its_word()
+    {
+        // "✔" at one line's end and "adequate" at the next start would say nothing; likewise "=" and "→".
+        Assert.Equal(["installed", "✔ adequate"], WordWrap.Lines("installed ✔ adequate", 12));
+        Assert.Equal(["device A", "→ B, then", "= unchanged"], WordWrap.Lines("device A → B, then = unchanged", 12));
+        // A symbol with nothing after it, or inside a word, is left alone.
+        Assert.Equal(["value", "-"], WordWrap.Lines("value -", 6));
+        Assert.Equal(10, WordWrap.LongestWord("a ✔ adequate"));
+        Assert.Equal(["B+ needed"], WordWrap.Lines("B+ needed", 20));
+    }
+
+    [Fact]
+    public void A_table_keeps_a_symbol_with_its_word_in_a_narrow_column()
+    {
+        // compare's outcome column at a width where the columns get no more than their longest words (8 + 8 and the
+        // borders: 23): "✔ remedied" is one word of 10, so the symbol never ends a line without its word.
+        var table = new TextTable(null, new("circuit"), new("outcome"));
+        table.AddRow("C3 charging point, yard bay 1", "✔ remedied");
+        var lines = table.Render(23, unicode: false).Select(l => string.Concat(l.Select(s => s.Text))).ToList();
+        Assert.Contains(lines, l => l.Contains("✔ remedied", StringComparison.Ordinal));
+        Assert.DoesNotContain(lines, l => l.TrimEnd(' ', '|').EndsWith('✔'));
+    }
+
+    [Fact]
     public void A_figure_stays_with_its_unit()
     {
         // "6.96 mA" must not end one line with "6.96" and start the next with "mA".

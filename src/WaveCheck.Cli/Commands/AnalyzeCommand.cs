@@ -120,7 +120,8 @@ internal static class AnalyzeCommand
             var evaluation = ProgressDisplay.Run(run.Terminal, parse.GetValue(outputs.Quiet), $"analysing {Path.GetFileName(path)}", progress =>
                 csvPath is null
                     ? Evaluation.Run(source, options, assessmentOptions, progress, token)
-                    : EvaluateWithCsv(source, options, assessmentOptions, csvPath, progress, token));
+                    : EvaluateWithCsv(source, options, assessmentOptions, csvPath, progress, token))
+                .InWords(SettingFlags.Of);
             if (csvPath is not null)
             {
                 plan.MarkWritten("--windows-csv");

@@ -86,8 +86,7 @@ internal static class CompareCommand
         {
             table.AddRow(
                 change.Circuit + (change.Match == RetestMatch.File ? " (by file name)" : ""),
-                // The symbol stays with its word (a no-break space): "✔" alone at a line's end says nothing.
-                RetestWriter.OutcomeLabel(change.Outcome).Replace(' ', '\u00A0'),
+                RetestWriter.OutcomeLabel(change.Outcome),
                 RetestWriter.Pair(change, c => c.RequiredType?.ToTradeName() ?? (c.MinimumType is { } m ? $"at least {m.ToTradeName()}" : "-")),
                 RetestWriter.Pair(change, c => VerdictText.Of(c.Verdict)),
                 RetestWriter.Pair(change, c => Amps(c.WorstWindowRmsA)),

@@ -38,8 +38,8 @@ internal static class InfoCommand
             run.Plan = plan;
             using var source = CaptureOpener.Open(path, options);
             var scan = CaptureScan.Run(source, options.BandOfInterestHz);
-            var info = source.Info;
-            List<CaptureWarning> warnings = [.. source.Warnings, .. scan.Warnings];
+            var info = source.Info.InWords(SettingFlags.Of);
+            List<CaptureWarning> warnings = [.. source.Warnings.Concat(scan.Warnings).Select(w => w.InWords(SettingFlags.Of))];
             if (jsonPath is not null)
             {
                 ResultJson.Write(jsonPath, new InfoReport("wavecheck.info/1", info, scan.Channels, warnings),

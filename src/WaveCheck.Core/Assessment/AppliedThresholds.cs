@@ -14,11 +14,11 @@ internal sealed class AppliedThresholds
     public AppliedThresholds(AssessmentOptions o)
     {
         RatedA = o.RatedResidualCurrentA;
-        Add("ratedResidualCurrentA", RatedA, "A", "IΔn of the device assessed (--rated; default 30 mA, practice)");
+        Add("ratedResidualCurrentA", RatedA, "A", $"IΔn of the device assessed ({Setting.Ref(nameof(AssessmentOptions.RatedResidualCurrentA))}; default 30 mA, practice)");
 
         Accuracy = o.Accuracy ?? MeasurementAccuracy.Default;
         _uses.Add(new ThresholdUse("accuracyReadingFraction", Accuracy.ReadingFraction, "1",
-            "measurement uncertainty, share of the reading: every limit below is compared with it (engineering choice: 2 % + 0.1 mA default, --accuracy)" + (o.Accuracy is null ? "" : Overridden)));
+            $"measurement uncertainty, share of the reading: every limit below is compared with it (engineering choice: 2 % + 0.1 mA default, {Setting.Ref(nameof(AssessmentOptions.Accuracy))})" + (o.Accuracy is null ? "" : Overridden)));
         _uses.Add(new ThresholdUse("accuracyOffsetA", Accuracy.OffsetA, "A",
             "measurement uncertainty, fixed part (see accuracyReadingFraction)" + (o.Accuracy is null ? "" : Overridden)));
         DcA = Value("dcSignificanceA", o.DcThresholdA, Limits.DcSignificanceA, "A",

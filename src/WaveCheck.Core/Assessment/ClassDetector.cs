@@ -85,9 +85,9 @@ internal static class ClassDetector
         {
             list.Add(options.ChargerDcDetection
                 ? new(ResidualCurrentClass.ChargingPointDcFault, ClassPresence.Absent, null, null,
-                    "charging point whose equipment provides 6 mA DC fault detection itself, as declared (--charger-dc-detection): check the maker's declaration (IEC 60364-7-722)")
+                    $"charging point whose equipment provides 6 mA DC fault detection itself, as declared ({Setting.Ref(nameof(AssessmentOptions.ChargerDcDetection))}): check the maker's declaration (IEC 60364-7-722)")
                 : new(ResidualCurrentClass.ChargingPointDcFault, ClassPresence.Present, null, null,
-                    $"charging point: IEC 60364-7-722 asks for protection against DC fault current whatever DC is measured today (here {Ma(m.SmoothDcA)}): type B, or type A with a device that detects {Ma(th.RdcDdA)} DC (RDC-DD, IEC 62955), unless the charging equipment provides that detection itself (declare it with --charger-dc-detection)"));
+                    $"charging point: IEC 60364-7-722 asks for protection against DC fault current whatever DC is measured today (here {Ma(m.SmoothDcA)}): type B, or type A with a device that detects {Ma(th.RdcDdA)} DC (RDC-DD, IEC 62955), unless the charging equipment provides that detection itself (declare it with {Setting.Ref(nameof(AssessmentOptions.ChargerDcDetection))})"));
         }
 
         if (m.ClippedShare > 0)

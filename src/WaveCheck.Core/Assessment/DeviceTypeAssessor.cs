@@ -169,7 +169,8 @@ public static class DeviceTypeAssessor
     private static TypeVerdict Verdict(DeviceType t, List<ClassFinding> present, List<ClassFinding> open,
         MeasuredFigures m, AppliedThresholds th, bool evChargingPoint)
     {
-        var against = present.Where(c => c.Class.LeastType() > t).Select(c => c.Text).ToList();
+        var beyond = present.Where(c => c.Class.LeastType() > t).ToList();
+        var against = beyond.Select(c => c.Text).ToList();
         if (evChargingPoint && t < DeviceType.A)
         {
             against.Insert(0, "charging point: IEC 60364-7-722 asks for its own RCD of at least type A");
@@ -177,17 +178,18 @@ public static class DeviceTypeAssessor
 
         if (against.Count > 0)
         {
-            return new TypeVerdict(t, false, against);
+            return new TypeVerdict(t, false, against) { Classes = [.. beyond.Select(c => c.Class)] };
         }
 
-        var unknown = open.Where(c => c.Class.LeastType() > t).Select(c => c.Text).ToList();
+        var unknown = open.Where(c => c.Class.LeastType() > t).ToList();
         if (unknown.Count > 0)
         {
-            return new TypeVerdict(t, null, unknown);
+            return new TypeVerdict(t, null, [.. unknown.Select(c => c.Text)]) { Classes = [.. unknown.Select(c => c.Class)] };
         }
 
         var reasons = new List<string>();
-        var covered = present.Where(c => c.Class != ResidualCurrentClass.MainsAc).Select(c => c.Class.Describe()).ToList();
+        var detected = present.Where(c => c.Class != ResidualCurrentClass.MainsAc).Select(c => c.Class).ToList();
+        var covered = detected.Select(c => c.Describe()).ToList();
         reasons.Add(covered.Count == 0
             ? $"detects the sinusoidal mains-frequency current seen (worst window {Ma(m.WindowRmsA)}); no other class of residual current present (IEC 60364-5-53 §531.3.3)"
             : $"detects every class of residual current present: {string.Join(", ", covered)} (IEC 60364-5-53 §531.3.3, IEC 62423)");
@@ -196,7 +198,7 @@ public static class DeviceTypeAssessor
             reasons.Add($"smooth DC {Ma(m.SmoothDcA)} reaches the {Ma(th.TypeBDcA)} (max of {Limits.TypeBSmoothDcToleranceFraction:0.#} IΔn and {Ma(Limits.TypeBSmoothDcToleranceMinA)}) with which type B's tripping on superimposed currents is specified (IEC 62423): see blinding");
         }
 
-        return new TypeVerdict(t, true, reasons);
+        return new TypeVerdict(t, true, reasons) { Classes = detected };
     }
 
     private static string Headline(DeviceType? required, DeviceType level, List<ClassFinding> present,
@@ -249,7 +251,7 @@ public static class DeviceTypeAssessor
         c.Add($"The verdict covers only the operating states in this capture ({analysis.Capture.DurationS:0.#} s); start-up, other speeds or charging phases may demand more: capture each.");
         if (acSignature)
         {
-            c.Add($"The sensor coupling is not stated, and the capture bears the signature of an AC-coupled sensor: one-sided pulses on a floor of {Ma(m.SmoothDcA)} while the mean of the whole capture is {Ma(m.CaptureMeanA)}. It is treated as AC-coupled (engineering choice): DC verdicts are open. Measure again with a DC-coupled clamp, or state --sensor dc if the clamp is DC-coupled.");
+            c.Add($"The sensor coupling is not stated, and the capture bears the signature of an AC-coupled sensor: one-sided pulses on a floor of {Ma(m.SmoothDcA)} while the mean of the whole capture is {Ma(m.CaptureMeanA)}. It is treated as AC-coupled (engineering choice): DC verdicts are open. Measure again with a DC-coupled clamp, or state {Setting.Ref(nameof(ImportOptions.Sensor))} dc if the clamp is DC-coupled.");
         }
         else if (!dcKnown)
         {

@@ -367,7 +367,7 @@ public static class TripReplayAssessor
         };
         notes.Add(dcTable
             ? "Type B: an episode of practically smooth DC (mean at least 0.9 of its RMS) is replayed against the DC break times 300 / 150 / 40 ms at 2 / 4 / 10 IΔn (IEC 62423)."
-            : "The AC break times are applied to every episode; for a type B device (--device B) an episode of smooth DC is replayed against the DC break times of IEC 62423.");
+            : $"The AC break times are applied to every episode; for a type B device ({Setting.Ref(nameof(AssessmentOptions.InstalledType))} B) an episode of smooth DC is replayed against the DC break times of IEC 62423.");
         return notes;
     }
 

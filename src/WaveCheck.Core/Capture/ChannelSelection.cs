@@ -69,7 +69,7 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
             var note = unnamedReason is null
                 ? null
                 : new CaptureWarning(GuessedCode,
-                    $"The only current channel, '{first}', is used as the residual current, though {unnamedReason}. Choose another with --channel or add channels with --sum.");
+                    $"The only current channel, '{first}', is used as the residual current, though {unnamedReason}. Choose another with {Setting.Ref(nameof(ImportOptions.Channel))} or add channels with {Setting.Ref(nameof(ImportOptions.SumChannels))}.");
             return new ChannelSelection([candidates[0]], first, note);
         }
 
@@ -80,7 +80,7 @@ internal sealed record ChannelSelection(IReadOnlyList<int> Indices, string Sourc
         if (options.DescribeOnly)
         {
             return new ChannelSelection([candidates[0]], first, new CaptureWarning(GuessedCode,
-                $"{candidates.Count} channels could carry the residual current ({string.Join(", ", names)}) and {why}: shown here with '{first}', but an analysis needs --sum or --channel."));
+                $"{candidates.Count} channels could carry the residual current ({string.Join(", ", names)}) and {why}: shown here with '{first}', but an analysis needs {Setting.Ref(nameof(ImportOptions.SumChannels))} or {Setting.Ref(nameof(ImportOptions.Channel))}."));
         }
 
         throw fail($"{candidates.Count} channels could carry the residual current ({string.Join(", ", names)}) and {why}: " +

@@ -88,7 +88,7 @@ internal static class VoltageSelection
         }
 
         var source = options.VoltageScale is { } scale
-            ? string.Create(CultureInfo.InvariantCulture, $"{unitText} × --voltage-scale {scale:G6}")
+            ? string.Create(CultureInfo.InvariantCulture, $"{unitText} × {Setting.Ref(nameof(ImportOptions.VoltageScale))} {scale:G6}")
             : unitText;
         return new VoltageInput(indices, [.. indices.Select(i => channels[i].Name)], factors, source);
     }

@@ -95,9 +95,28 @@ public static class ResultJson
         options.Converters.Add(new JsonStringEnumConverter<RetestOutcome>(JsonNamingPolicy.CamelCase));
         options.Converters.Add(new JsonStringEnumConverter<TripFinding>(JsonNamingPolicy.CamelCase));
         options.Converters.Add(new FiniteDoubleConverter());
+        options.Converters.Add(new WordedStringConverter());
         options.TypeInfoResolver = ResultJsonContext.Default;
         options.MakeReadOnly();
         return options;
+    }
+
+    /// <summary>Writes a text whose settings are still marked (<see cref="Setting.Ref"/>: a result no front end
+    /// worded, <see cref="ResultWording"/>) with the settings' property names, so no mark reaches a file; any other
+    /// text as it is.</summary>
+    private sealed class WordedStringConverter : JsonConverter<string>
+    {
+        public override string? Read(ref Utf8JsonReader reader, Type typeToConvert, JsonSerializerOptions options) =>
+            reader.GetString();
+
+        public override void Write(Utf8JsonWriter writer, string value, JsonSerializerOptions options) =>
+            writer.WriteStringValue(Setting.Render(value, Setting.PropertyName));
+
+        public override string ReadAsPropertyName(ref Utf8JsonReader reader, Type typeToConvert, JsonSerializerOptions options) =>
+            reader.GetString()!;
+
+        public override void WriteAsPropertyName(Utf8JsonWriter writer, string value, JsonSerializerOptions options) =>
+            writer.WritePropertyName(value);
     }
 
     /// <summary>Writes NaN and infinities as null so the JSON stays portable; reads null back as NaN.</summary>

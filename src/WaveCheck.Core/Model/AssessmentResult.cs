@@ -98,8 +98,16 @@ public sealed record ClassResult(ResidualCurrentClass Class, string Name, ClassP
 /// <summary>One type's verdict.</summary>
 /// <param name="Type">The type (JSON: the trade name).</param>
 /// <param name="Suitable">True suitable, false not suitable, null cannot be determined.</param>
-/// <param name="Reasons">Each quotes the measured figure, the limit and its source.</param>
-public sealed record TypeVerdict(DeviceType Type, bool? Suitable, IReadOnlyList<string> Reasons);
+/// <param name="Reasons">Each quotes the measured figure, the limit and its source. For a type not suitable or open:
+/// first any rule that applies whatever the figures (a charging point's own RCD of at least type A), then the finding
+/// of each class in <see cref="Classes"/>, in that order.</param>
+public sealed record TypeVerdict(DeviceType Type, bool? Suitable, IReadOnlyList<string> Reasons)
+{
+    /// <summary>The classes of residual current the verdict rests on (JSON <c>classes</c>, e.g. <c>pulsatingDc</c>):
+    /// for a type not suitable, those present that it is not specified for; open, those the capture cannot show that it
+    /// may not detect; suitable, those present that it detects, mains-frequency AC aside.</summary>
+    public IReadOnlyList<Assessment.ResidualCurrentClass> Classes { get; init; } = [];
+}
 
 /// <summary>A threshold as applied.</summary>
 /// <param name="Name">Its name in docs/methods.md (e.g. <c>dcSignificanceA</c>).</param>

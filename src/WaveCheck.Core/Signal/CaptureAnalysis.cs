@@ -378,7 +378,7 @@ public sealed class CaptureAnalysis
         else if (_info.SensorCoupling == SensorCoupling.Unknown)
         {
             warnings.Add(new CaptureWarning("dc-unknown", string.Create(CultureInfo.InvariantCulture,
-                $"sensor coupling not stated: an AC-coupled sensor hides smooth DC (mean measured {CurrentText.WithUnit(meanA)}); state --sensor dc or ac")));
+                $"sensor coupling not stated: an AC-coupled sensor hides smooth DC (mean measured {CurrentText.WithUnit(meanA)}); state {Setting.Ref(nameof(ImportOptions.Sensor))} dc or ac")));
         }
     }
 }

@@ -73,7 +73,7 @@ public static class Retest
             if (root.ValueKind != JsonValueKind.Object || !root.TryGetProperty("schema", out var schemaElement)
                 || schemaElement.ValueKind != JsonValueKind.String)
             {
-                throw new UserInputException($"{file}: not a WaveCheck result (no \"schema\"): expected the JSON of 'wavecheck analyze --json' or a survey's survey.json");
+                throw new UserInputException($"{file}: not a WaveCheck result (no \"schema\"): expected an analysis JSON file or a survey's survey.json");
             }
 
             var schema = schemaElement.GetString()!;

@@ -11,8 +11,9 @@ public sealed record SiteSurveyOptions
     /// <summary>Folder the survey's files go into; created if missing, replaced as a whole (see <see cref="SiteSurvey"/>).</summary>
     public required string OutputDirectory { get; init; }
 
-    /// <summary>The option that named <see cref="OutputDirectory"/>, for messages.</summary>
-    public string OutputOption { get; init; } = "--output";
+    /// <summary>How messages name <see cref="OutputDirectory"/>: the front end's option for it (the CLI's
+    /// <c>--output</c>); by default in plain words.</summary>
+    public string OutputOption { get; init; } = "the output folder";
 
     /// <summary>The site file the jobs came from, if any: an input, so never inside the output folder.</summary>
     public string? SiteFile { get; init; }
@@ -126,8 +127,9 @@ public static class SiteSurvey
             var analysisOptions = windows is null
                 ? options.Analysis with { WorkerCount = perCapture }
                 : options.Analysis with { WorkerCount = perCapture, WindowCompleted = w => windows.Add(job.File, w) };
+            // Worded once, as the survey's user gave the settings, before the report and the row take any text.
             var evaluation = Evaluation.Run(job.File, job.Settings.Import, analysisOptions, ToAssessmentOptions(job.Settings),
-                cancellationToken: token);
+                cancellationToken: token).InWords(options.SettingName);
             string? report = null;
             if (options.WriteReport is { } writeReport)
             {

@@ -20,13 +20,13 @@ public static class SupplySpec
         var parts = text.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries);
         if (parts.Length == 0)
         {
-            throw new OptionValueException("--supply", text, "a voltage to earth such as 230V, then phases=3 or harmonics h5=4%");
+            throw new OptionValueException(SynthesisSettings.SupplyRef, text, "a voltage to earth such as 230V, then phases=3 or harmonics h5=4%");
         }
 
-        var rms = Quantity.ParseVoltageV("--supply", parts[0]);
+        var rms = Quantity.ParseVoltageV(SynthesisSettings.SupplyRef, parts[0]);
         if (!(rms > 0 && rms <= 100_000))
         {
-            throw new OptionValueException("--supply", text, "a positive RMS voltage up to 100 kV first, e.g. 230V");
+            throw new OptionValueException(SynthesisSettings.SupplyRef, text, "a positive RMS voltage up to 100 kV first, e.g. 230V");
         }
 
         var phases = 1;
@@ -47,7 +47,7 @@ public static class SupplySpec
             }
             else
             {
-                throw new OptionValueException("--supply", text, $"phases=1 or 3, or a harmonic such as h5=4% or h5=4%@30 (order 2 to 50), not '{part}'");
+                throw new OptionValueException(SynthesisSettings.SupplyRef, text, $"phases=1 or 3, or a harmonic such as h5=4% or h5=4%@30 (order 2 to 50), not '{part}'");
             }
         }
 
@@ -78,7 +78,7 @@ public static class SupplySpec
         ArgumentNullException.ThrowIfNull(text);
         if (supply is null)
         {
-            throw new OptionValueException("synth", text, "a leak part needs the supply it leaks from: give --supply, e.g. --supply 230V");
+            throw new OptionValueException(SynthesisSettings.PartsRef, text, $"a leak part needs the supply it leaks from: give {SynthesisSettings.SupplyRef}, e.g. {SynthesisSettings.SupplyRef} 230V");
         }
 
         var colon = text.IndexOf(':', StringComparison.Ordinal);
@@ -102,7 +102,7 @@ public static class SupplySpec
                     phase = p;
                     break;
                 default:
-                    throw new OptionValueException("synth", text,
+                    throw new OptionValueException(SynthesisSettings.PartsRef, text,
                         $"keys of 'leak': r (e.g. 500k), c (e.g. 47nF), phase (1{(supply.Phases == 3 ? " to 3" : "")})");
             }
         }
@@ -140,6 +140,6 @@ public static class SupplySpec
         return double.TryParse(v, NumberStyles.Float, CultureInfo.InvariantCulture, out var number) && double.IsFinite(number)
                && (positive ? number > 0 : number >= 0)
             ? number * factor
-            : throw new OptionValueException("synth", text, positive ? "a resistance such as 500k or 1.2M" : "a capacitance such as 47nF or 0.1uF");
+            : throw new OptionValueException(SynthesisSettings.PartsRef, text, positive ? "a resistance such as 500k or 1.2M" : "a capacitance such as 47nF or 0.1uF");
     }
 }

@@ -48,14 +48,14 @@ public static class SynthesisSpec
             "noise" => [new NoiseComponent(Current(text, values, "rms", 0.0001), (int)Number(text, values, "seed", 1))],
             "surge" => [new SurgeComponent(Current(text, values, "rms", 0.030), Frequency(text, values, "freq", mainsHz),
                 Seconds(text, values, "start", 0), Seconds(text, values, "duration", 0.1), Seconds(text, values, "decay", 0))],
-            _ => throw new OptionValueException("synth", text, $"a kind among {string.Join(", ", Kinds)}"),
+            _ => throw new OptionValueException(SynthesisSettings.PartsRef, text, $"a kind among {string.Join(", ", Kinds)}"),
         };
 
         foreach (var key in values.Keys)
         {
             if (!Used.Contains((kind, key)))
             {
-                throw new OptionValueException("synth", text, $"keys of '{kind}': {string.Join(", ", Used.Where(u => u.Kind == kind).Select(u => u.Key))}");
+                throw new OptionValueException(SynthesisSettings.PartsRef, text, $"keys of '{kind}': {string.Join(", ", Used.Where(u => u.Kind == kind).Select(u => u.Key))}");
             }
         }
 
@@ -88,7 +88,7 @@ public static class SynthesisSpec
     private static int Pulses(string text, Dictionary<string, string> values)
     {
         var pulses = Number(text, values, "pulses", 6);
-        return pulses is 2 or 3 or 6 ? (int)pulses : throw new OptionValueException("synth", text, "pulses=2, 3 or 6");
+        return pulses is 2 or 3 or 6 ? (int)pulses : throw new OptionValueException(SynthesisSettings.PartsRef, text, "pulses=2, 3 or 6");
     }
 
     private static Dictionary<string, string> ParseValues(string list, string kind)
@@ -123,10 +123,10 @@ public static class SynthesisSpec
         values.ContainsKey("peak") ? Current(text, values, "peak", 0) / Math.Sqrt(2) : Current(text, values, "rms", defaultRmsA);
 
     private static double Current(string text, Dictionary<string, string> values, string key, double fallback) =>
-        values.TryGetValue(key, out var v) ? Quantity.ParseCurrentA($"synth {text}: {key}", v) : fallback;
+        values.TryGetValue(key, out var v) ? Quantity.ParseCurrentA($"{SynthesisSettings.PartsRef} {text}: {key}", v) : fallback;
 
     private static double Frequency(string text, Dictionary<string, string> values, string key, double fallback) =>
-        values.TryGetValue(key, out var v) ? Quantity.ParseFrequencyHz($"synth {text}: {key}", v) : fallback;
+        values.TryGetValue(key, out var v) ? Quantity.ParseFrequencyHz($"{SynthesisSettings.PartsRef} {text}: {key}", v) : fallback;
 
     private static double Seconds(string text, Dictionary<string, string> values, string key, double fallback)
     {
@@ -141,7 +141,7 @@ public static class SynthesisSpec
             : (trimmed, 1.0);
         return double.TryParse(number, NumberStyles.Float, CultureInfo.InvariantCulture, out var value) && value >= 0 && double.IsFinite(value)
             ? value * scale
-            : throw new OptionValueException($"synth {text}: {key}", v, "a time of 0 or more, such as 2s or 120ms");
+            : throw new OptionValueException($"{SynthesisSettings.PartsRef} {text}: {key}", v, "a time of 0 or more, such as 2s or 120ms");
     }
 
     private static double Number(string text, Dictionary<string, string> values, string key, double fallback)
@@ -153,7 +153,7 @@ public static class SynthesisSpec
 
         return double.TryParse(v.TrimEnd('°'), NumberStyles.Float, CultureInfo.InvariantCulture, out var number)
             ? number
-            : throw new OptionValueException($"synth {text}: {key}", v, "a number");
+            : throw new OptionValueException($"{SynthesisSettings.PartsRef} {text}: {key}", v, "a number");
     }
 
     private static bool Polarity(string text, Dictionary<string, string> values)
@@ -167,7 +167,7 @@ public static class SynthesisSpec
         {
             "pos" or "positive" or "+" => false,
             "neg" or "negative" or "-" => true,
-            _ => throw new OptionValueException($"synth {text}: polarity", v, "pos or neg"),
+            _ => throw new OptionValueException($"{SynthesisSettings.PartsRef} {text}: polarity", v, "pos or neg"),
         };
     }
 }

@@ -213,7 +213,7 @@ public class ClassDetectorTests
         Assert.StartsWith("charging point: IEC 60364-7-722 asks for protection against DC fault current whatever DC is measured today", ev.Text, StringComparison.Ordinal);
         var own = Class(Assess(new AnalysisBuilder().Sine(0.003), new AssessmentOptions { EvChargingPoint = true, ChargerDcDetection = true }), ResidualCurrentClass.ChargingPointDcFault);
         Assert.Equal(ClassPresence.Absent, own.Presence);
-        Assert.Equal("charging point whose equipment provides 6 mA DC fault detection itself, as declared (--charger-dc-detection): check the maker's declaration (IEC 60364-7-722)", own.Text);
+        Assert.Equal("charging point whose equipment provides 6 mA DC fault detection itself, as declared (⟦ChargerDcDetection⟧): check the maker's declaration (IEC 60364-7-722)", own.Text);
         Assert.DoesNotContain(Assess(new AnalysisBuilder().Sine(0.003)).Classes, c => c.Class == ResidualCurrentClass.ChargingPointDcFault);
     }
 

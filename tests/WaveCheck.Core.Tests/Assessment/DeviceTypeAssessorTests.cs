@@ -31,6 +31,32 @@ public class DeviceTypeAssessorTests
     }
 
     [Fact]
+    public void Each_type_verdict_names_the_classes_it_rests_on()
+    {
+        // IEC 61008-1: pulsating DC is type A's (AC not specified for it); IEC 62423: smooth DC is type B's.
+        var r = Assess(new AnalysisBuilder().HalfWave(0.030, 0).SmoothDc(0.012), new AssessmentOptions { EvChargingPoint = true });
+        TypeVerdict Of(DeviceType t) => r.Types.Single(v => v.Type == t);
+
+        Assert.Equal([ResidualCurrentClass.PulsatingDc, ResidualCurrentClass.SmoothDc, ResidualCurrentClass.ChargingPointDcFault], Of(DeviceType.AC).Classes);
+        Assert.Equal([ResidualCurrentClass.SmoothDc, ResidualCurrentClass.ChargingPointDcFault], Of(DeviceType.A).Classes);
+        Assert.Equal([ResidualCurrentClass.PulsatingDc, ResidualCurrentClass.SmoothDc, ResidualCurrentClass.ChargingPointDcFault], Of(DeviceType.B).Classes);
+        // Not suitable: the rule of a charging point's own RCD first (type AC only), then each class's finding in order.
+        Assert.Equal(Of(DeviceType.AC).Classes.Count + 1, Of(DeviceType.AC).Reasons.Count);
+        Assert.StartsWith("charging point: IEC 60364-7-722 asks for its own RCD", Of(DeviceType.AC).Reasons[0], StringComparison.Ordinal);
+        Assert.Equal(Of(DeviceType.A).Classes.Select(c => r.Classes.Single(k => k.Class == c).Text), Of(DeviceType.A).Reasons);
+
+        // Open: an AC-coupled sensor cannot show smooth DC, which types AC, A and F may not detect.
+        var open = Assess(new AnalysisBuilder().Sine(0.010).Coupling(SensorCoupling.Ac));
+        var ac = open.Types.Single(v => v.Type == DeviceType.AC);
+        Assert.Null(ac.Suitable);
+        Assert.Contains(ResidualCurrentClass.SmoothDc, ac.Classes);
+        Assert.Equal(ac.Classes.Select(c => open.Classes.Single(k => k.Class == c).Text), ac.Reasons);
+
+        // The JSON names them as the class list does (ResultJson, camelCase).
+        Assert.Matches("\"classes\": \\[\\s*\"pulsatingDc\",\\s*\"smoothDc\",", ResultJson.Serialize(r));
+    }
+
+    [Fact]
     public void MainsSineNeedsOnlyTypeAC()
     {
         // IEC 61008-1: type AC detects sinusoidal AC residual current.

@@ -64,7 +64,7 @@ public sealed class ChannelSelectionTests
 
         // A format whose labels say nothing about the residual current warns even about its only candidate.
         var unnamed = Resolve(new ImportOptions(), [1], "no channel is named as the residual current");
-        Assert.Equal("The only current channel, 'L2', is used as the residual current, though no channel is named as the residual current. Choose another with --channel or add channels with --sum.", unnamed.Warning!.Message);
+        Assert.Equal("The only current channel, 'L2', is used as the residual current, though no channel is named as the residual current. Choose another with ⟦Channel⟧ or add channels with ⟦SumChannels⟧.", unnamed.Warning!.Message);
 
         Assert.Equal("nothing to choose", Assert.Throws<InvalidDataException>(() => Resolve(new ImportOptions(), [])).Message);
     }

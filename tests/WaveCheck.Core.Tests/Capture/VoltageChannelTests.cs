@@ -100,7 +100,7 @@ public sealed class VoltageChannelTests
         using (var opened = CaptureOpener.Open(path, new ImportOptions { VoltageChannels = ["probe"], VoltageScale = 100 }))
         {
             Assert.Equal(100, opened.Info.Voltage!.VoltsPerSiUnit[0], 12);
-            Assert.Contains("--voltage-scale 100", opened.Info.Voltage.Source, StringComparison.Ordinal);
+            Assert.Contains("⟦VoltageScale⟧ 100", opened.Info.Voltage.Source, StringComparison.Ordinal);
         }
 
         var split = Split(path, new ImportOptions { VoltageChannels = ["probe"], VoltageScale = 100 });

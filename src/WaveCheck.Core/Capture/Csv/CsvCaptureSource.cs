@@ -137,7 +137,7 @@ public sealed class CsvCaptureSource : ICaptureSource
         if (options.ScaleA is not null || options.RangeV is not null)
         {
             _warnings.Add(new CaptureWarning("option-ignored",
-                "--scale and --range apply to WAV full scale; a CSV states its units in the header, so they were not used."));
+                $"{Setting.Ref(nameof(ImportOptions.ScaleA))} and {Setting.Ref(nameof(ImportOptions.RangeV))} apply to WAV full scale; a CSV states its units in the header, so they were not used."));
         }
 
         if (options.RateHz is { } givenRate && CaptureLimits.RateProblem(givenRate) is { } givenProblem)

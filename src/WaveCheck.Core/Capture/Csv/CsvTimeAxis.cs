@@ -19,6 +19,9 @@ internal sealed class CsvTimeAxis
     /// <summary>Individual warnings per kind of time fault before only the count is given.</summary>
     private const int ListedFaults = 5;
 
+    /// <summary>The rate setting, named in the rate warnings.</summary>
+    private static readonly string Rate = Setting.Ref(nameof(ImportOptions.RateHz));
+
     private readonly CsvColumn _column;
     private readonly double _medianStepS;
     private readonly bool _rateGiven;
@@ -200,8 +203,8 @@ internal sealed class CsvTimeAxis
             // Without --rate the rate came from the median step of the first lines (rounded time stamps can
             // bias it); say so rather than blame an option the user did not give.
             var message = _rateGiven
-                ? string.Create(CultureInfo.InvariantCulture, $"--rate {usedRateHz:G6} Hz differs from the time column's {measured:G6} Hz; --rate is used.")
-                : string.Create(CultureInfo.InvariantCulture, $"the median time step of the first lines gives {usedRateHz:G6} Hz, the mean step of the whole file {measured:G6} Hz; {usedRateHz:G6} Hz is used (give --rate to set it).");
+                ? string.Create(CultureInfo.InvariantCulture, $"{Rate} {usedRateHz:G6} Hz differs from the time column's {measured:G6} Hz; {Rate} is used.")
+                : string.Create(CultureInfo.InvariantCulture, $"the median time step of the first lines gives {usedRateHz:G6} Hz, the mean step of the whole file {measured:G6} Hz; {usedRateHz:G6} Hz is used (give {Rate} to set it).");
             _warnings.Add(new CaptureWarning("rate-mismatch", message));
         }
 

@@ -104,7 +104,7 @@ public sealed class WavCaptureSource : ICaptureSource
 
             var voltage = VoltageSelection.Build(channels, voltages, _selection.Indices, voltages.Count == 0 ? options : options with { VoltageScale = null },
                 _ => voltageScale!.Value / scaleA,
-                string.Create(CultureInfo.InvariantCulture, $"--voltage-scale {voltageScale:G6} V full scale"),
+                string.Create(CultureInfo.InvariantCulture, $"{Setting.Ref(nameof(ImportOptions.VoltageScale))} {voltageScale:G6} V full scale"),
                 (_, problem) => new CaptureFormatException(path, problem));
             _toAmperes = _selection.AmperesPerSiUnit(channels, options, (_, problem) => new CaptureFormatException(path, problem));
             var sensor = options.Sensor != SensorCoupling.Unknown ? options.Sensor : fileSensor ?? SensorCoupling.Unknown;
@@ -236,7 +236,7 @@ public sealed class WavCaptureSource : ICaptureSource
             : null;
         if (options.ScaleA is { } scale)
         {
-            var source = string.Create(CultureInfo.InvariantCulture, $"--scale {scale:G6} A full scale");
+            var source = string.Create(CultureInfo.InvariantCulture, $"{Setting.Ref(nameof(ImportOptions.ScaleA))} {scale:G6} A full scale");
             return new Calibration(scale, 0, fromFile is null ? source : $"{source} (overrides the file's {fromFile})");
         }
 

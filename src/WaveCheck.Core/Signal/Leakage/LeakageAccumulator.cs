@@ -196,7 +196,7 @@ internal sealed class LeakageAccumulator
         if (_windows == 0)
         {
             notes.Add(string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                $"No window had a voltage fundamental of at least {LeakageWindowMeasurement.MinimumVoltageV:0} V on every voltage channel: check that the voltage channel is connected and its scale (--voltage-scale); nothing was split."));
+                $"No window had a voltage fundamental of at least {LeakageWindowMeasurement.MinimumVoltageV:0} V on every voltage channel: check that the voltage channel is connected and its scale ({Setting.Ref(nameof(WaveCheck.Core.Capture.ImportOptions.VoltageScale))}); nothing was split."));
         }
         else if (_withoutVoltage > 0)
         {

@@ -144,7 +144,7 @@ public sealed class CsvCaptureSourceTests : IDisposable
         Signals.ReadAll(source);
         var mismatch = Assert.Single(source.Warnings, w => w.Code == "rate-mismatch");
         Assert.StartsWith("the median time step of the first lines gives 1000 Hz", mismatch.Message);
-        Assert.Contains("give --rate to set it", mismatch.Message);
+        Assert.Contains("give ⟦RateHz⟧ to set it", mismatch.Message);
     }
 
     [Fact]
