@@ -106,7 +106,7 @@ public sealed record TypeVerdict(DeviceType Type, bool? Suitable, IReadOnlyList<
     /// <summary>The classes of residual current the verdict rests on (JSON <c>classes</c>, e.g. <c>pulsatingDc</c>):
     /// for a type not suitable, those present that it is not specified for; open, those the capture cannot show that it
     /// may not detect; suitable, those present that it detects, mains-frequency AC aside.</summary>
-    public IReadOnlyList<Assessment.ResidualCurrentClass> Classes { get; init; } = [];
+    public IReadOnlyList<ResidualCurrentClass> Classes { get; init; } = [];
 }
 
 /// <summary>A threshold as applied.</summary>
