@@ -225,7 +225,7 @@ internal static class VerdictPrinter
         screen.Paragraph(text, label + name.PadRight(10), Indent + new string(' ', 10), style: style, labelStyle: Bold);
 
     private static string Installed(AssessmentResult a) => string.Create(CultureInfo.InvariantCulture,
-        $"type {a.InstalledProtection ?? a.InstalledType?.ToTradeName()}, IΔn {Ma(a.RatedResidualCurrentA)}: {Adequacy(a.InstalledAdequate)}");
+        $"type {a.InstalledProtection?.ToTradeName() ?? a.InstalledType?.ToTradeName()}, IΔn {Ma(a.RatedResidualCurrentA)}: {Adequacy(a.InstalledAdequate)}");
 
     /// <summary>A reason in a few words: the name of the class of residual current it states (the assessment quotes
     /// the class's finding word for word), else its lead before the first colon.</summary>

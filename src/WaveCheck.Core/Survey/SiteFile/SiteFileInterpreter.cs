@@ -129,7 +129,7 @@ internal sealed class SiteFileInterpreter(string path)
 
     private static (string Earlier, string Later)? Difference(CaptureSettings a, CaptureSettings b)
     {
-        static string Device(CaptureSettings s) => s.InstalledType is { } t ? $"\"device\": \"{t.ToTradeName()}{(s.InstalledRdcDd ? "+RDC-DD" : string.Empty)}\"" : "no \"device\"";
+        static string Device(CaptureSettings s) => s.InstalledProtection is { } p ? $"\"device\": \"{p.ToTradeName()}\"" : "no \"device\"";
         if (Device(a) != Device(b))
         {
             return (Device(a), Device(b));

@@ -32,9 +32,7 @@ internal static class SiteSettingsReader
                 "circuit" => patch with { Circuit = values.OptionalString(value, key) },
                 "state" => patch with { State = values.OptionalString(value, key) },
                 "rated" => patch with { RatedResidualCurrentA = values.RatedOf(value) },
-                "device" => values.DeviceOf(value) is { } protection
-                    ? patch with { InstalledType = protection.Type, InstalledRdcDd = protection.RdcDd }
-                    : patch with { InstalledType = null },
+                "device" => patch with { InstalledProtection = values.DeviceOf(value) },
                 "sensor" => patch with { Sensor = values.SensorOf(value) },
                 "regime" => patch with { Regime = values.RegimeOf(value) },
                 "ev" => patch with { Ev = values.BoolOf(value, key) },

@@ -64,7 +64,7 @@ internal sealed partial class SiteValues(string path)
     };
 
     /// <summary>An installed protection: a type, optionally with an RDC-DD (<c>"A+RDC-DD"</c>); null for null.</summary>
-    public (DeviceType Type, bool RdcDd)? DeviceOf(SiteJsonNode value)
+    public InstalledProtection? DeviceOf(SiteJsonNode value)
     {
         if (value.Kind == JsonTokenType.Null)
         {
@@ -73,7 +73,7 @@ internal sealed partial class SiteValues(string path)
 
         if (value.Kind == JsonTokenType.String && DeviceTypeNames.TryParseProtection(value.Text, out var type, out var rdcDd))
         {
-            return (type, rdcDd);
+            return new InstalledProtection(type, rdcDd ? DcDetection.RdcDd : DcDetection.None);
         }
 
         var found = value.Kind == JsonTokenType.String ? $"\"{value.Text}\"" : value.Describe();
