@@ -14,7 +14,7 @@ internal sealed class AssessmentOptionSet
         $"Rated residual operating current IΔn of the device, e.g. 30mA, 100mA, 300mA (default {Quantity.CurrentAsTyped(Limits.DefaultRatedResidualCurrentA)}).",
         positive: true);
 
-    public Option<Protection?> Device { get; } = ValueOptions.Device("--device",
+    public Option<InstalledProtection?> Device { get; } = ValueOptions.Device("--device",
         "Installed device type: AC, A, F, B or B+, with +RDC-DD when a 6 mA DC detection device (IEC 62955) is fitted beside it, e.g. A+RDC-DD (margins and the adequacy verdict are for it).");
 
     public Option<DeviceTiming?> Timing { get; } = ValueOptions.Choice("--timing",
@@ -118,7 +118,7 @@ internal sealed class AssessmentOptionSet
 
         if (parse.GetValue(Device) is { } device)
         {
-            options = options with { InstalledType = device.Type, InstalledRdcDd = device.RdcDd };
+            options = options with { InstalledType = device.Type, InstalledRdcDd = device.DcDetection == DcDetection.RdcDd };
         }
 
         if (parse.GetValue(Regime) is { } regime)

@@ -8,11 +8,6 @@ using WaveCheck.Core.Model;
 
 namespace WaveCheck.Cli;
 
-/// <summary>An installed protection as typed after <c>--device</c>: a type, and whether an RDC-DD sits beside it.</summary>
-/// <param name="Type">The device type.</param>
-/// <param name="RdcDd">An RDC-DD (IEC 62955) is fitted beside it.</param>
-internal readonly record struct Protection(DeviceType Type, bool RdcDd);
-
 /// <summary>
 /// Options whose values System.CommandLine parses into typed values through custom parsers: help shows the kind of
 /// value (<c>--rated &lt;CURRENT&gt;</c>), and every value that cannot be parsed becomes a parse error with one message,
@@ -84,10 +79,10 @@ internal static class ValueOptions
         });
 
     /// <summary>An installed protection: <c>A</c>, <c>B+</c>, <c>A+RDC-DD</c>; parsed once, here.</summary>
-    public static Option<Protection?> Device(string name, string description) =>
-        Typed<Protection?>(name, description, "TYPE", text =>
+    public static Option<InstalledProtection?> Device(string name, string description) =>
+        Typed<InstalledProtection?>(name, description, "TYPE", text =>
             DeviceTypeNames.TryParseProtection(text, out var type, out var rdcDd)
-                ? new Protection(type, rdcDd)
+                ? new InstalledProtection(type, rdcDd ? DcDetection.RdcDd : DcDetection.None)
                 : throw new OptionValueException(name, text, "AC, A, F, B or B+, optionally with +RDC-DD (e.g. A+RDC-DD)"));
 
     /// <summary>The measuring chain's accuracy, <c>2%+0.1mA</c>.</summary>

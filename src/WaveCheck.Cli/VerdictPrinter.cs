@@ -225,7 +225,7 @@ internal static class VerdictPrinter
         screen.Paragraph(text, label + name.PadRight(10), Indent + new string(' ', 10), style: style, labelStyle: Bold);
 
     private static string Installed(AssessmentResult a) => string.Create(CultureInfo.InvariantCulture,
-        $"type {a.InstalledProtection ?? a.InstalledType?.ToTradeName()}, IΔn {Ma(a.RatedResidualCurrentA)}: {Adequacy(a.InstalledAdequate)}");
+        $"type {a.InstalledProtection?.ToTradeName() ?? a.InstalledType?.ToTradeName()}, IΔn {Ma(a.RatedResidualCurrentA)}: {Adequacy(a.InstalledAdequate)}");
 
     /// <summary>A type's reasons in a few words: for a type not suitable or open, any rule that applies whatever the
     /// figures by its lead before the first colon, then the name of each class of residual current the verdict rests

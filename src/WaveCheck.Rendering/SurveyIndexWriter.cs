@@ -75,7 +75,7 @@ public static class SurveyIndexWriter
         {
             var required = circuit.RequiredType?.ToTradeName() ?? (circuit.MinimumType is { } minimum ? $"at least {minimum.ToTradeName()}" : "—");
             html.Append("<tr class=\"circuit v-").Append(E(VerdictText.Of(circuit.Verdict))).Append("\"><td><strong>").Append(E(circuit.Circuit))
-                .Append("</strong></td><td>").Append(E(circuit.InstalledType ?? "not given"))
+                .Append("</strong></td><td>").Append(E(circuit.InstalledType?.ToTradeName() ?? "not given"))
                 .Append("</td><td class=\"n\">").Append(E(CurrentText.WithUnit(circuit.RatedResidualCurrentA)))
                 .Append("</td><td>").Append(E(required))
                 .Append("</td><td><strong>").Append(E(VerdictLabel(circuit.Verdict))).Append("</strong>")
@@ -134,7 +134,7 @@ public static class SurveyIndexWriter
             html.Append("<tr><td class=\"n\">").Append(action.Rank.ToString(CultureInfo.InvariantCulture))
                 .Append("</td><td><strong>").Append(E(PriorityLabel(action.Priority))).Append("</strong>")
                 .Append("</td><td>").Append(E(action.Circuit + (action.Upstream ? " (upstream device)" : string.Empty)))
-                .Append("</td><td>").Append(E(action.InstalledType ?? "not given"))
+                .Append("</td><td>").Append(E(action.InstalledType?.ToTradeName() ?? "not given"))
                 .Append("</td><td class=\"n\">").Append(E(CurrentText.WithUnit(action.RatedResidualCurrentA)))
                 .Append("</td><td>").Append(E(action.Required))
                 .Append("</td><td>").Append(E(action.Reason)).Append("</td></tr>\n");
@@ -173,7 +173,7 @@ public static class SurveyIndexWriter
             }
 
             var required = row.RequiredType?.ToTradeName() ?? (row.MinimumType is { } minimum ? $"at least {minimum.ToTradeName()}" : "—");
-            html.Append("</td><td>").Append(E(row.InstalledType ?? "not given"))
+            html.Append("</td><td>").Append(E(row.InstalledType?.ToTradeName() ?? "not given"))
                 .Append("</td><td class=\"n\">").Append(E(CurrentText.WithUnit(row.RatedResidualCurrentA)))
                 .Append("</td><td>").Append(E(required))
                 .Append("</td><td><strong>").Append(E(VerdictLabel(row.Verdict))).Append("</strong>")

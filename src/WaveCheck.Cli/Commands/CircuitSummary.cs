@@ -20,7 +20,7 @@ internal static class CircuitSummary
         {
             table.AddRow(
                 circuit.Circuit,
-                circuit.InstalledType is { } i ? $"{i} {CurrentText.WithUnit(circuit.RatedResidualCurrentA)}" : "-",
+                circuit.InstalledType is { } i ? $"{i.ToTradeName()} {CurrentText.WithUnit(circuit.RatedResidualCurrentA)}" : "-",
                 Required(circuit.RequiredType, circuit.MinimumType),
                 SurveyIndexWriter.VerdictLabel(circuit.Verdict),
                 circuit.WorstWindowRmsA is { } rms ? CurrentText.WithUnit(rms) : "",
@@ -49,7 +49,7 @@ internal static class CircuitSummary
         foreach (var action in document.Actions)
         {
             screen.Paragraph($"{action.Rank}. [{SurveyIndexWriter.PriorityLabel(action.Priority)}] {action.Circuit}"
-                + $"{(action.Upstream ? " (upstream device)" : "")}: installed {action.InstalledType ?? "not given"}, required {action.Required}. {action.Reason}", "  ", "     ");
+                + $"{(action.Upstream ? " (upstream device)" : "")}: installed {action.InstalledType?.ToTradeName() ?? "not given"}, required {action.Required}. {action.Reason}", "  ", "     ");
         }
     }
 

@@ -50,12 +50,10 @@ internal static class SurveyCommand
         };
         command.SetAction(parse => CliRun.Guard(parse, run =>
         {
-            var protection = parse.GetValue(device);
             var overrides = new CaptureSettingsPatch
             {
                 RatedResidualCurrentA = parse.GetValue(rated),
-                InstalledType = protection?.Type,
-                InstalledRdcDd = protection?.RdcDd,
+                InstalledProtection = parse.GetValue(device),
                 Sensor = parse.GetValue(sensor),
                 ScaleA = parse.GetValue(scale),
                 Regime = parse.GetValue(regime),
@@ -87,7 +85,7 @@ internal static class SurveyCommand
                 jobs = [.. files.Select(f => new SurveyJob(f, settings with { Circuit = Path.GetFileNameWithoutExtension(f) }))];
             }
 
-            if (fail.HasFlag(Finding.Upgrade) && !jobs.Any(j => j.Settings.InstalledType is not null))
+            if (fail.HasFlag(Finding.Upgrade) && !jobs.Any(j => j.Settings.InstalledProtection is not null))
             {
                 throw new UserInputException(ReportOptionSet.UpgradeWithoutDevice + (configPath is null ? "" : " (or \"device\" in the site file)"));
             }
@@ -108,7 +106,7 @@ internal static class SurveyCommand
                 new (bool Given, string Property)[]
                 {
                     (overrides.RatedResidualCurrentA is not null, nameof(AssessmentOptions.RatedResidualCurrentA)),
-                    (overrides.InstalledType is not null, nameof(AssessmentOptions.InstalledType)),
+                    (overrides.InstalledProtection is not null, nameof(AssessmentOptions.InstalledType)),
                     (overrides.Sensor is not null, nameof(ImportOptions.Sensor)),
                     (overrides.ScaleA is not null, nameof(ImportOptions.ScaleA)),
                     (overrides.Regime is not null, nameof(AssessmentOptions.Regime)),
@@ -216,7 +214,7 @@ internal static class SurveyCommand
             table.AddRow(
                 Path.GetFileName(row.File),
                 row.Circuit ?? "",
-                row.InstalledType is { } i ? $"{i} {CurrentText.WithUnit(row.RatedResidualCurrentA)}" : "-",
+                row.InstalledType is { } i ? $"{i.ToTradeName()} {CurrentText.WithUnit(row.RatedResidualCurrentA)}" : "-",
                 row.RequiredType?.ToTradeName() ?? (row.MinimumType is { } m ? $"at least {m.ToTradeName()}" : "-"),
                 row.Verdict == SurveyVerdict.Error ? "error: " + row.Error : SurveyIndexWriter.VerdictLabel(row.Verdict),
                 row.RmsA is { } rms ? CurrentText.WithUnit(rms) : "",

@@ -78,7 +78,7 @@ public static class DeviceTypeAssessor
             Headline = Headline(required, level, present, open, m, options.EvChargingPoint, dcReachesRdcDd),
             RatedResidualCurrentA = th.RatedA,
             InstalledType = options.InstalledType,
-            InstalledProtection = options.InstalledType is { } it ? ProtectionText(it, dcDetection) : null,
+            InstalledProtection = options.InstalledType is { } it ? new InstalledProtection(it, dcDetection) : null,
             InstalledAdequate = options.InstalledType is { } installed
                 ? Adequate(installed, dcDetection, present, open, options.EvChargingPoint, dcReachesRdcDd)
                 : null,
@@ -130,13 +130,6 @@ public static class DeviceTypeAssessor
 
         return open.All(Covers) ? true : null;
     }
-
-    private static string ProtectionText(DeviceType type, DcDetection dc) => dc switch
-    {
-        DcDetection.RdcDd => $"{type.ToTradeName()}+RDC-DD",
-        DcDetection.Charger => $"{type.ToTradeName()} + charger DC detection",
-        _ => type.ToTradeName(),
-    };
 
     /// <summary>The required type and, where only DC classes ask for type B, the alternative of a weaker type with 6 mA
     /// DC detection (IEC 60364-7-722, IEC 62955).</summary>

@@ -40,16 +40,3 @@ public static class ResidualCurrentClasses
         _ => throw new ArgumentOutOfRangeException(nameof(c), c, "unknown class"),
     };
 }
-
-/// <summary>DC fault-current detection beside the installed device.</summary>
-public enum DcDetection
-{
-    /// <summary>None.</summary>
-    None,
-
-    /// <summary>An RDC-DD (IEC 62955) fitted with the device: written <c>A+RDC-DD</c>.</summary>
-    RdcDd,
-
-    /// <summary>The charging equipment provides the 6 mA DC detection itself (declared by the user from the maker's data).</summary>
-    Charger,
-}

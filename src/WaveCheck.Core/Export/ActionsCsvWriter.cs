@@ -16,7 +16,7 @@ public static class ActionsCsvWriter
         new TextColumn<RemedialAction>("priority", a => VerdictText.Of(a.Priority), nullable: false),
         new TextColumn<RemedialAction>("circuit", a => a.Circuit, nullable: false),
         new FlagColumn<RemedialAction>("upstream", a => a.Upstream),
-        new TextColumn<RemedialAction>("installedType", a => a.InstalledType, nullable: true),
+        new TextColumn<RemedialAction>("installedType", a => a.InstalledType?.ToTradeName(), nullable: true),
         new NumberColumn<RemedialAction>("ratedResidualCurrentA", a => a.RatedResidualCurrentA),
         new TextColumn<RemedialAction>("required", a => a.Required, nullable: false),
         new TextColumn<RemedialAction>("reason", a => a.Reason, nullable: false),

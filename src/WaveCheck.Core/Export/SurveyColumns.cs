@@ -84,7 +84,7 @@ internal static class SurveyColumns
     [
         new TextColumn<SurveyRow>("file", r => r.File, nullable: false),
         new TextColumn<SurveyRow>("circuit", r => r.Circuit, nullable: true),
-        new TextColumn<SurveyRow>("installedType", r => r.InstalledType, nullable: true),
+        new TextColumn<SurveyRow>("installedType", r => r.InstalledType?.ToTradeName(), nullable: true),
         new NumberColumn<SurveyRow>("ratedResidualCurrentA", r => r.RatedResidualCurrentA),
         new TextColumn<SurveyRow>("requiredType", r => r.RequiredType?.ToTradeName(), nullable: true),
         new TextColumn<SurveyRow>("minimumType", r => r.MinimumType?.ToTradeName(), nullable: true),

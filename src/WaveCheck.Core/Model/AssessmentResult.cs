@@ -34,7 +34,7 @@ public sealed record AssessmentResult
 
     /// <summary>Installed protection in full: the type and any DC fault detection beside it (<c>A+RDC-DD</c>, or
     /// <c>A + charger DC detection</c>); null when no device was given.</summary>
-    public string? InstalledProtection { get; init; }
+    public InstalledProtection? InstalledProtection { get; init; }
 
     /// <summary>What protects the circuit, in words: the required type and the alternatives the standards accept
     /// (type A with 6 mA DC detection in place of type B where only DC classes ask for B); null when open.</summary>

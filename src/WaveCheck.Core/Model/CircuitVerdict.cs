@@ -11,7 +11,7 @@ public sealed record CircuitVerdict
     public required string Circuit { get; init; }
 
     /// <summary>Installed protection as the captures state it (<c>A</c>, <c>A+RDC-DD</c>); null when not given.</summary>
-    public string? InstalledType { get; init; }
+    public InstalledProtection? InstalledType { get; init; }
 
     /// <summary>IΔn of the circuit's device, amperes (the smallest stated by its captures).</summary>
     public required double RatedResidualCurrentA { get; init; }

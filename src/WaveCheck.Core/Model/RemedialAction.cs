@@ -39,5 +39,5 @@ public enum ActionPriority
 /// <param name="Required">What is required, in words (<c>type B, or type A with a 6 mA DC detection device</c>,
 /// <c>at least type A</c>, <c>no change of type</c>).</param>
 /// <param name="Reason">Every reason, most urgent first, with its figures.</param>
-public sealed record RemedialAction(int Rank, ActionPriority Priority, string Circuit, bool Upstream, string? InstalledType,
+public sealed record RemedialAction(int Rank, ActionPriority Priority, string Circuit, bool Upstream, InstalledProtection? InstalledType,
     double RatedResidualCurrentA, string Required, string Reason);

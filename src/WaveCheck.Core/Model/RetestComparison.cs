@@ -10,7 +10,7 @@ public sealed record CircuitFigures
     public required IReadOnlyList<string> Files { get; init; }
 
     /// <summary>Installed protection as stated; null when not given.</summary>
-    public string? InstalledType { get; init; }
+    public InstalledProtection? InstalledType { get; init; }
 
     /// <summary>IΔn, amperes.</summary>
     public double? RatedResidualCurrentA { get; init; }

@@ -18,8 +18,8 @@ public sealed record SurveyRow
     public string? State { get; init; }
 
     /// <summary>Installed device type (<c>AC</c>, <c>A</c>, <c>F</c>, <c>B</c>, <c>B+</c>), with its DC detection where one
-    /// is declared (<c>A+RDC-DD</c>); null when not given.</summary>
-    public string? InstalledType { get; init; }
+    /// is declared (JSON <c>A+RDC-DD</c>); null when not given.</summary>
+    public InstalledProtection? InstalledType { get; init; }
 
     /// <summary>Rated residual operating current IΔn the circuit was judged against, amperes.</summary>
     public required double RatedResidualCurrentA { get; init; }
@@ -100,7 +100,7 @@ public sealed record SurveyRow
     /// </remarks>
     /// <param name="installedType">Installed type as given; null when not given.</param>
     /// <param name="installedAdequate">The assessment's finding.</param>
-    public static SurveyVerdict VerdictOf(string? installedType, bool? installedAdequate) =>
+    public static SurveyVerdict VerdictOf(InstalledProtection? installedType, bool? installedAdequate) =>
         installedType is null ? SurveyVerdict.CannotTell : installedAdequate switch
         {
             true => SurveyVerdict.Ok,

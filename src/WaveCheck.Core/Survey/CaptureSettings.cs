@@ -21,11 +21,9 @@ public sealed record CaptureSettings
     /// <summary>Rated residual operating current IΔn of the device protecting the circuit, amperes.</summary>
     public double RatedResidualCurrentA { get; init; } = DefaultRatedResidualCurrentA;
 
-    /// <summary>Device type installed on the circuit; null when not known.</summary>
-    public DeviceType? InstalledType { get; init; }
-
-    /// <summary>A 6 mA DC detection device (RDC-DD, IEC 62955) is fitted beside the installed device (<c>"A+RDC-DD"</c>).</summary>
-    public bool InstalledRdcDd { get; init; }
+    /// <summary>Protection installed on the circuit as stated: its type, with a 6 mA DC detection device (RDC-DD,
+    /// IEC 62955) where one is fitted beside it (<c>"A+RDC-DD"</c>); null when not known.</summary>
+    public InstalledProtection? InstalledProtection { get; init; }
 
     /// <summary>The charging equipment provides 6 mA DC fault detection itself, as its maker declares.</summary>
     public bool ChargerDcDetection { get; init; }
@@ -41,6 +39,14 @@ public sealed record CaptureSettings
 
     /// <summary>What the circuit was doing during this capture, e.g. <c>start-up</c>; null when not given.</summary>
     public string? State { get; init; }
+
+    /// <summary>The installed protection as the assessment judges it: as stated, and at a charging point whose
+    /// equipment declares its own 6 mA DC detection, with that detection (an RDC-DD, where fitted, is the one that
+    /// counts); null when no device is stated.</summary>
+    public InstalledProtection? JudgedProtection =>
+        InstalledProtection is { DcDetection: DcDetection.None } stated && Ev && ChargerDcDetection
+            ? stated with { DcDetection = DcDetection.Charger }
+            : InstalledProtection;
 }
 
 /// <summary>
@@ -52,11 +58,8 @@ public sealed record CaptureSettingsPatch
     /// <summary>Rated residual operating current IΔn, amperes.</summary>
     public double? RatedResidualCurrentA { get; init; }
 
-    /// <summary>Installed device type.</summary>
-    public DeviceType? InstalledType { get; init; }
-
-    /// <summary>An RDC-DD beside the installed device; stated together with <see cref="InstalledType"/>.</summary>
-    public bool? InstalledRdcDd { get; init; }
+    /// <summary>Installed protection: the type, with an RDC-DD beside it where one is fitted.</summary>
+    public InstalledProtection? InstalledProtection { get; init; }
 
     /// <summary>The charging equipment provides 6 mA DC fault detection itself.</summary>
     public bool? ChargerDcDetection { get; init; }
@@ -123,8 +126,7 @@ public sealed record CaptureSettingsPatch
         {
             Import = import,
             RatedResidualCurrentA = RatedResidualCurrentA ?? settings.RatedResidualCurrentA,
-            InstalledType = InstalledType ?? settings.InstalledType,
-            InstalledRdcDd = InstalledType is not null ? InstalledRdcDd ?? false : settings.InstalledRdcDd,
+            InstalledProtection = InstalledProtection ?? settings.InstalledProtection,
             ChargerDcDetection = ChargerDcDetection ?? settings.ChargerDcDetection,
             Regime = Regime ?? settings.Regime,
             Ev = Ev ?? settings.Ev,

@@ -47,7 +47,7 @@ public static class RemedialSchedule
         var reasons = new List<(ActionPriority Priority, string Text)>();
         if (circuit.Verdict == SurveyVerdict.Upgrade)
         {
-            reasons.Add((ActionPriority.DeviceTooWeak, $"installed {circuit.InstalledType ?? "device"} not adequate: {circuit.Reason}"));
+            reasons.Add((ActionPriority.DeviceTooWeak, $"installed {circuit.InstalledType?.ToTradeName() ?? "device"} not adequate: {circuit.Reason}"));
         }
 
         if (circuit.Blinded == true)
@@ -146,7 +146,7 @@ public static class RemedialSchedule
             .Select(c => c.RequiredType ?? c.MinimumType).Where(t => t is not null).DefaultIfEmpty(null).Max();
         var required = needed is { } n && n > device.DeviceType ? $"at least type {n.ToTradeName()} (the strongest its circuits need)"
             : "no change of type";
-        return new RemedialAction(0, reasons.Min(r => r.Priority), device.Name, true, device.DeviceType.ToTradeName(),
+        return new RemedialAction(0, reasons.Min(r => r.Priority), device.Name, true, new InstalledProtection(device.DeviceType),
             device.RatedResidualCurrentA, required, Join(reasons));
     }
 

@@ -145,7 +145,7 @@ public static class Retest
         var changes = new List<string>();
         if (before.InstalledType != after.InstalledType)
         {
-            changes.Add($"installed device {before.InstalledType ?? "not given"} → {after.InstalledType ?? "not given"}");
+            changes.Add($"installed device {before.InstalledType?.ToTradeName() ?? "not given"} → {after.InstalledType?.ToTradeName() ?? "not given"}");
         }
 
         if (before.RatedResidualCurrentA != after.RatedResidualCurrentA)
@@ -251,7 +251,7 @@ public static class Retest
             && statistics.TryGetProperty("rmsA", out var rms) && rms.ValueKind == JsonValueKind.Object
             ? Number(file, rms, "windows.statistics.rmsA.max", "max")
             : null;
-        string? installed = null;
+        InstalledProtection? installed = null;
         double? rated = null;
         DeviceType? required = null, minimum = null;
         bool? adequate = null;
@@ -259,7 +259,7 @@ public static class Retest
         double? margin = null;
         if (root.TryGetProperty("assessment", out var assessment) && assessment.ValueKind == JsonValueKind.Object)
         {
-            installed = Text(assessment, "installedProtection") ?? Text(assessment, "installedType");
+            installed = Protection(file, assessment);
             rated = Number(file, assessment, "assessment.ratedResidualCurrentA", "ratedResidualCurrentA");
             required = Type(file, assessment, "requiredType");
             minimum = Type(file, assessment, "minimumType");
@@ -347,6 +347,23 @@ public static class Retest
         return value.ValueKind == JsonValueKind.Number && value.TryGetDouble(out var number) && double.IsFinite(number)
             ? number
             : throw new UserInputException($"{file}: {where} is not a number");
+    }
+
+    /// <summary>The installed protection as the analysis wrote it: in full (<c>installedProtection</c>), or as a type
+    /// alone where an older file has only <c>installedType</c>.</summary>
+    private static InstalledProtection? Protection(string file, JsonElement assessment)
+    {
+        var (name, text) = Text(assessment, "installedProtection") is { } full
+            ? ("installedProtection", full)
+            : ("installedType", Text(assessment, "installedType"));
+        if (text is null)
+        {
+            return null;
+        }
+
+        return InstalledProtection.TryParse(text, out var protection)
+            ? protection
+            : throw new UserInputException($"{file}: assessment.{name} \"{ShownText.Of(text)}\" is not an installed protection (AC, A, F, B or B+, optionally with +RDC-DD or + charger DC detection)");
     }
 
     private static DeviceType? Type(string file, JsonElement parent, string name)

@@ -175,10 +175,10 @@ public static class SiteSurvey
         return new AssessmentOptions
         {
             RatedResidualCurrentA = settings.RatedResidualCurrentA,
-            InstalledType = settings.InstalledType,
+            InstalledType = settings.InstalledProtection?.Type,
             Regime = settings.Regime,
             EvChargingPoint = settings.Ev,
-            InstalledRdcDd = settings.InstalledRdcDd,
+            InstalledRdcDd = settings.InstalledProtection?.DcDetection == DcDetection.RdcDd,
             ChargerDcDetection = settings.Ev && settings.ChargerDcDetection,
         };
     }

@@ -19,7 +19,8 @@ public static class SurveyRows
         ArgumentNullException.ThrowIfNull(analysis);
         ArgumentNullException.ThrowIfNull(assessment);
         // The protection in full (A+RDC-DD): at a charging point a plain A and an A with DC detection differ in verdict.
-        var installed = assessment.InstalledProtection ?? (assessment.InstalledType ?? settings.InstalledType)?.ToTradeName();
+        var installed = assessment.InstalledProtection
+            ?? ((assessment.InstalledType ?? settings.InstalledProtection?.Type) is { } type ? new InstalledProtection(type) : null);
         var worstRms = analysis.Windows.Statistics.TryGetValue("rmsA", out var rms) ? rms.Max : analysis.Summary.RmsA;
         return new SurveyRow
         {
@@ -68,17 +69,12 @@ public static class SurveyRows
             File = file,
             Circuit = settings.Circuit,
             State = settings.State,
-            InstalledType = Protection(settings),
+            // As the assessment would have judged it, so a failed capture of a circuit names the same device as its
+            // analysed captures.
+            InstalledType = settings.JudgedProtection,
             RatedResidualCurrentA = settings.RatedResidualCurrentA,
             Verdict = SurveyVerdict.Error,
             Error = message,
         };
     }
-
-    /// <summary>The installed protection as the assessment writes it (<c>A+RDC-DD</c>, <c>A + charger DC detection</c>),
-    /// so a failed capture of a circuit names the same device as its analysed captures.</summary>
-    private static string? Protection(CaptureSettings settings) => settings.InstalledType is not { } type ? null
-        : settings.InstalledRdcDd ? $"{type.ToTradeName()}+RDC-DD"
-        : settings.Ev && settings.ChargerDcDetection ? $"{type.ToTradeName()} + charger DC detection"
-        : type.ToTradeName();
 }

@@ -54,7 +54,7 @@ internal static class VerdictSection
         }
         if (a.InstalledType is { } installed)
         {
-            html.Raw("<p><strong>").Text($"Installed {a.InstalledProtection ?? "type " + installed.ToTradeName()}: {AdequacyText(a.InstalledAdequate)}").Raw("</strong></p>\n");
+            html.Raw("<p><strong>").Text($"Installed {a.InstalledProtection?.ToTradeName() ?? "type " + installed.ToTradeName()}: {AdequacyText(a.InstalledAdequate)}").Raw("</strong></p>\n");
         }
 
         html.Raw("<p class=\"muted\">").Text($"Rated residual operating current assessed: IΔn = {CurrentText.WithUnit(a.RatedResidualCurrentA)}; rules: {RegimeText(a.Regime)}.").Raw("</p>\n");

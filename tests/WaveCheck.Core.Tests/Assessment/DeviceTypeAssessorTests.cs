@@ -505,7 +505,7 @@ public class DeviceTypeAssessorTests
     {
         var r = Assess(new AnalysisBuilder().HalfWave(0.020, 90), new AssessmentOptions { InstalledType = installed, InstalledRdcDd = rdcDd });
         Assert.Equal(adequate, r.InstalledAdequate);
-        Assert.Equal(installed.ToTradeName() + (rdcDd ? "+RDC-DD" : ""), r.InstalledProtection);
+        Assert.Equal(installed.ToTradeName() + (rdcDd ? "+RDC-DD" : ""), r.InstalledProtection?.ToTradeName());
         Assert.Equal(installed, r.InstalledType);
     }
 
@@ -529,13 +529,13 @@ public class DeviceTypeAssessorTests
     {
         var charger = new AssessmentOptions { EvChargingPoint = true, ChargerDcDetection = true, InstalledType = DeviceType.A };
         var r = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.002), charger);
-        Assert.Equal("A + charger DC detection", r.InstalledProtection);
+        Assert.Equal("A + charger DC detection", r.InstalledProtection?.ToTradeName());
         Assert.True(r.InstalledAdequate);
         // A type AC at a charging point is never adequate (its own RCD of at least type A, IEC 60364-7-722).
         Assert.False(Assess(new AnalysisBuilder().Sine(0.005), charger with { InstalledType = DeviceType.AC }).InstalledAdequate);
         // Declared charger detection without a charging point means nothing.
         var notEv = Assess(new AnalysisBuilder().Sine(0.005).SmoothDc(0.002), new AssessmentOptions { ChargerDcDetection = true, InstalledType = DeviceType.A });
-        Assert.Equal("A", notEv.InstalledProtection);
+        Assert.Equal("A", notEv.InstalledProtection?.ToTradeName());
         Assert.False(notEv.InstalledAdequate);
     }
 

@@ -116,7 +116,7 @@ public class RequiredTypeTests
         Assert.Equal(DeviceType.B, plain.Assessment.RequiredType);
         var rdc = Evaluate(parts, new AssessmentOptions { EvChargingPoint = true, InstalledType = DeviceType.A, InstalledRdcDd = true });
         Assert.True(rdc.Assessment.InstalledAdequate);
-        Assert.Equal("A+RDC-DD", rdc.Assessment.InstalledProtection);
+        Assert.Equal("A+RDC-DD", rdc.Assessment.InstalledProtection?.ToTradeName());
         Assert.Contains("RDC-DD", rdc.Assessment.AcceptedProtection, StringComparison.Ordinal);
 
         // No DC today: still not adequate as plain A; with the charger's own detection declared, type A is.

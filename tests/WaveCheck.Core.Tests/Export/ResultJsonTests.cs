@@ -29,6 +29,42 @@ public class ResultJsonTests
     }
 
     [Theory]
+    // The trade's ways of writing an installed protection (common practice, no source): a type; a type with an RDC-DD
+    // (IEC 62955) beside it; a type at a charging point whose equipment detects 6 mA DC itself (IEC 60364-7-722).
+    [InlineData(DeviceType.A, DcDetection.None, "A")]
+    [InlineData(DeviceType.A, DcDetection.RdcDd, "A+RDC-DD")]
+    [InlineData(DeviceType.BPlus, DcDetection.None, "B+")]
+    [InlineData(DeviceType.F, DcDetection.Charger, "F + charger DC detection")]
+    public void An_installed_protection_is_written_in_the_trade_words_and_read_back(DeviceType type, DcDetection dc, string words)
+    {
+        var row = new SurveyRow { File = "c.wav", RatedResidualCurrentA = 0.03, Verdict = SurveyVerdict.Ok, InstalledType = new InstalledProtection(type, dc) };
+        var text = ResultJson.Serialize(row);
+
+        Assert.Equal(words, JsonDocument.Parse(text).RootElement.GetProperty("installedType").GetString());
+        // The bytes the text-typed field wrote before: the writer's default encoder escapes '+' as \u002B.
+        Assert.Contains($"\"installedType\": \"{words.Replace("+", "\\u002B", StringComparison.Ordinal)}\"", text, StringComparison.Ordinal);
+        var back = JsonSerializer.Deserialize(text, (System.Text.Json.Serialization.Metadata.JsonTypeInfo<SurveyRow>)ResultJson.Options.GetTypeInfo(typeof(SurveyRow)));
+        Assert.Equal(row.InstalledType, back!.InstalledType);
+        Assert.Equal(words, row.InstalledType.ToString());
+        // Read as people type it too: case and spaces do not matter.
+        Assert.True(InstalledProtection.TryParse(words.ToLowerInvariant().Replace(" ", string.Empty, StringComparison.Ordinal), out var loose));
+        Assert.Equal(row.InstalledType, loose);
+    }
+
+    [Theory]
+    [InlineData("G")]
+    [InlineData("A+")]
+    [InlineData("+RDC-DD")]
+    [InlineData(" + charger DC detection")]
+    [InlineData("A+RCBO")]
+    public void A_protection_in_other_words_is_not_read(string words)
+    {
+        Assert.False(InstalledProtection.TryParse(words, out _));
+        var json = $$"""{ "file": "c.wav", "ratedResidualCurrentA": 0.03, "verdict": "ok", "installedType": "{{words}}" }""";
+        Assert.Throws<JsonException>(() => JsonSerializer.Deserialize(json, (System.Text.Json.Serialization.Metadata.JsonTypeInfo<SurveyRow>)ResultJson.Options.GetTypeInfo(typeof(SurveyRow))));
+    }
+
+    [Theory]
     // The words of docs/methods.md II.2: absent, at limit, present, open.
     [InlineData(ClassPresence.Absent, "absent")]
     [InlineData(ClassPresence.AtLimit, "at limit")]

@@ -23,7 +23,7 @@ public class CircuitVerdictTests
             File = file,
             Circuit = circuit,
             State = state,
-            InstalledType = "A",
+            InstalledType = new InstalledProtection(DeviceType.A),
             RatedResidualCurrentA = 0.030,
             RequiredType = verdict == SurveyVerdict.Error ? null : required,
             MinimumType = verdict == SurveyVerdict.Error ? null : minimum,

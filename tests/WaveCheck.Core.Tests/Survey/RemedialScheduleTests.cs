@@ -10,11 +10,11 @@ namespace WaveCheck.Core.Tests.Survey;
 /// class are IEC 61008-1 (non-operating current 0.5 IΔn) and IEC 60364-5-53 §531.3.2 (leakage budget 0.3 IΔn).</summary>
 public class RemedialScheduleTests
 {
-    private static CircuitVerdict Circuit(string name, SurveyVerdict verdict, RiskLevel risk, string? installed = "A",
+    private static CircuitVerdict Circuit(string name, SurveyVerdict verdict, RiskLevel risk, DeviceType? installed = DeviceType.A,
         DeviceType? required = DeviceType.A, bool? blinded = false, double worstA = 0.004) => new()
         {
             Circuit = name,
-            InstalledType = installed,
+            InstalledType = installed is { } type ? new InstalledProtection(type) : null,
             RatedResidualCurrentA = 0.030,
             RequiredType = required,
             MinimumType = required ?? DeviceType.A,

@@ -9,11 +9,11 @@ namespace WaveCheck.Core.Tests.Survey;
 public class RetestTests
 {
     private static CircuitFigures Figures(string circuit, SurveyVerdict verdict, DeviceType? required, string file,
-        double worstA = 0.009, double? dcA = 0.009, double? marginA = 0.006, string installed = "A") => new()
+        double worstA = 0.009, double? dcA = 0.009, double? marginA = 0.006, DeviceType installed = DeviceType.A) => new()
         {
             Circuit = circuit,
             Files = [file],
-            InstalledType = installed,
+            InstalledType = new InstalledProtection(installed),
             RatedResidualCurrentA = 0.030,
             RequiredType = required,
             MinimumType = required ?? DeviceType.A,
@@ -34,7 +34,7 @@ public class RetestTests
             Figures("C2 old name", SurveyVerdict.Ok, DeviceType.A, "lights.csv"),
             Figures("C3 removed", SurveyVerdict.Ok, DeviceType.A, "gone.wav"));
         var after = Side("2026",
-            Figures("c1 BAY", SurveyVerdict.Ok, DeviceType.B, "bay1-2026.wav", installed: "B"),
+            Figures("c1 BAY", SurveyVerdict.Ok, DeviceType.B, "bay1-2026.wav", installed: DeviceType.B),
             Figures("C2 lighting", SurveyVerdict.Ok, DeviceType.A, "lights.csv"),
             Figures("C4 new", SurveyVerdict.Ok, DeviceType.A, "new.wav"));
         var comparison = Retest.Compare(before, after);
@@ -76,5 +76,37 @@ public class RetestTests
         // A required type that became undecided (the last case: minimum A after B before) is worse: less is known.
         var outcome = Retest.Outcome(Figures("C1", verdictBefore, before, "a.wav"), Figures("C1", verdictAfter, after, "a.wav"));
         Assert.Equal(expected, outcome);
+    }
+
+    [Theory]
+    // An analysis file states the protection in full (installedProtection) and the type alone (installedType); an
+    // older file has only the type. Both are read into the protection, once, where the file is read.
+    [InlineData("\"installedType\": \"A\", \"installedProtection\": \"A+RDC-DD\"", DeviceType.A, DcDetection.RdcDd)]
+    [InlineData("\"installedType\": \"F\", \"installedProtection\": \"F + charger DC detection\"", DeviceType.F, DcDetection.Charger)]
+    [InlineData("\"installedType\": \"B+\"", DeviceType.BPlus, DcDetection.None)]
+    public void An_analysis_file_states_its_protection_in_full(string installed, DeviceType type, DcDetection dc)
+    {
+        var side = Retest.Load(AnalysisFile(installed));
+        Assert.Equal(new InstalledProtection(type, dc), Assert.Single(side.Circuits).InstalledType);
+    }
+
+    [Fact]
+    public void A_protection_no_tool_writes_is_refused_with_the_file_and_the_key()
+    {
+        var file = AnalysisFile("\"installedType\": \"A\", \"installedProtection\": \"A+RCBO\"");
+        var e = Assert.Throws<UserInputException>(() => Retest.Load(file));
+        Assert.Equal($"{file}: assessment.installedProtection \"A+RCBO\" is not an installed protection (AC, A, F, B or B+, optionally with +RDC-DD or + charger DC detection)", e.Message);
+    }
+
+    /// <summary>The least analysis JSON the comparison reads, with <paramref name="installed"/> in its assessment.</summary>
+    private static string AnalysisFile(string installed)
+    {
+        var path = Path.Combine(Directory.CreateTempSubdirectory("wavecheck-retest-").FullName, "bay.json");
+        File.WriteAllText(path, $$"""
+            { "schema": "wavecheck.analysis/1", "capture": { "filePath": "bay.wav" }, "summary": { "rmsA": 0.004 },
+              "components": { "smoothDcMaxA": 0.001, "above1kHzRmsA": 0.0 },
+              "assessment": { {{installed}}, "ratedResidualCurrentA": 0.03, "requiredType": "A", "installedAdequate": true } }
+            """);
+        return path;
     }
 }

@@ -44,7 +44,7 @@ public class SiteConfigReaderTests
         var jobs = site.Jobs();
         var c1 = jobs[0].Settings;
         Assert.Equal(0.3, c1.RatedResidualCurrentA, 15);      // "300mA" = 0.3 A (SI prefix m = 1e-3)
-        Assert.Equal(DeviceType.A, c1.InstalledType);
+        Assert.Equal(new InstalledProtection(DeviceType.A), c1.InstalledProtection);
         Assert.Equal(SensorCoupling.Dc, c1.Import.Sensor);
         Assert.Equal(0.1, c1.Import.ScaleA!.Value, 15);       // "100mA" = 0.1 A
         Assert.False(c1.Ev);
@@ -52,19 +52,19 @@ public class SiteConfigReaderTests
 
         var c2 = jobs[1].Settings;
         Assert.Equal(0.03, c2.RatedResidualCurrentA, 15);     // "0.03 A": amperes, space before the unit allowed
-        Assert.Equal(DeviceType.F, c2.InstalledType);
+        Assert.Equal(new InstalledProtection(DeviceType.F), c2.InstalledProtection);
         Assert.Equal(SensorCoupling.Dc, c2.Import.Sensor);    // from defaults
 
         var c5 = jobs[2].Settings;
         Assert.Equal(0.03, c5.RatedResidualCurrentA, 15);     // defaults "30mA"
         Assert.Equal(["L1", "L2", "L3", "N"], c5.Import.SumChannels!);
         Assert.Equal(SensorCoupling.Ac, c5.Import.Sensor);
-        Assert.Null(c5.InstalledType);
+        Assert.Null(c5.InstalledProtection);
 
         var c6 = jobs[3].Settings;
         Assert.True(c6.Ev);
         Assert.Equal("2", c6.Import.Channel);
-        Assert.Equal(DeviceType.BPlus, c6.InstalledType);
+        Assert.Equal(new InstalledProtection(DeviceType.BPlus), c6.InstalledProtection);
         Assert.Equal(Regime.Na, c6.Regime);
 
         var q2 = Assert.Single(site.Upstream);

@@ -45,7 +45,7 @@ public sealed class SiteSurveyTests : IDisposable
     };
 
     private static SurveyJob Job(string file, string circuit, DeviceType? installed = null, double ratedA = 0.030) =>
-        new(file, new CaptureSettings { Circuit = circuit, InstalledType = installed, RatedResidualCurrentA = ratedA });
+        new(file, new CaptureSettings { Circuit = circuit, InstalledProtection = installed is { } type ? new InstalledProtection(type) : null, RatedResidualCurrentA = ratedA });
 
     [Fact]
     public void Each_capture_is_judged_as_its_waveform_demands()

@@ -8,14 +8,14 @@ public class SurveyRowTests
 {
     // The verdict rule as documented on SurveyRow.VerdictOf (engineering choice, no outside source): every combination.
     [Theory]
-    [InlineData("A", true, "ok")]
-    [InlineData("A", false, "upgrade")]
-    [InlineData("A", null, "cannot-tell")]
+    [InlineData(DeviceType.A, true, "ok")]
+    [InlineData(DeviceType.A, false, "upgrade")]
+    [InlineData(DeviceType.A, null, "cannot-tell")]
     [InlineData(null, true, "cannot-tell")]
     [InlineData(null, false, "cannot-tell")]
     [InlineData(null, null, "cannot-tell")]
-    public void Verdict_follows_the_rule(string? installed, bool? adequate, string expected) =>
-        Assert.Equal(expected, VerdictText.Of(SurveyRow.VerdictOf(installed, adequate)));
+    public void Verdict_follows_the_rule(DeviceType? installed, bool? adequate, string expected) =>
+        Assert.Equal(expected, VerdictText.Of(SurveyRow.VerdictOf(installed is { } type ? new InstalledProtection(type) : null, adequate)));
 
     [Fact]
     public void From_carries_the_figures_of_the_analysis_and_assessment()
@@ -38,12 +38,12 @@ public class SurveyRowTests
             NuisanceMarginA = 0.0021,
             Headline = "smooth DC 7.1 mA: type B",
         };
-        var settings = new CaptureSettings { Circuit = "C3 compressor", InstalledType = DeviceType.A, RatedResidualCurrentA = 0.3 };
+        var settings = new CaptureSettings { Circuit = "C3 compressor", InstalledProtection = new InstalledProtection(DeviceType.A), RatedResidualCurrentA = 0.3 };
         var row = SurveyRows.From("c3.wav", settings, builder.Analysis(), builder.Assessment(), "c3/report.html");
 
         Assert.Equal("c3.wav", row.File);
         Assert.Equal("C3 compressor", row.Circuit);
-        Assert.Equal("A", row.InstalledType);
+        Assert.Equal(new InstalledProtection(DeviceType.A), row.InstalledType);
         Assert.Equal(0.3, row.RatedResidualCurrentA);
         Assert.Equal(DeviceType.B, row.RequiredType);
         Assert.Equal(SurveyVerdict.Upgrade, row.Verdict);
@@ -74,10 +74,10 @@ public class SurveyRowTests
     [Fact]
     public void Failed_row_keeps_the_settings_and_the_message()
     {
-        var settings = new CaptureSettings { Circuit = "C9", InstalledType = DeviceType.F, RatedResidualCurrentA = 0.1 };
+        var settings = new CaptureSettings { Circuit = "C9", InstalledProtection = new InstalledProtection(DeviceType.F), RatedResidualCurrentA = 0.1 };
         var row = SurveyRows.Failed("c9.wav", settings, "c9.wav: not a WAV file");
         Assert.Equal(SurveyVerdict.Error, row.Verdict);
-        Assert.Equal("F", row.InstalledType);
+        Assert.Equal(new InstalledProtection(DeviceType.F), row.InstalledType);
         Assert.Equal(0.1, row.RatedResidualCurrentA);
         Assert.Equal("c9.wav: not a WAV file", row.Error);
         Assert.Null(row.RmsA);

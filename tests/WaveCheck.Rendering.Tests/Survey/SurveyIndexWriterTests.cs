@@ -13,7 +13,7 @@ public class SurveyIndexWriterTests
         {
             File = file,
             Circuit = "C9 <yard> & \"bay\"",
-            InstalledType = "A+RDC-DD",
+            InstalledType = new InstalledProtection(DeviceType.A, DcDetection.RdcDd),
             RatedResidualCurrentA = 0.030,
             RequiredType = required,
             MinimumType = minimum,
