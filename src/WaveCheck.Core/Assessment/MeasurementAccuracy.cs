@@ -1,20 +1,7 @@
 using System.Globalization;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Assessment;
-
-/// <summary>Where a measured figure stands against a limit once the measurement's uncertainty is counted.</summary>
-public enum LimitState
-{
-    /// <summary>Below the limit by more than the uncertainty.</summary>
-    Below,
-
-    /// <summary>Within the uncertainty of the limit: could be either side. Every rule resolves it to the safe side and
-    /// says so.</summary>
-    AtLimit,
-
-    /// <summary>At or above the limit by more than the uncertainty.</summary>
-    Above,
-}
 
 /// <summary>
 /// Accuracy of the measuring chain (clamp, logger, calibration) as a share of the reading plus a fixed part, the way

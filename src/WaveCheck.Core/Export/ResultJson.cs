@@ -1,7 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
 using System.Text.Json.Serialization.Metadata;
-using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Capture;
 using WaveCheck.Core.Capture.Comtrade;
 using WaveCheck.Core.Model;

@@ -1,7 +1,6 @@
 using System.Globalization;
 using Parquet;
 using Parquet.Schema;
-using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Export;

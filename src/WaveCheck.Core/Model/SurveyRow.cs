@@ -1,5 +1,3 @@
-using WaveCheck.Core.Assessment;
-
 namespace WaveCheck.Core.Model;
 
 /// <summary>

@@ -1,4 +1,5 @@
 using WaveCheck.Core.Assessment;
+using WaveCheck.Core.Model;
 
 namespace WaveCheck.Core.Tests.Assessment;
 
