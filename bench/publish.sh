@@ -12,6 +12,12 @@
 set -euo pipefail
 here="$(cd "$(dirname "$0")" && pwd)"
 root="$(cd "$here/.." && pwd)"
+# A runtime-specific restore rewrites the committed packages.lock.json files with that runtime's section only: they
+# are kept aside and put back, so publishing leaves the working tree as it was.
+locks=$(mktemp -d)
+for f in "$root"/src/*/packages.lock.json; do cp "$f" "$locks/$(basename "$(dirname "$f")").json"; done
+put_back() { for f in "$root"/src/*/packages.lock.json; do cp "$locks/$(basename "$(dirname "$f")").json" "$f"; done; rm -rf "$locks"; }
+trap put_back EXIT
 for rid in ${RIDS:-linux-x64 win-x64}; do
   out="$root/artifacts/publish/$rid"
   rm -rf "$out"
