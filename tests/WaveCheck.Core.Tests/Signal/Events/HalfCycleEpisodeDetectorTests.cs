@@ -160,4 +160,206 @@ public class HalfCycleEpisodeDetectorTests
         Assert.Equal(ResultJson.Serialize(plain with { ToolVersion = "x" }),
             ResultJson.Serialize(replayed with { ToolVersion = "x", HalfCycleEpisodes = null }));
     }
+
+    // ---- Closed forms on half-cycles built sample by sample (issue 18: mutation testing) ---------------------------
+
+    /// <summary>A sine of 100 samples a half-cycle whose RMS is set half-cycle by half-cycle: half-cycle h holds
+    /// (−1)^h·√2·rms[h]·sin(πm/100), m = 0..99, then zeros up to <paramref name="totalS"/>. Closed form: Σ sin²(πm/100)
+    /// over m = 0..99 is exactly 50 (half the count), so each half-cycle's RMS is rms[h] within rounding.</summary>
+    private static double[] Profile(double totalS, params double[] rmsA)
+    {
+        var samples = new double[(int)Math.Round(totalS * Fs)];
+        for (var h = 0; h < rmsA.Length; h++)
+        {
+            for (var m = 0; m < 100; m++)
+            {
+                samples[(h * 100) + m] = (h % 2 == 0 ? 1 : -1) * rmsA[h] * Math.Sqrt(2) * Math.Sin(Math.PI * m / 100);
+            }
+        }
+
+        return samples;
+    }
+
+    [Fact]
+    public void A_half_wave_train_has_the_closed_form_figures_of_its_pulses_and_gaps()
+    {
+        // 15 half-wave pulses of 0.1 A peak, one every cycle (the second half-cycle empty), from 0.2 s: the episode runs
+        // from the first pulse to the end of the last, 29 half-cycles (15 pulses, the 14 gaps between them bridged),
+        // so 0.29 s at every level the pulses reach, and the gap after the last pulse is quiet. Closed forms (discrete
+        // sums over m = 0..99): Σ sin(πm/100) = cot(π/200), Σ sin²(πm/100) = 50, so a pulse's half-cycle RMS is
+        // Ipk/√2, the episode's mean 15·Ipk·cot(π/200)/2900 and its RMS Ipk·√(15·50/2900); the peak Ipk (m = 50).
+        const double peakA = 0.1;
+        var samples = new double[10_000];
+        for (var c = 0; c < 15; c++)
+        {
+            for (var m = 0; m < 100; m++)
+            {
+                samples[2000 + (c * 200) + m] = peakA * Math.Sin(Math.PI * m / 100);
+            }
+        }
+
+        var r = Detect(samples, 0.020, 0.070);
+        var e = Assert.Single(r.Episodes);
+        Assert.Equal(1, r.Found);
+        Assert.Equal(0.2, e.StartS, 1e-12);
+        Assert.Equal(0.29, e.DurationS, 1e-12);
+        Assert.Equal([0.29, 0.29], e.LongestRunS, (a, b) => Math.Abs(a - b) < 1e-12);
+        Assert.Equal(HalfCycleS, e.HalfCycleS, 1e-12);
+        Assert.Equal(peakA, e.PeakA, 1e-15);
+        Assert.Equal(peakA / Math.Sqrt(2), e.MaxHalfCycleRmsA, 1e-12);
+        Assert.Equal(15 * peakA / Math.Tan(Math.PI / 200) / 2900, e.MeanA, 1e-12);
+        Assert.Equal(peakA * Math.Sqrt(15 * 50.0 / 2900), e.RmsA, 1e-12);
+        // The envelope: one point a half-cycle, pulse and gap in turn.
+        Assert.Equal(29, e.EnvelopeRmsA.Count);
+        Assert.Equal(HalfCycleS, e.EnvelopeStepS, 1e-12);
+        for (var i = 0; i < 29; i++)
+        {
+            Assert.Equal(i % 2 == 0 ? peakA / Math.Sqrt(2) : 0, e.EnvelopeRmsA[i], 1e-12);
+        }
+
+        // Outside the episode nothing flows: the quiet RMS is 0, not absent (there are quiet half-cycles).
+        Assert.Equal(0.0, r.QuietRmsA!.Value);
+    }
+
+    [Fact]
+    public void A_negative_pulse_s_peak_is_its_magnitude()
+    {
+        // One half-cycle of −50 mA RMS (a sine's negative half): the peak is |−√2·0.05| = 70.7 mA (closed form, m = 50).
+        var samples = Profile(1.0, 0, 0);
+        for (var m = 0; m < 100; m++)
+        {
+            samples[3000 + m] = -0.05 * Math.Sqrt(2) * Math.Sin(Math.PI * m / 100);
+        }
+
+        var e = Assert.Single(Detect(samples, 0.020).Episodes);
+        Assert.Equal(0.05 * Math.Sqrt(2), e.PeakA, 1e-15);
+        Assert.Equal(0.3, e.StartS, 1e-12);
+        Assert.Equal(HalfCycleS, e.DurationS, 1e-12);
+    }
+
+    [Fact]
+    public void A_half_cycle_exactly_at_a_level_counts_as_reaching_it()
+    {
+        // DC of 2⁻⁶ A = 15.625 mA for 0.1 s (10 half-cycles): its squares, sums and square root are exact in binary, so
+        // each half-cycle's RMS is 2⁻⁶ exactly, and "reaches" (at or above, IEC 61008-1's wording for the operating
+        // current) counts it at both levels set there; 2⁻⁵ is never reached (run 0).
+        const double levelA = 1.0 / 64;
+        var samples = new double[10_000];
+        Array.Fill(samples, levelA, 1000, 1000);
+        var r = Detect(samples, levelA, levelA, 2 * levelA);
+        var e = Assert.Single(r.Episodes);
+        Assert.Equal([0.1, 0.1, 0.0], e.LongestRunS, (a, b) => Math.Abs(a - b) < 1e-12);
+        Assert.Equal(levelA, e.MeanA, 1e-15);
+        Assert.Equal(levelA, e.MaxHalfCycleRmsA);
+    }
+
+    [Fact]
+    public void A_higher_level_s_longest_stretch_is_the_longer_of_two()
+    {
+        // Half-cycle RMS (mA): 10 × 0, then 5 × 80, 2 × 40, 8 × 80, 2 × 40, then 0. At 60 mA the two stretches of 80
+        // are 50 and 80 ms apart by two half-cycles (more than the one bridged): the longest is 80 ms, not their sum
+        // nor the first; at 20 mA the whole 170 ms is one stretch.
+        List<double> rms = [.. Enumerable.Repeat(0.0, 10)];
+        rms.AddRange(Enumerable.Repeat(0.080, 5));
+        rms.AddRange(Enumerable.Repeat(0.040, 2));
+        rms.AddRange(Enumerable.Repeat(0.080, 8));
+        rms.AddRange(Enumerable.Repeat(0.040, 2));
+        var e = Assert.Single(Detect(Profile(1.0, [.. rms]), 0.020, 0.060).Episodes);
+        Assert.Equal([0.17, 0.08], e.LongestRunS, (a, b) => Math.Abs(a - b) < 1e-12);
+        Assert.Equal(0.1, e.StartS, 1e-12);
+
+        // Reversed order (the longer stretch first): still 80 ms.
+        List<double> reversed = [.. Enumerable.Repeat(0.0, 10)];
+        reversed.AddRange(Enumerable.Repeat(0.080, 8));
+        reversed.AddRange(Enumerable.Repeat(0.040, 2));
+        reversed.AddRange(Enumerable.Repeat(0.080, 5));
+        var f = Assert.Single(Detect(Profile(1.0, [.. reversed]), 0.020, 0.060).Episodes);
+        Assert.Equal([0.15, 0.08], f.LongestRunS, (a, b) => Math.Abs(a - b) < 1e-12);
+    }
+
+    [Fact]
+    public void One_half_cycle_below_a_higher_level_is_bridged_there_too()
+    {
+        // Half-cycle RMS (mA): 4 × 80, 1 × 40, 4 × 80: at 60 mA a gap of one half-cycle is bridged (engineering choice,
+        // BridgedHalfCycles = 1): one stretch of 90 ms, as at 20 mA.
+        List<double> rms = [.. Enumerable.Repeat(0.0, 10)];
+        rms.AddRange(Enumerable.Repeat(0.080, 4));
+        rms.Add(0.040);
+        rms.AddRange(Enumerable.Repeat(0.080, 4));
+        var e = Assert.Single(Detect(Profile(1.0, [.. rms]), 0.020, 0.060).Episodes);
+        Assert.Equal([0.09, 0.09], e.LongestRunS, (a, b) => Math.Abs(a - b) < 1e-12);
+    }
+
+    [Fact]
+    public void A_capture_above_the_threshold_throughout_has_no_quiet_rms()
+    {
+        // Every half-cycle at 20 mA RMS against a 10 mA threshold: no half-cycle outside the episode, so no standing
+        // figure (null, not 0/0).
+        var samples = Synth.Make(Fs, 0.4, t => 0.020 * Math.Sqrt(2) * Math.Sin(2 * Math.PI * MainsHz * t));
+        var r = Detect(samples, 0.010);
+        Assert.Null(r.QuietRmsA);
+        Assert.Equal(0.4, Assert.Single(r.Episodes).DurationS, 1e-12);
+    }
+
+    [Theory]
+    [InlineData(800, 200)] // 128 points of 4, then 288 half-cycles in 72 points of 4
+    [InlineData(802, 201)] // the same, and a last point of 2 half-cycles
+    public void A_long_episode_s_envelope_has_the_closed_form_count_and_keeps_the_largest(int halfCycles, int points)
+    {
+        // Closed form of the halving: 256 points of one half-cycle fill the envelope, which halves to 128 points of 2;
+        // 256 points again at 512 half-cycles, halved to 128 points of 4; the remaining N − 512 half-cycles add
+        // ⌈(N − 512)/4⌉ points. A 90 mA half-cycle (30 mA elsewhere) is the last one: it stands in the last point,
+        // whether that point is full or not.
+        var rms = Enumerable.Repeat(0.030, halfCycles).ToArray();
+        rms[^1] = 0.090;
+        var e = Assert.Single(Detect(Profile(9.0, rms), 0.010).Episodes);
+        Assert.Equal(points, e.EnvelopeRmsA.Count);
+        Assert.Equal(4 * HalfCycleS, e.EnvelopeStepS, 1e-12);
+        Assert.Equal(0.090, e.EnvelopeRmsA[^1], 1e-12);
+        Assert.All(e.EnvelopeRmsA.Take(points - 1), v => Assert.Equal(0.030, v, 1e-12));
+        Assert.Equal(halfCycles * HalfCycleS, e.DurationS, 1e-9);
+    }
+
+    [Theory]
+    [InlineData(0)]
+    [InlineData(1)]
+    public void The_larger_of_each_pair_is_kept_when_the_envelope_halves(int position)
+    {
+        // 300 half-cycles at 30 mA with one of 90 mA at half-cycle 100 + position: at 256 the pair (100, 101) merges
+        // into one point, which must hold the 90 mA whichever of the two it was.
+        var rms = Enumerable.Repeat(0.030, 300).ToArray();
+        rms[100 + position] = 0.090;
+        var e = Assert.Single(Detect(Profile(4.0, rms), 0.010).Episodes);
+        Assert.Equal(128 + 22, e.EnvelopeRmsA.Count);
+        Assert.Equal(0.090, e.EnvelopeRmsA[50], 1e-12);
+        Assert.Equal(0.090, e.EnvelopeRmsA.Max(), 1e-12);
+    }
+
+    [Fact]
+    public void Half_cycles_of_a_window_too_short_to_hold_them_are_skipped()
+    {
+        // 10 samples for 10 cycles (20 half-cycles): boundaries ⌊h·10/20⌋ leave every other half-cycle empty; the empty
+        // ones are skipped, the others hold one sample each. All at 50 mA: one episode of 10 samples, a half-cycle of
+        // one sample period, the maximum 50 mA (not the NaN of an empty half-cycle).
+        var detector = new HalfCycleEpisodeDetector(Fs, [0.010]);
+        detector.Add(Enumerable.Repeat(0.050, 10).ToArray(), 0, 10);
+        detector.Close();
+        var e = Assert.Single(detector.Result().Episodes);
+        Assert.Equal(0.050, e.MaxHalfCycleRmsA, 1e-15);
+        Assert.Equal(1 / Fs, e.HalfCycleS, 1e-15);
+        Assert.Equal(10 / Fs, e.DurationS, 1e-15);
+        Assert.Equal(0.050, e.RmsA, 1e-15);
+    }
+
+    [Fact]
+    public void Levels_must_be_given_finite_and_not_negative()
+    {
+        Assert.Throws<ArgumentException>(() => new HalfCycleEpisodeDetector(Fs, []));
+        Assert.Throws<ArgumentOutOfRangeException>(() => new HalfCycleEpisodeDetector(Fs, [0.01, -0.001]));
+        Assert.Throws<ArgumentOutOfRangeException>(() => new HalfCycleEpisodeDetector(Fs, [double.NaN]));
+        Assert.Throws<ArgumentOutOfRangeException>(() => new HalfCycleEpisodeDetector(Fs, [0.01, double.PositiveInfinity]));
+        // 0 A is a level (every half-cycle reaches it).
+        var r = Detect(new double[4000], 0.0);
+        Assert.Equal(0.4, Assert.Single(r.Episodes).DurationS, 1e-12);
+    }
 }

@@ -181,4 +181,149 @@ public class LeakageSplitTests
         var unit = v[d.Phase] / v[d.Phase].Magnitude;
         return d.Capacitive ? unit * Complex.ImaginaryOne : unit;
     }
+
+    // ---- Edges and guards (issue 18: mutation testing) -------------------------------------------------------------
+
+    [Theory]
+    [InlineData(100, 1, true)]
+    [InlineData(100, 49, true)]   // the last bin below L/2
+    [InlineData(100, 50, false)]  // L/2: the Nyquist bin, not a phasor of the formula
+    [InlineData(100, 0, false)]   // DC
+    [InlineData(99, 49, true)]    // odd L: 2·49 < 99
+    [InlineData(99, 50, false)]
+    [InlineData(3, 1, true)]      // the shortest window with a bin: 2·1 < 3
+    [InlineData(2, 1, false)]
+    public void BinPhasorAcceptsExactlyTheBinsBelowHalfTheWindow(int length, int bin, bool accepted)
+    {
+        // The DFT's bins 1 to below L/2 are each one frequency's pair with its mirror (common practice, no source): a
+        // sine of exactly that bin's cycles, 2 A RMS at phase 0, gives the closed-form phasor 2·e^{−j90°} (−2j).
+        var x = new double[length];
+        for (var n = 0; n < length; n++)
+        {
+            x[n] = 2 * Math.Sqrt(2) * Math.Sin(2 * Math.PI * bin * n / length);
+        }
+
+        if (!accepted)
+        {
+            Assert.Throws<ArgumentOutOfRangeException>(() => LeakageSplit.BinPhasor(x, bin));
+            return;
+        }
+
+        var p = LeakageSplit.BinPhasor(x, bin);
+        Assert.Equal(0, p.Real, 1e-12);
+        Assert.Equal(-2, p.Imaginary, 1e-12);
+    }
+
+    [Fact]
+    public void ConductanceIsTheResistivePartOverTheVoltage()
+    {
+        // Ohm's law (REFERENCE.md "Insulation"): 230 V across 460 kΩ draws 0.5 mA in phase; G = 1/R.
+        var split = LeakageSplit.Split(new Complex(0, 230), new Complex(0, 230 / 460e3), 50);
+        Assert.Equal(1 / 460e3, split.ConductanceS, 1e-18);
+        Assert.Equal(460e3, split.ResistanceOhm, 1e-3);
+        Assert.Equal(230, split.VoltageRmsV, 1e-12);
+        Assert.Equal(50, split.FrequencyHz);
+        // No resistive part: R is infinite (V/0), as documented.
+        Assert.True(double.IsPositiveInfinity(LeakageSplit.Split(new Complex(230, 0), new Complex(0, 1e-3), 50).ResistanceOhm));
+    }
+
+    [Fact]
+    public void DirectionIndicesRunFromZeroToFive()
+    {
+        // 2·phase, plus 1 when capacitive: L1 resistive 0, L1 capacitive 1, ..., L3 capacitive 5.
+        var indices = new[] { 0, 1, 2 }.SelectMany(p => new[] { false, true }.Select(c => new LeakageDirection(p, c, 0).Index));
+        Assert.Equal([0, 1, 2, 3, 4, 5], indices);
+    }
+
+    [Theory]
+    [InlineData(2, 2, 3)]
+    [InlineData(2, 3, 2)]
+    [InlineData(3, 2, 2)]
+    public void FitRefusesCountsThatDoNotMatch(int voltages, int currents, int orders)
+    {
+        var e = Assert.Throws<ArgumentException>(() => LeakageSplit.Fit(new Complex[voltages], new Complex[currents], new int[orders], 50));
+        Assert.Contains("one voltage and one current per order", e.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void FitOfNothingIsNotANumberAndOfNoCurrentIsZero()
+    {
+        // No order, or no voltage at any order: nothing to fit (NaN everywhere, 0 orders).
+        var empty = LeakageSplit.Fit([], [], [], 50);
+        Assert.True(double.IsNaN(empty.ConductanceS) && double.IsNaN(empty.CapacitanceF) && double.IsNaN(empty.Residual));
+        Assert.Equal(0, empty.Orders);
+        var dead = LeakageSplit.Fit([Complex.Zero], [new Complex(0.001, 0)], [1], 50);
+        Assert.True(double.IsNaN(dead.Residual));
+        Assert.Equal(0, dead.Orders);
+        // Voltage but no current: G = C = 0 exactly and a perfect fit (residual 0, not 0/0).
+        var none = LeakageSplit.Fit([new Complex(230, 0), new Complex(0, 10)], [Complex.Zero, Complex.Zero], [1, 3], 50);
+        Assert.Equal(0.0, none.ConductanceS);
+        Assert.Equal(0.0, none.CapacitanceF);
+        Assert.Equal(0.0, none.Residual);
+        Assert.Equal(2, none.Orders);
+    }
+
+    [Fact]
+    public void FitResidualOfAPureMisfitIsOne()
+    {
+        // Closed form: with the same voltage at orders 1 and 3 and currents +1 mA and −1 mA in phase with it, the
+        // decoupled normal equations give G = ΣRe(I_n V_n*)/Σ|V_n|² = 0 and C = 0 (no quadrature part), so nothing of
+        // the current is explained: residual √(Σ|I_n|²/Σ|I_n|²) = 1.
+        var v = new Complex(230, 0);
+        var fit = LeakageSplit.Fit([v, v], [new Complex(1e-3, 0), new Complex(-1e-3, 0)], [1, 3], 50);
+        Assert.Equal(0.0, fit.ConductanceS, 1e-18);
+        Assert.Equal(0.0, fit.CapacitanceF, 1e-18);
+        Assert.Equal(1.0, fit.Residual, 1e-12);
+    }
+
+    [Fact]
+    public void LocateRefusesAnythingButThreeVoltages()
+    {
+        var e = Assert.Throws<ArgumentException>(() => LeakageSplit.Locate([new Complex(230, 0), new Complex(-115, -199)], new Complex(1e-3, 0)));
+        Assert.Contains("three phase voltages", e.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void LocateOfNoCurrentIsZeroAlongL1()
+    {
+        var (first, second) = LeakageSplit.Locate(Balanced(230), Complex.Zero);
+        Assert.Equal(new LeakageDirection(0, false, 0), first);
+        Assert.Equal(new LeakageDirection(0, true, 0), second);
+    }
+
+    [Theory]
+    [InlineData(0, false)]
+    [InlineData(1, true)]
+    [InlineData(2, false)]
+    public void A_current_exactly_along_one_direction_is_all_there(int phase, bool capacitive)
+    {
+        // Closed form: I = 2 mA along one direction (V_p/|V_p|, or j times it). Two bracketing pairs hold it with the
+        // other coefficient 0 (within rounding, the 1e-12 tolerance); the tighter one is taken, and the whole current
+        // is on the direction itself: 2 mA first, 0 second.
+        var v = Balanced(230);
+        var unit = v[phase] / 230;
+        var i = 0.002 * (capacitive ? unit * Complex.ImaginaryOne : unit);
+        var (first, second) = LeakageSplit.Locate(v, i);
+        Assert.Equal(phase, first.Phase);
+        Assert.Equal(capacitive, first.Capacitive);
+        Assert.Equal(0.002, first.CurrentA, 1e-15);
+        Assert.Equal(0.0, second.CurrentA, 1e-15);
+    }
+
+    [Fact]
+    public void LocateSkipsParallelDirections()
+    {
+        // L2 in phase with L1 (a wiring fault, invented): L1's and L2's directions coincide (determinant 0, span 0) and
+        // cannot bracket anything; a current at 45° between V1 (0°) and jV1 (90°) is split between them by the closed
+        // form x = y = |I|/√2, not taken by the coinciding pair with 0/0 coefficients.
+        Complex[] v = [new Complex(230, 0), new Complex(230, 0), Complex.FromPolarCoordinates(230, 2 * Math.PI / 3)];
+        var i = Complex.FromPolarCoordinates(0.002, Math.PI / 4);
+        var (first, second) = LeakageSplit.Locate(v, i);
+        Assert.True(double.IsFinite(first.CurrentA) && double.IsFinite(second.CurrentA));
+        var rebuilt = (Direction(v, first) * first.CurrentA) + (Direction(v, second) * second.CurrentA);
+        Assert.Equal(i.Real, rebuilt.Real, 1e-15);
+        Assert.Equal(i.Imaginary, rebuilt.Imaginary, 1e-15);
+        Assert.Equal(0.002 / Math.Sqrt(2), first.CurrentA, 1e-15);
+        Assert.Equal(0.002 / Math.Sqrt(2), second.CurrentA, 1e-15);
+    }
 }

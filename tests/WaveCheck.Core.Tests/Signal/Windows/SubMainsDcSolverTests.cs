@@ -92,4 +92,18 @@ public class SubMainsDcSolverTests
         Assert.Equal(1, u[0], 1e-9);
         Assert.Equal(1, u[1], 1e-12);
     }
+
+    [Fact]
+    public void A_pivot_exactly_at_the_guard_is_refused()
+    {
+        // The guard needs a pivot above 1e-9 per sample (engineering threshold of the fit: at or below it the
+        // regressors count as dependent and the plain mean is kept, the side that invents no DC). A pivot of exactly
+        // 1e-9 × 1000 is refused; the same system over 999 samples (guard just below the pivot) is solved: x = (1, 1).
+        var pivot = 1e-9 * 1000;
+        double[] a = [pivot, 0, 0, 1];
+        var u = new double[2];
+        Assert.False(SubMainsDc.Solve(a.ToArray(), Times(a, [1, 1], 2), 2, 1000, u));
+        Assert.True(SubMainsDc.Solve(a.ToArray(), Times(a, [1, 1], 2), 2, 999, u));
+        Assert.Equal(1, u[0], 1e-9);
+    }
 }

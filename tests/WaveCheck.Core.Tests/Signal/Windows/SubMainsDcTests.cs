@@ -282,4 +282,114 @@ public class SubMainsDcTests
         Assert.Equal(0.002 + (peakA * MeanOfSine(Window, motorHz * Window / RateHz, phaseRad)), mean, 1e-9);
         Assert.Equal(0.002, SubMainsDc.Estimate(x, bins, 10, mean, acRms), 0.0001);
     }
+
+    // ---- The mains term of the five-term fit (issue 18: mutation testing) --------------------------------------------
+
+    /// <summary>x_n = c + A·sin(2πβn/N + φ) + B·sin(2π·10·n/N + ψ): a tone of β cycles and a mains part of 10 cycles.</summary>
+    private static double[] ToneAndMainsOnDc(double dcA, double peakA, double cycles, double phaseRad, double mainsPeakA, double mainsPhaseRad)
+    {
+        var x = ToneOnDc(Window, dcA, peakA, cycles, phaseRad);
+        for (var n = 0; n < Window; n++)
+        {
+            x[n] += mainsPeakA * Math.Sin((2 * Math.PI * 10 * n / Window) + mainsPhaseRad);
+        }
+
+        return x;
+    }
+
+    [Theory]
+    [InlineData(2.4, 0.0, 0.3)]
+    [InlineData(2.4, 1.9, 2.0)]
+    [InlineData(3.75, 4.4, 4.0)]
+    [InlineData(7.1, 0.7, 5.5)]
+    public void The_fit_returns_the_constant_beside_a_mains_part_at_any_phase(double cycles, double phaseRad, double mainsPhaseRad)
+    {
+        // Closed form: c + A·sin(ωn + φ) + B·sin(ω₀n + ψ) lies in the span of the five regressors, so least squares
+        // reproduces it exactly and the constant is c, for every phase of either part. Over a window that does not hold
+        // whole cycles of ω the mains part is not orthogonal to the tone's regressors, so a slip in the mains
+        // regressors (their frequency, phasor rotation or re-anchoring every 1024 samples) leaves part of it in c.
+        const double dcA = 0.003;
+        var x = ToneAndMainsOnDc(dcA, 0.01, cycles, phaseRad, 0.05, mainsPhaseRad);
+        var fit = SubMainsDc.FitConstant(x, 2 * Math.PI * cycles / Window, 2 * Math.PI * 10 / Window, x.Average());
+        Assert.NotNull(fit);
+        Assert.Equal(dcA, fit.Value.Constant, 1e-10);
+        // Nothing is left over: the residual sum of squares is 0 within rounding (10⁴ squares of order 10⁻³ A²).
+        Assert.InRange(fit.Value.Residual, 0, 1e-12);
+    }
+
+    [Fact]
+    public void The_residual_is_the_energy_the_model_cannot_hold()
+    {
+        // Closed form: over a window of whole cycles, sines of different whole cycle counts are orthogonal to each
+        // other and to the constant, and Σ sin² over whole cycles is N/2. With ω at 3 cycles and the mains at 10, a
+        // 20-cycle part of peak D is orthogonal to every regressor, so the residual is exactly N·D²/2 and the constant
+        // is untouched.
+        const double dcA = 0.002, d = 0.004;
+        var x = ToneAndMainsOnDc(dcA, 0.01, 3, 0.8, 0.03, 1.7);
+        for (var n = 0; n < Window; n++)
+        {
+            x[n] += d * Math.Sin((2 * Math.PI * 20 * n / Window) + 0.4);
+        }
+
+        var fit = SubMainsDc.FitConstant(x, 2 * Math.PI * 3 / Window, 2 * Math.PI * 10 / Window, x.Average())!.Value;
+        Assert.Equal(Window * d * d / 2, fit.Residual, 1e-12);
+        Assert.Equal(dcA, fit.Constant, 1e-12);
+    }
+
+    [Theory]
+    [InlineData(2.4, 0.0)]
+    [InlineData(2.6, 1.1)]
+    [InlineData(1.3, 4.0)]
+    [InlineData(7.6, 3.3)]
+    public void The_estimate_is_exact_beside_a_mains_part_in_the_samples(double cycles, double phaseRad)
+    {
+        // As the kernel-spectrum test above, with the 50 mA mains part in the samples too (bin 10 of the spectrum): the
+        // peak search and refinement give β, the five-term fit at β and the window's own 10 cycles holds every part,
+        // and the DC is c within rounding.
+        const double dcA = 0.02, peakA = 0.01, mainsPeakA = 0.05;
+        var x = ToneAndMainsOnDc(dcA, peakA, cycles, phaseRad, mainsPeakA, 2.5);
+        var power = KernelSpectrum(40, dcA, peakA, cycles);
+        power[10] += mainsPeakA * mainsPeakA / 2;
+        var mean = x.Average();
+        var acRms = Math.Sqrt(x.Select(v => (v - mean) * (v - mean)).Average());
+        Assert.True(Math.Abs(mean - dcA) > 1e-4 || cycles == 7.6, $"the plain mean is biased: {mean}");
+        Assert.Equal(dcA, SubMainsDc.Estimate(x, power, 10, mean, acRms), 1e-10);
+    }
+
+    [Fact]
+    public void A_tone_of_one_whole_cycle_is_fitted_at_one_cycle()
+    {
+        // A tone of exactly 1 cycle (peak bin 1) beside a smaller one of exactly 2 cycles, on 20 mA DC. Closed form:
+        // tones of whole cycles leak into no other bin, so the spectrum is exact: bin 0 = c², bin 1 = A²/2, bin 2 = A₂²/2.
+        // Towards bin 0 the refinement takes no neighbour (bin 0 is the DC) and gives exactly 1 cycle; towards bin 2 it
+        // gives 1 + r/(1 + r), r = A₂/A. At 1 cycle the model holds c and the 1-cycle tone exactly, and the 2-cycle tone
+        // is orthogonal to every regressor (whole cycles), so that fit's constant is c and its residual the 2-cycle
+        // tone's energy, smaller than the other fit's: the DC is c within rounding.
+        const double dcA = 0.02, peakA = 0.01, secondA = 0.002;
+        var x = ToneOnDc(Window, dcA, peakA, 1, 0.6);
+        for (var n = 0; n < Window; n++)
+        {
+            x[n] += secondA * Math.Sin((2 * Math.PI * 2 * n / Window) + 1.3);
+        }
+
+        var power = new double[20];
+        power[0] = dcA * dcA;
+        power[1] = peakA * peakA / 2;
+        power[2] = secondA * secondA / 2;
+        var acRms = Math.Sqrt(power[1] + power[2]);
+        var other = SubMainsDc.FitConstant(x, 2 * Math.PI * (1 + (0.2 / 1.2)) / Window, 2 * Math.PI * 10 / Window, x.Average());
+        Assert.True(Math.Abs(other!.Value.Constant - dcA) > 1e-6, "the fit towards bin 2 must be off for the test to mean anything");
+        Assert.Equal(dcA, SubMainsDc.Estimate(x, power, 10, x.Average(), acRms), 1e-10);
+    }
+
+    [Fact]
+    public void A_singular_fit_is_reported_as_none()
+    {
+        // ω = 0 makes the cosine regressor equal to the constant and the sine regressor zero (closed form: cos 0 = 1,
+        // sin 0 = 0): the normal matrix is singular, and the fit says so (null) rather than returning a constant.
+        var x = ToneOnDc(Window, 0.003, 0.01, 2.4, 0.5);
+        Assert.Null(SubMainsDc.FitConstant(x, 0, 2 * Math.PI * 10 / Window, x.Average()));
+        // ω equal to the mains frequency: two pairs of equal regressors, singular as well.
+        Assert.Null(SubMainsDc.FitConstant(x, 2 * Math.PI * 10 / Window, 2 * Math.PI * 10 / Window, x.Average()));
+    }
 }
