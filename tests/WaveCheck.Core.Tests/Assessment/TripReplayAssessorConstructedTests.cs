@@ -1,5 +1,6 @@
 using WaveCheck.Core.Assessment;
 using WaveCheck.Core.Model;
+using WaveCheck.Core.Text;
 
 namespace WaveCheck.Core.Tests.Assessment;
 
@@ -354,10 +355,10 @@ public class TripReplayAssessorConstructedTests
     [Fact]
     public void Findings_and_devices_in_words()
     {
-        Assert.Equal("will not trip", TripReplayAssessor.Words(TripFinding.WillNotTrip));
-        Assert.Equal("may trip", TripReplayAssessor.Words(TripFinding.MayTrip));
-        Assert.Equal("will trip", TripReplayAssessor.Words(TripFinding.WillTrip));
-        Assert.Equal("type S 100 mA", TripReplayAssessor.Kind(new ReplayedDevice(0.100, DeviceTiming.S, false)));
-        Assert.Equal("general type 30.0 mA", TripReplayAssessor.Kind(new ReplayedDevice(0.030, DeviceTiming.General, true)));
+        Assert.Equal("will not trip", TripReplayText.Finding(TripFinding.WillNotTrip));
+        Assert.Equal("may trip", TripReplayText.Finding(TripFinding.MayTrip));
+        Assert.Equal("will trip", TripReplayText.Finding(TripFinding.WillTrip));
+        Assert.Equal("type S 100 mA", TripReplayText.Device(new ReplayedDevice(0.100, DeviceTiming.S, false)));
+        Assert.Equal("general type 30.0 mA", TripReplayText.Device(new ReplayedDevice(0.030, DeviceTiming.General, true)));
     }
 }

@@ -50,7 +50,7 @@ public static class LeakageSplit
 {
     /// <summary>The RMS phasor of DFT bin <paramref name="bin"/> of a window: √2/L · Σ x_n e^{−2πi·bin·n/L}.</summary>
     /// <param name="samples">The window, L samples (at least 2).</param>
-    /// <param name="bin">The bin, 1 to L/2 − 1: the harmonic order times the cycles in the window.</param>
+    /// <param name="bin">The bin, 1 to ⌊(L − 1)/2⌋ (below the Nyquist bin): the harmonic order times the cycles in the window.</param>
     /// <remarks>Goertzel's recurrence (one multiply-add a sample): s_n = x_n + 2cos(ω)s_{n−1} − s_{n−2}, then
     /// X = e^{iω}s_{L−1} − s_{L−2} with ω = 2π·bin/L. A synchronised rectangular window of whole cycles puts each
     /// harmonic in its own bin, and DC in none.</remarks>
@@ -59,7 +59,7 @@ public static class LeakageSplit
         var length = samples.Length;
         if (length < 2 || bin < 1 || 2 * bin >= length)
         {
-            throw new ArgumentOutOfRangeException(nameof(bin), $"bin must lie in 1..{(length / 2) - 1} for a window of {length} samples (got {bin})");
+            throw new ArgumentOutOfRangeException(nameof(bin), $"bin must lie in 1..{(length - 1) / 2} for a window of {length} samples (got {bin})");
         }
 
         var w = 2 * Math.PI * bin / length;

@@ -76,11 +76,15 @@ public class LeakageSplitTests
         Assert.Equal(phi - (Math.PI / 2), phasor.Phase, 1e-10);
     }
 
-    [Fact]
-    public void BinOutsideTheSpectrumIsRefusedWithTheRange()
+    [Theory]
+    [InlineData(100, 50, "1..49")]
+    [InlineData(99, 50, "1..49")] // odd L: bin 49 is accepted (2·49 < 99), so the message must say so
+    [InlineData(3, 2, "1..1")]
+    public void BinOutsideTheSpectrumIsRefusedWithTheRange(int length, int bin, string range)
     {
-        var e = Assert.Throws<ArgumentOutOfRangeException>(() => LeakageSplit.BinPhasor(new double[100], 50));
-        Assert.Contains("1..49", e.Message, StringComparison.Ordinal);
+        // The range the message gives is the one BinPhasorAcceptsExactlyTheBinsBelowHalfTheWindow accepts: 2·bin < L.
+        var e = Assert.Throws<ArgumentOutOfRangeException>(() => LeakageSplit.BinPhasor(new double[length], bin));
+        Assert.Contains(range + " ", e.Message, StringComparison.Ordinal);
     }
 
     [Theory]
