@@ -361,4 +361,75 @@ public class TripReplayAssessorConstructedTests
         Assert.Equal("type S 100 mA", TripReplayText.Device(new ReplayedDevice(0.100, DeviceTiming.S, false)));
         Assert.Equal("general type 30.0 mA", TripReplayText.Device(new ReplayedDevice(0.030, DeviceTiming.General, true)));
     }
+
+    [Fact]
+    public void An_episode_is_written_as_multiples_of_the_rated_current()
+    {
+        // 45 mA RMS on a 30 mA device is 1.5 IΔn; its peak √2 × 45 mA is 2.12 IΔn (definition of the multiple, common
+        // practice, no source).
+        var e = Assert.Single(Replay(Thirty, [Episode(Thirty, 0.045, 0.050)]).Episodes);
+        Assert.Equal(1.5, e.RmsMultiple, 1e-12);
+        Assert.Equal(1.5, e.MaxHalfCycleRmsMultiple, 1e-12);
+        Assert.Equal(1.5 * Math.Sqrt(2), e.PeakMultiple, 1e-12);
+    }
+
+    [Theory]
+    [InlineData(null, DeviceTiming.General)]
+    [InlineData(DeviceTiming.General, DeviceTiming.General)]
+    [InlineData(DeviceTiming.S, DeviceTiming.S)]
+    public void Each_rating_lists_the_installed_timing_first(DeviceTiming? installed, DeviceTiming first)
+    {
+        // The order the report and the JSON list the devices in: per rating, the installed timing (general when none is
+        // stated, the common case) before the other; 30, 100, 300 mA (ratings in use, REFERENCE.md, practice).
+        var devices = Replay(Thirty with { InstalledTiming = installed }, []).Devices;
+        Assert.Equal([0.030, 0.030, 0.100, 0.100, 0.300, 0.300], devices.Select(d => d.RatedResidualCurrentA));
+        for (var i = 0; i < devices.Count; i += 2)
+        {
+            Assert.Equal(first, devices[i].Timing);
+            Assert.NotEqual(first, devices[i + 1].Timing);
+        }
+    }
+
+    [Fact]
+    public void The_replay_refuses_missing_arguments()
+    {
+        // Argument checks (common practice, no source): a missing analysis or device is a programming error, not input.
+        var analysis = Analysis(Thirty, []);
+        Assert.Throws<ArgumentNullException>(() => TripReplayAssessor.LevelsFor(null!));
+        Assert.Throws<ArgumentNullException>(() => TripReplayAssessor.Replay(null!, Thirty));
+        Assert.Throws<ArgumentNullException>(() => TripReplayAssessor.Replay(analysis, null!));
+    }
+
+    [Fact]
+    public void Devices_no_episode_reached_are_judged_will_not_trip_and_not_must_trip()
+    {
+        // No half-cycle at 0.5 IΔn: below the non-operating current, so no device of these ratings must trip
+        // (IEC 61008-1 / IEC 61009-1, REFERENCE.md "Tripping ranges and times").
+        var r = Replay(Thirty, [], found: 0);
+        Assert.Equal(6, r.Overall.Count);
+        Assert.All(r.Overall, f =>
+        {
+            Assert.Equal(TripFinding.WillNotTrip, f.Finding);
+            Assert.False(f.MustTripReached);
+        });
+    }
+
+    [Fact]
+    public void An_episode_without_current_is_not_smooth_dc()
+    {
+        // The DC rule compares |mean| with 0.9 × RMS; with no current at all both are 0 and the episode is not DC
+        // (it carries no current of any kind; closed form).
+        var e = Assert.Single(Replay(Thirty, [Episode(Thirty, 0, 0.050)]).Episodes);
+        Assert.False(e.DcDominated);
+    }
+
+    [Fact]
+    public void The_notes_state_the_users_accuracy()
+    {
+        // The uncertainty rule applies the accuracy the user gave (5 % + 0.2 mA here), and the notes must say which.
+        var mine = new MeasurementAccuracy(0.05, 0.0002);
+        var r = Replay(Thirty with { Accuracy = mine }, [], found: 0);
+        Assert.Contains(r.Notes, n => n.Contains($"({mine})", StringComparison.Ordinal));
+        Assert.DoesNotContain(r.Notes, n => n.Contains($"({MeasurementAccuracy.Default})", StringComparison.Ordinal));
+    }
 }
