@@ -3,6 +3,8 @@
 # each file gets its own score and no run grows without bound. Not part of CI: a file takes 5 to 15 minutes on
 # this 2-core machine. Usage:
 #   bash tests/mutation.sh [src/WaveCheck.Core/Signal/Windows/SubMainsDc.cs ...]
+# MUTATION_TOGETHER=1 runs files that share a test filter in one Stryker run (one compile for all of them);
+# MUTATION_CONCURRENCY sets Stryker's test runners (1 by default: leaves a core free on this 2-core machine).
 # With no file it runs the list below (the measurement core and the verdict; docs/testing.md has their scores).
 # Reports: artifacts/mutation/<file>/reports/mutation-report.{html,json}; the score of each file is printed at the end.
 # Tests run against each file: a Signal file's own test class (tests mirror the source tree: Signal/ToneFinder.cs is
@@ -40,40 +42,65 @@ done
 export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1
 dotnet tool restore >/dev/null
 
-summary=()
-for f in "${files[@]}"; do
+filter_of() {
+  local f=$1 name rel folder
   name=$(basename "$f" .cs)
-  out="$root/artifacts/mutation/$name"
-  rm -rf "$out"
-  echo "== $f" >&2
-  start=$SECONDS
   rel=${f#src/WaveCheck.Core/}
   folder=${rel%%/*}
-  filter=${MUTATION_TESTS:-}
-  if [ -z "$filter" ]; then
-    if [ "$folder" = Assessment ]; then
-      # The verdict's tests on constructed figures; the two classes that synthesise and analyse waveforms
-      # (RequiredTypeTests, VerdictPropertyTests) would run the whole analysis instrumented, minutes per mutant.
-      filter="FullyQualifiedName~WaveCheck.Core.Tests.Assessment.&FullyQualifiedName!~RequiredTypeTests&FullyQualifiedName!~VerdictPropertyTests"
-    elif [ -n "$(find "tests/WaveCheck.Core.Tests/$folder" -name "${name}*Tests.cs" -print -quit)" ]; then
-      # The file's own test classes (X.cs: XTests and X...Tests, wherever they sit under the mirrored folder;
-      # Signal's subfolders share one namespace).
-      filter="FullyQualifiedName~WaveCheck.Core.Tests.$folder.${name}"
-    else
-      filter="FullyQualifiedName~WaveCheck.Core.Tests.$folder."
-    fi
+  if [ -n "${MUTATION_TESTS:-}" ]; then
+    echo "$MUTATION_TESTS"
+  elif [ "$folder" = Assessment ]; then
+    # The verdict's tests on constructed figures; the two classes that synthesise and analyse waveforms
+    # (RequiredTypeTests, VerdictPropertyTests) would run the whole analysis instrumented, minutes per mutant.
+    echo "FullyQualifiedName~WaveCheck.Core.Tests.Assessment.&FullyQualifiedName!~RequiredTypeTests&FullyQualifiedName!~VerdictPropertyTests"
+  elif [ -n "$(find "tests/WaveCheck.Core.Tests/$folder" -name "${name}*Tests.cs" -print -quit)" ]; then
+    # The file's own test classes (X.cs: XTests and X...Tests, wherever they sit under the mirrored folder;
+    # Signal's subfolders share one namespace).
+    echo "FullyQualifiedName~WaveCheck.Core.Tests.$folder.${name}"
+  else
+    echo "FullyQualifiedName~WaveCheck.Core.Tests.$folder."
   fi
+}
+
+# Files are grouped into runs: one run per file, or, with MUTATION_TOGETHER=1, one run per test filter (all the
+# Assessment files share one), so the whole project is compiled once for the group. Stryker scores each file of a
+# run separately, so the per-file figures are the same either way; only the wall time differs.
+declare -A group_files=()
+order=()
+for f in "${files[@]}"; do
+  filter=$(filter_of "$f")
+  key=$f
+  [ "${MUTATION_TOGETHER:-0}" = 1 ] && key=$filter
+  if [ -z "${group_files[$key]+x}" ]; then order+=("$key"); group_files[$key]=""; fi
+  group_files[$key]+="$f "
+done
+
+summary=()
+for key in "${order[@]}"; do
+  read -r -a members <<<"${group_files[$key]}"
+  first=${members[0]}
+  name=$(basename "$first" .cs)
+  [ ${#members[@]} -gt 1 ] && name="$name+$(( ${#members[@]} - 1 ))"
+  out="$root/artifacts/mutation/$name"
+  rm -rf "$out"
+  echo "== ${members[*]}" >&2
+  start=$SECONDS
+  filter=$(filter_of "$first")
   filter_args=()
   [ "$filter" = all ] || filter_args=(--test-case-filter "$filter")
+  mutate_args=()
+  for f in "${members[@]}"; do mutate_args+=(--mutate "**/${f#src/WaveCheck.Core/}"); done
   echo "tests: ${filter}" >&2
   # The cleartext, html and json reporters only: the progress reporter needs a terminal width and fails without one.
   (cd tests/WaveCheck.Core.Tests && dotnet stryker --config-file stryker-config.json --skip-version-check \
-      --mutate "**/$rel" "${filter_args[@]}" --output "$out")
+      "${mutate_args[@]}" "${filter_args[@]}" --concurrency "${MUTATION_CONCURRENCY:-1}" --output "$out")
   report="$out/reports/mutation-report.json"
-  [ -f "$report" ] || { echo "mutation.sh: $f: Stryker wrote no report ($report)" >&2; exit 1; }
-  line="$(python3 tests/mutation_score.py "$report" "$((SECONDS - start))"), tests: $filter"
-  echo "$line"
-  summary+=("$line")
+  [ -f "$report" ] || { echo "mutation.sh: ${members[*]}: Stryker wrote no report ($report)" >&2; exit 1; }
+  while IFS= read -r line; do
+    line="$line, tests: $filter"
+    echo "$line"
+    summary+=("$line")
+  done < <(python3 tests/mutation_score.py "$report" "$((SECONDS - start))")
 done
 
 echo
