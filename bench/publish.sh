@@ -30,7 +30,7 @@ for rid in ${RIDS:-linux-x64 win-x64}; do
       dotnet publish "$root/src/WaveCheck.Cli" -c Release -r "$rid" -p:PublishAot=true -o "$out" -v q -nologo
       ;;
     win-*)
-      dotnet publish "$root/src/WaveCheck.Cli" -c Release -r "$rid" --self-contained true -p:PublishSingleFile=true \
+      dotnet publish "$root/src/WaveCheck.Cli" -c Release -r "$rid" -p:PublishAot=false --self-contained true -p:PublishSingleFile=true \
         -p:PublishReadyToRun=true -p:IncludeNativeLibrariesForSelfExtract=true -o "$out" -v q -nologo
       ;;
   esac

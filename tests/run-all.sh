@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # Runs every test of WaveCheck. Some tests check against outside references that are not .NET packages:
-# headless Chromium (the HTML report and its PDF), poppler-utils (pdfinfo, pdftotext read the PDF back), DejaVu fonts (plots), Debian's numpy and scipy (spectra, filter responses).
+# headless Chromium (the HTML report and its PDF), clang (the tool package compiled ahead of time), poppler-utils (pdfinfo, pdftotext read the PDF back), DejaVu fonts (plots), Debian's numpy and scipy (spectra, filter responses).
 # They are installed from Debian's packages when missing (needs root or sudo).
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -8,6 +8,7 @@ cd "$(dirname "$0")/.."
 need=()
 command -v chromium >/dev/null 2>&1 || need+=(chromium)
 command -v pdftotext >/dev/null 2>&1 || need+=(poppler-utils)
+command -v clang >/dev/null 2>&1 || need+=(clang)
 [ -e /usr/share/fonts/truetype/dejavu/DejaVuSans.ttf ] || need+=(fonts-dejavu-core)
 /usr/bin/python3 -c 'import numpy, scipy' >/dev/null 2>&1 || need+=(python3-numpy python3-scipy)
 if [ ${#need[@]} -gt 0 ]; then

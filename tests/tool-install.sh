@@ -1,8 +1,10 @@
 #!/usr/bin/env bash
-# Packs the CLI as a .NET tool, installs it into a temporary tool path from that package alone (no other package
-# source), and runs it from an empty folder: --version, the demo (which must find the captures bundled in the tool),
-# and synth + analyse on a file of its own. What the README's "Install" section promises, checked. Run by
-# tests/run-all.sh (and so by CI); leaves nothing behind.
+# Packs the CLI as a .NET tool (src/WaveCheck.Cli/pack-tool.sh: the pointer package, the ahead-of-time build for
+# linux-x64 and the framework-dependent one), installs it into a temporary tool path from those packages alone (no
+# other package source), checks that on linux-x64 the installed command is the ahead-of-time build, and runs it from
+# an empty folder: --version, the demo (which must find the captures bundled in the tool), and synth + analyse on a
+# file of its own. Then installs the framework-dependent package by name (wavecheck.any) and runs it. What the
+# README's "Install" section promises, checked. Run by tests/run-all.sh (and so by CI); leaves nothing behind.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
@@ -10,7 +12,7 @@ tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
 export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1
 
-dotnet pack src/WaveCheck.Cli -c Release -o "$tmp/feed" -v q -nologo
+bash src/WaveCheck.Cli/pack-tool.sh "$tmp/feed"
 cat > "$tmp/nuget.config" <<CONFIG
 <?xml version="1.0" encoding="utf-8"?>
 <configuration>
@@ -27,6 +29,14 @@ mkdir "$tmp/work"
 cd "$tmp/work"
 wavecheck="$tmp/tools/wavecheck"
 [ -x "$wavecheck" ] || fail "no 'wavecheck' command in the tool path"
+if [ "$(uname -s)-$(uname -m)" = Linux-x86_64 ]; then
+  # The command links to the package the .NET CLI chose: the linux-x64 one, a native executable (no wavecheck.dll).
+  case "$(readlink -f "$wavecheck")" in
+    */wavecheck.linux-x64/*) ;;
+    *) fail "on linux-x64 the installed wavecheck is $(readlink -f "$wavecheck"), not the ahead-of-time package" ;;
+  esac
+  [ ! -e "$(dirname "$(readlink -f "$wavecheck")")/wavecheck.dll" ] || fail "the linux-x64 package holds wavecheck.dll: not compiled ahead of time"
+fi
 version=$("$wavecheck" --version)
 case "$version" in
   0.*|1.*|2.*) ;;
@@ -48,4 +58,11 @@ status=$?
 set -e
 # Pulsating DC (IEC 61008-1): type AC is not adequate, so --fail-on upgrade gives exit 1.
 [ "$status" -eq 1 ] || fail "analyse of a phase-cut half-wave with --device AC exited $status, expected 1"
-echo "tool-install: wavecheck $version installed as a .NET tool, demo and analyse ran"
+
+# The framework-dependent package, installed by name (other platforms, a CPU without AVX2).
+cd "$tmp"
+dotnet tool install wavecheck.any --tool-path "$tmp/tools-any" --configfile "$tmp/nuget.config" > /dev/null
+[ -e "$(dirname "$(readlink -f "$tmp/tools-any/wavecheck")")" ] || fail "no 'wavecheck' command from wavecheck.any"
+any_version=$("$tmp/tools-any/wavecheck" --version)
+[ "$any_version" = "$version" ] || fail "wavecheck.any --version says $any_version, the linux-x64 build $version"
+echo "tool-install: wavecheck $version installed as a .NET tool, demo and analyse ran; wavecheck.any ran too"
