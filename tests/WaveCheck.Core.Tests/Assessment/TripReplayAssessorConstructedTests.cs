@@ -212,6 +212,31 @@ public class TripReplayAssessorConstructedTests
     }
 
     [Fact]
+    public void Among_equal_findings_the_earliest_episode_s_reason_stays()
+    {
+        // Two episodes with the same finding and the same must-trip state: the overall reason is the first one's (the
+        // replay names the first time a limit was met, not the last). Break times: IEC 61008-1 general type, 300 ms
+        // at IΔn and 150 ms at 2 IΔn (REFERENCE.md); 20 ms resolution (Limits.ReplayTimeResolutionHalfCycles).
+        var atRated = Episode(Thirty, 1.1 * 0.030, 0.300, startS: 1); // at the 300 ms limit: may trip, must-trip reached
+        var atDouble = Episode(Thirty, 2.2 * 0.030, 0.131, startS: 2); // at the 150 ms limit: the same finding
+        var first = Of(Replay(Thirty, [atRated, atDouble]), 0.030, DeviceTiming.General);
+        var second = Of(Replay(Thirty, [atDouble, atRated]), 0.030, DeviceTiming.General);
+        Assert.Equal((TripFinding.MayTrip, true), (first.Finding, first.MustTripReached));
+        Assert.Equal((TripFinding.MayTrip, true), (second.Finding, second.MustTripReached));
+        Assert.Contains("at 1 IΔn for 300 ms", first.Reason, StringComparison.Ordinal);
+        Assert.Contains("at 2 IΔn for 131 ms", second.Reason, StringComparison.Ordinal);
+
+        // Two that stay inside the ranges (may trip, no limit reached): the first one's durations are named.
+        var shortA = Episode(Thirty, 0.6 * 0.030, 0.020, startS: 1);
+        var shortB = Episode(Thirty, 0.8 * 0.030, 0.050, startS: 2);
+        var plain = Of(Replay(Thirty, [shortA, shortB]), 0.030, DeviceTiming.General);
+        var plainReversed = Of(Replay(Thirty, [shortB, shortA]), 0.030, DeviceTiming.General);
+        Assert.Equal((TripFinding.MayTrip, false), (plain.Finding, plain.MustTripReached));
+        Assert.Contains("above 0.5 IΔn for 20 ms", plain.Reason, StringComparison.Ordinal);
+        Assert.Contains("above 0.5 IΔn for 50 ms", plainReversed.Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Episodes_beyond_the_list_are_judged_by_their_longest_stretches()
     {
         // One listed episode inside the limits, four more unlisted whose longest stretch at every level up to 5.5 IΔn
