@@ -39,6 +39,10 @@ public sealed class CaptureAnalysis
     // sinks' job at most 9 jobs, so no more than 9 threads are ever used).
     private const int BatchWindows = 8;
 
+    // Batches of slots: one being cut, up to two queued at the workers (the newer queued before the caller waits for
+    // the older, so a worker never waits for the caller's folding and reading).
+    private const int BatchSets = 3;
+
     private readonly CaptureInfo _info;
     private readonly AnalysisOptions _options;
     private readonly double _fs;
@@ -54,8 +58,8 @@ public sealed class CaptureAnalysis
     private EventDetector? _events;
     private HalfCycleEpisodeDetector? _episodes;
     private int _cycles;
-    private WindowSlot[] _flying = [];
-    private int _flyCount;
+    private readonly Stack<WindowSlot[]> _spare = new();
+    private readonly Queue<(WindowSlot[] Slots, int Count, WindowWorkers.Ticket Ticket)> _inFlight = new();
     private readonly VoltageInput? _voltage;
     private double[][] _voltageDetect = [];
     private double[][] _voltageBlock = [];
@@ -185,9 +189,10 @@ public sealed class CaptureAnalysis
         var (tracker, cutter, figures, events) = (_tracker!, _cutter!, _figures!, _events!);
         var tail = cutter.Partial;
         Dispatch();
-        _workers!.Wait();
-        Fold(_flying, _flyCount);
-        _flyCount = 0;
+        while (_inFlight.Count > 0)
+        {
+            FoldOldest();
+        }
         if (figures.WindowCount == 0)
         {
             // A verdict from no window at all would read as "type AC sufficient" on a capture that says nothing.
@@ -282,7 +287,10 @@ public sealed class CaptureAnalysis
 
         _tracker = tracker;
         _cutter = new WindowCutter(_fs, cycles, nominal, tracker.FrequencyHz, NewBatch());
-        _flying = NewBatch();
+        for (var i = 1; i < BatchSets; i++)
+        {
+            _spare.Push(NewBatch());
+        }
         var leakage = _voltage is null ? null : new LeakageWindowMeasurement(_fs, cycles, _voltage.Channels.Count);
         _workers = new WindowWorkers(Math.Min(_options.WorkerCount, BatchWindows + 1),
             () => new WindowMeasurement(_fs, cycles, maxOrder, bands, _options.RestBandA, _info.FullScaleA, leakage));
@@ -340,12 +348,22 @@ public sealed class CaptureAnalysis
 
     private void Dispatch()
     {
-        // The new batch goes out before the finished one is folded in, so the workers never wait for the folding.
-        _workers!.Wait();
-        var (done, doneCount) = (_flying, _flyCount);
-        (_flying, _flyCount) = _cutter!.TakeBatch(done);
-        _workers.Start(_flying.AsSpan(0, _flyCount), _options.Sinks);
-        Fold(done, doneCount);
+        // The new batch is queued before the oldest is waited for and folded in, so the workers never wait for the
+        // folding; its slots then go back to the cutter.
+        var (slots, count) = _cutter!.TakeBatch(_spare.Pop());
+        _inFlight.Enqueue((slots, count, _workers!.Start(slots.AsSpan(0, count), _options.Sinks)));
+        if (_spare.Count == 0)
+        {
+            FoldOldest();
+        }
+    }
+
+    private void FoldOldest()
+    {
+        var (slots, count, ticket) = _inFlight.Dequeue();
+        _workers!.Wait(ticket);
+        Fold(slots, count);
+        _spare.Push(slots);
     }
 
     private void Fold(WindowSlot[] slots, int count)

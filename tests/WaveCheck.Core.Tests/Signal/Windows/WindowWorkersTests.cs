@@ -106,6 +106,69 @@ public class WindowWorkersTests
         Assert.True(sequentialStarts.Count >= 140);
     }
 
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    [InlineData(3)]
+    public void A_sink_s_failure_reaches_the_caller_and_no_sink_runs_twice_at_once(int workers)
+    {
+        // Batches queue up behind each other at the workers; a sink's exception must still come out of the analysis
+        // (as itself, not wrapped), and the sinks' jobs of consecutive batches must never overlap.
+        var samples = Capture();
+        var sink = new GuardedSink(failAtPush: 40);
+        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs, SensorCoupling.Dc).Info,
+            new AnalysisOptions { WorkerCount = workers, Sinks = [sink] });
+        var ex = Assert.Throws<InvalidOperationException>(() =>
+        {
+            for (var at = 0; at < samples.Length; at += 65_536)
+            {
+                analysis.Push(samples.AsSpan(at, Math.Min(65_536, samples.Length - at)));
+            }
+
+            analysis.Complete();
+        });
+        Assert.Equal("sink failed at push 40", ex.Message);
+        Assert.False(sink.Overlapped);
+
+        var whole = new GuardedSink(failAtPush: int.MaxValue);
+        var full = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs, SensorCoupling.Dc).Info,
+            new AnalysisOptions { WorkerCount = workers, Sinks = [whole] });
+        full.Push(samples);
+        full.Complete();
+        Assert.False(whole.Overlapped);
+        // Every window's samples, then the tail: the whole capture, once.
+        Assert.Equal(samples.Length, whole.Samples);
+        Assert.Equal(full.WindowCount + 1, whole.Pushes);
+    }
+
+    private sealed class GuardedSink(int failAtPush) : ISampleSink
+    {
+        private int _inside;
+
+        public int Pushes { get; private set; }
+
+        public long Samples { get; private set; }
+
+        public bool Overlapped { get; private set; }
+
+        public void Push(ReadOnlySpan<double> samplesA)
+        {
+            if (Interlocked.Exchange(ref _inside, 1) == 1)
+            {
+                Overlapped = true;
+            }
+
+            Thread.Sleep(0);
+            Pushes++;
+            Samples += samplesA.Length;
+            Volatile.Write(ref _inside, 0);
+            if (Pushes == failAtPush)
+            {
+                throw new InvalidOperationException($"sink failed at push {Pushes}");
+            }
+        }
+    }
+
     [Fact]
     public void RejectsNoWorkers()
     {
