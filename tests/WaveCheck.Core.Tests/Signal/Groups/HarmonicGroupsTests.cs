@@ -131,4 +131,30 @@ public class HarmonicGroupsTests
         Assert.False(HarmonicGroups.InHarmonicSubgroup(2, 10, 50));
         Assert.False(HarmonicGroups.InHarmonicSubgroup(3200, 10, 50));
     }
+    [Fact]
+    public void Groups_sum_exactly_the_bins_the_standard_names_and_stop_at_the_spectrum_s_end()
+    {
+        // IEC 61000-4-7 group definitions (REFERENCE.md, "mem"; the class remarks), N = 10 cycles, k = 10·n: group
+        // ½C²(k−5) + ΣC²(k−4..k+4) + ½C²(k+5), subgroup ΣC²(k−1..k+1), interharmonic group ΣC²(k+1..k+9), centred
+        // interharmonic subgroup ΣC²(k+2..k+8). A spectrum with C²(i) = i + 1 makes every bin count differently, so the
+        // sums are closed forms: Σ(i + 1) for i = a..b = (b − a + 1)(a + b + 2)/2.
+        static double Arith(int a, int b) => (b - a + 1) * (a + b + 2) / 2.0;
+        var power = Enumerable.Range(0, 60).Select(i => i + 1.0).ToArray();
+        Assert.Equal(Arith(16, 24) + (0.5 * (16 + 26)), HarmonicGroups.Group(power, 10, 2));
+        Assert.Equal(Arith(19, 21), HarmonicGroups.Subgroup(power, 10, 2));
+        Assert.Equal(Arith(21, 29), HarmonicGroups.InterharmonicGroup(power, 10, 2));
+        Assert.Equal(Arith(22, 28), HarmonicGroups.InterharmonicSubgroup(power, 10, 2));
+        Assert.Equal(Arith(1, 4) + (0.5 * 6), HarmonicGroups.BelowFundamental(power, 10));
+        // Odd N = 9: the group's edges fall between bins, k = 18: bins 14..22 fully.
+        Assert.Equal(Arith(14, 22), HarmonicGroups.Group(power, 9, 2));
+
+        // Bins beyond the spectrum count as zero (the class remarks): a spectrum of 25 bins (0..24) cut inside the
+        // groups of order 2.
+        var cut = power[..25];
+        Assert.Equal(Arith(16, 24) + (0.5 * 16), HarmonicGroups.Group(cut, 10, 2)); // edge bin 25 absent
+        Assert.Equal(Arith(21, 24), HarmonicGroups.InterharmonicGroup(cut, 10, 2));
+        Assert.Equal(Arith(22, 24), HarmonicGroups.InterharmonicSubgroup(cut, 10, 2));
+        Assert.Equal(0, HarmonicGroups.Sum(cut, 25, 40));
+        Assert.Equal(Arith(0, 2), HarmonicGroups.Sum(cut, -3, 2));
+    }
 }
