@@ -17,7 +17,7 @@ public class TripReplayAssessorConstructedTests
 {
     private static readonly AssessmentOptions Thirty = new() { RatedResidualCurrentA = 0.030 };
 
-    private static HalfCycleEpisode Episode(AssessmentOptions o, double rmsA, double durationS, double meanA = 0, double startS = 1.0) => new()
+    internal static HalfCycleEpisode Episode(AssessmentOptions o, double rmsA, double durationS, double meanA = 0, double startS = 1.0) => new()
     {
         StartS = startS,
         DurationS = durationS,
@@ -31,10 +31,10 @@ public class TripReplayAssessorConstructedTests
         EnvelopeRmsA = [rmsA],
     };
 
-    private static double[] Runs(AssessmentOptions o, double rmsA, double durationS) =>
+    internal static double[] Runs(AssessmentOptions o, double rmsA, double durationS) =>
         [.. TripReplayAssessor.LevelsFor(o).Select(l => rmsA >= l ? durationS : 0)];
 
-    private static TripReplayResult Replay(AssessmentOptions o, IReadOnlyList<HalfCycleEpisode> episodes, int? found = null,
+    internal static TripReplayResult Replay(AssessmentOptions o, IReadOnlyList<HalfCycleEpisode> episodes, int? found = null,
         IReadOnlyList<double>? unlisted = null, double? quietA = 0.003, IReadOnlyList<EventRecord>? events = null) =>
         TripReplayAssessor.Replay(Analysis(o, episodes, found, unlisted, quietA, events), o)
         ?? throw new InvalidOperationException("no replay");
@@ -59,7 +59,7 @@ public class TripReplayAssessorConstructedTests
         };
     }
 
-    private static DeviceFinding Of(TripReplayResult r, double ratedA, DeviceTiming timing) =>
+    internal static DeviceFinding Of(TripReplayResult r, double ratedA, DeviceTiming timing) =>
         r.Overall.Single(f => f.Device.RatedResidualCurrentA == ratedA && f.Device.Timing == timing);
 
     [Fact]
