@@ -37,12 +37,14 @@ public static class PhaseControlledSpectrum
         return Math.Sqrt((an * an) + (bn * bn)) / Math.Sqrt(2);
     }
 
-    /// <summary>Total RMS (DC included) for unit peak.</summary>
-    /// <param name="delayAngleDeg">Current-delay angle α, degrees.</param>
+    /// <summary>Total RMS (DC included) for unit peak; 0 at α = 180° (no conduction).</summary>
+    /// <param name="delayAngleDeg">Current-delay angle α, degrees (0 to 180).</param>
     public static double TotalRms(double delayAngleDeg)
     {
         var a = delayAngleDeg * Math.PI / 180.0;
-        return Math.Sqrt((((Math.PI - a) / 2) + (Math.Sin(2 * a) / 4)) / (2 * Math.PI));
+        // At α = 180° the two terms cancel to a negative rounding error (−6e-17: sin 2π ≈ −2.4e-16): no conduction,
+        // RMS 0, not the square root of a negative.
+        return Math.Sqrt(Math.Max(0, (((Math.PI - a) / 2) + (Math.Sin(2 * a) / 4)) / (2 * Math.PI)));
     }
 
     /// <summary>

@@ -44,4 +44,37 @@ public class PhaseControlledSpectrumTests
         Assert.True(s0 < 0.01, $"uncontrolled: smooth waveform, little above 1 kHz (got {s0})");
         Assert.True(s90 > 0.05, $"90°: a step of the full peak (got {s90})");
     }
+
+    [Fact]
+    public void TheBandIncludesItsUpperEdgeAndExcludesItsLowerOne()
+    {
+        // Uncontrolled half-wave (textbook, REFERENCE.md "Closed forms"): total RMS Ipk/2, fundamental Ipk/2 peak,
+        // second harmonic 2 Ipk/(3π) peak. (50, 100] Hz at 50 Hz holds the second harmonic alone:
+        // share (2/(3π))/√2 / (1/2) = 4/(3π√2).
+        Assert.Equal(4 / (3 * Math.PI * Math.Sqrt(2)), PhaseControlledSpectrum.ShareBetween(0, 50, 50, 100), 12);
+        // (0, 50] holds the fundamental alone: (1/2)/√2 / (1/2) = 1/√2.
+        Assert.Equal(1 / Math.Sqrt(2), PhaseControlledSpectrum.ShareBetween(0, 50, 0, 50), 12);
+        // (50, 99.9] holds nothing: the second harmonic lies above it.
+        Assert.Equal(0, PhaseControlledSpectrum.ShareBetween(0, 50, 50, 99.9));
+    }
+
+    [Fact]
+    public void AtFullDelayThereIsNoCurrentAndNoShare()
+    {
+        // α = 180°: the thyristor never conducts, i = 0 (closed form: RMS² = (1/2π)((π − α)/2 + sin 2α/4) = 0).
+        // The series' harmonics there are rounding dust (sin π ≈ 1.2e-16); the share of nothing is 0, not a ratio
+        // of two roundings.
+        Assert.Equal(0, PhaseControlledSpectrum.TotalRms(180));
+        Assert.Equal(0, PhaseControlledSpectrum.ShareBetween(180, 50, 1000, 20_000));
+        Assert.Equal(0, PhaseControlledSpectrum.ShareBetween(180, 50, 0, 50));
+    }
+
+    [Fact]
+    public void BadArgumentsAreRefused()
+    {
+        Assert.Equal("order", Assert.Throws<ArgumentOutOfRangeException>(() => PhaseControlledSpectrum.HarmonicRms(90, 0)).ParamName);
+        // Zero and negative mains frequencies (edges chosen so that the loop would not run either way).
+        Assert.Equal("mainsHz", Assert.Throws<ArgumentOutOfRangeException>(() => PhaseControlledSpectrum.ShareBetween(90, 0, 0, 0)).ParamName);
+        Assert.Equal("mainsHz", Assert.Throws<ArgumentOutOfRangeException>(() => PhaseControlledSpectrum.ShareBetween(90, -50, 1000, 20_000)).ParamName);
+    }
 }
