@@ -16,30 +16,12 @@ public class WaveformShapeEdgeTests
 
     private static ShapeFigures Measure(double[] samplesA, int cycles, double restBandA = WaveformShape.DefaultRestBandA)
     {
-        // Plain mean, minimum and maximum (the caller's contract), summed in order.
-        double sum = 0;
-        var min = double.PositiveInfinity;
-        var max = double.NegativeInfinity;
-        foreach (var x in samplesA)
-        {
-            sum += x;
-            min = Math.Min(min, x);
-            max = Math.Max(max, x);
-        }
-
+        // The caller's contract: the window's mean, minimum and maximum as the analysis gives them (SampleMath.Moments).
+        var (sum, _, min, max) = SampleMath.Moments(samplesA);
         return new WaveformShape(restBandA).Measure(samplesA, cycles, sum / samplesA.Length, min, max);
     }
 
-    private static double Mean(double[] samplesA)
-    {
-        double sum = 0;
-        foreach (var x in samplesA)
-        {
-            sum += x;
-        }
-
-        return sum / samplesA.Length;
-    }
+    private static double Mean(double[] samplesA) => SampleMath.Moments(samplesA).Sum / samplesA.Length;
 
     private static double[] Pulse(int samples)
     {
