@@ -62,7 +62,7 @@ set -e
 # The framework-dependent package, installed by name (other platforms, a CPU without AVX2).
 cd "$tmp"
 dotnet tool install wavecheck.any --tool-path "$tmp/tools-any" --configfile "$tmp/nuget.config" > /dev/null
-[ -e "$(dirname "$(readlink -f "$tmp/tools-any/wavecheck")")" ] || fail "no 'wavecheck' command from wavecheck.any"
+[ -x "$tmp/tools-any/wavecheck" ] || fail "no 'wavecheck' command in the tool path of wavecheck.any"
 any_version=$("$tmp/tools-any/wavecheck" --version)
 [ "$any_version" = "$version" ] || fail "wavecheck.any --version says $any_version, the linux-x64 build $version"
 echo "tool-install: wavecheck $version installed as a .NET tool, demo and analyse ran; wavecheck.any ran too"
