@@ -238,4 +238,23 @@ public class WaveformShapeMutantTests
         Assert.NotNull(figures.CurrentDelayAngleDeg);
         Assert.Equal(126.51, figures.CurrentDelayAngleDeg.Value, 0.01);
     }
+
+    [Fact]
+    public void A_window_that_ends_exactly_at_the_start_level_is_not_inside_a_pulse()
+    {
+        // As above, with the window's last sample exactly 0.1 A (10 % of the height, StartShare: a pulse is entered
+        // only above it). The window does not end inside a pulse, so its first sample still starts one. numpy 1.24
+        // replay of the closed form on the window's mean (r = 0.080326): α = 126.44°.
+        var window = new double[800];
+        for (var k = 0; k < 100; k++)
+        {
+            window[k] = Math.Cos(2 * Math.PI * k / CycleSamples);
+        }
+
+        window[^1] = 0.1;
+        var figures = Measure(window, 2);
+        Assert.True(figures.PulsatingDc);
+        Assert.NotNull(figures.CurrentDelayAngleDeg);
+        Assert.Equal(126.44, figures.CurrentDelayAngleDeg.Value, 0.01);
+    }
 }
