@@ -65,6 +65,31 @@ public class PhasorKernelMutantTests
     }
 
     [Fact]
+    public void A_reference_a_whole_number_of_sample_rates_above_aliases_onto_the_one_below()
+    {
+        // Closed form: e^{−i2π(m + c)n} = e^{−i2πcn} for integer m, so a kernel for 800·2^40 + 50 Hz at 800 S/s is the
+        // 50 Hz kernel (c = 2^40 + 1/16 cycles a sample, exact in binary; c·n stays exact for n ≤ 160). Only the
+        // reduction of c·n to one turn before scaling by 2π keeps each kernel angle exact: c·n is near 2^47 turns, where
+        // one unit in the last place of 2π·c·n is a sizeable fraction of a radian. The cosine A·cos(2πn/16 + φ) over 10
+        // whole cycles then has angle φ and RMS A/√2 (Hann leakage of the −50 Hz image is exactly zero over whole
+        // cycles); tolerance 1e-9: rounding only.
+        const double amplitudeA = 0.02, phaseRad = -1.1, fs = 800;
+        const int length = 161;
+        var x = new double[length];
+        for (var n = 0; n < length; n++)
+        {
+            x[n] = amplitudeA * Math.Cos((2 * Math.PI * (n % 16) / 16) + phaseRad);
+        }
+
+        var aliased = new PhasorKernel(length, fs, (fs * Math.Pow(2, 40)) + 50).Phasor(x, 0, 0);
+        var direct = new PhasorKernel(length, fs, 50).Phasor(x, 0, 0);
+        Assert.Equal(phaseRad, Math.Atan2(aliased.Im, aliased.Re), 1e-9);
+        Assert.Equal(amplitudeA / Math.Sqrt(2), aliased.RmsA, 1e-9 * amplitudeA);
+        Assert.Equal(direct.Re, aliased.Re, 1e-12 * amplitudeA);
+        Assert.Equal(direct.Im, aliased.Im, 1e-12 * amplitudeA);
+    }
+
+    [Fact]
     public void A_kernel_shorter_than_two_samples_is_refused()
     {
         // The Hann weight divides by L − 1 (common practice, no source): L = 1 would give NaN weights.
