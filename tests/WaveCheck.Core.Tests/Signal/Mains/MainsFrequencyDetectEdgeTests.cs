@@ -216,6 +216,21 @@ public class MainsFrequencyDetectEdgeTests
         Assert.Equal(0.01 / Math.Sqrt(2), detection.AcRmsA, 1e-12);
     }
 
+    [Theory]
+    [InlineData(0.5, 1e-6)]
+    [InlineData(1.0, 1e-6)]
+    [InlineData(0.3, 1e-8)]
+    public void GivesTheAcRmsOfASmallRippleOnALargeDc(double dcA, double peakA)
+    {
+        // Closed form: 10 cycles of a sine of peak a have AC RMS a/√2 on any DC. Squaring the deviations from the
+        // mean keeps it to 1e-9 relative (Python floats, the same sums in the same order: 7e-10 at 10 nA on 0.3 A);
+        // the algebraically equal Σ(v + mean)(v − mean) turns the mean's last-digit rounding into 1e-4 relative or
+        // a negative sum (Python floats, same data).
+        var x = Tones(1000, 0.2, dcA, (50, peakA, 0.3));
+        var detection = MainsFrequency.Detect(x, 1000, null);
+        Assert.Equal(peakA / Math.Sqrt(2), detection.AcRmsA, peakA / Math.Sqrt(2) * 1e-6);
+    }
+
     [Fact]
     public void EmptyCaptureHasNoMainsAndNoAc()
     {
