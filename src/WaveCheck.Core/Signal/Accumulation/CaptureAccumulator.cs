@@ -237,7 +237,8 @@ internal sealed class CaptureAccumulator
         return bands;
     }
 
-    /// <summary>The spectrum averaged over windows (RMS per bin), as far as every window reached.</summary>
+    /// <summary>The spectrum averaged over windows (RMS per bin): each bin over the windows that reached it (windows of
+    /// different lengths reach different bins), up to the first bin no window reached.</summary>
     public SpectrumResult Spectrum(double meanHz)
     {
         var resolution = meanHz / _cycles;
