@@ -63,9 +63,9 @@ public class WindowMeasurementMutantTests
     [Fact]
     public void AnAllZeroWindowHasNeitherCrestFactorNorThd()
     {
-        // Closed form: a window of zeros has RMS 0 and no fundamental, so its crest factor (peak/RMS = 0/0) is
-        // reported as 0 and its THD (harmonics/fundamental) as absent, never NaN (the edge-case policy of
-        // CONVENTIONS.md: no 0/0 in a result).
+        // A flat channel (CONVENTIONS.md asks for its policy): a window of zeros has RMS 0 and no fundamental, so
+        // crest factor (peak/RMS) and THD (harmonics/fundamental) are both 0/0, undefined; the crest factor is
+        // reported as 0 and THD as absent (HasFundamental needs more than 1 nA), never NaN.
         var w = Measurement().Measure(WindowSlots.Load(new double[2_000], 0, 50));
         Assert.Equal(0, w.RmsA);
         Assert.Equal(0, w.CrestFactor);
