@@ -403,4 +403,68 @@ public class LeakageAccumulatorTests
         Assert.Equal(256, trend.Count);
         Assert.Equal(new LeakageTrendPoint(0.2 * 510, 510.5 / 1024, -510.5 / 2048), trend[255]);
     }
+
+    [Fact]
+    public void A_part_whose_mean_is_exactly_zero_is_not_called_negative()
+    {
+        // docs/methods.md §I.7: a *negative* in-phase part and a *lagging* quadrature part are pointed out; a mean of
+        // exactly 0 (windows of +1 and −1 mA, +2 and −2 mA: closed form 0) is neither.
+        var split = Fold(Single, SinglePhase(0, 1e-3, 2e-3), SinglePhase(0.2, -1e-3, -2e-3));
+
+        Assert.Equal(0, split.ResistiveA.Mean);
+        Assert.Equal(0, split.CapacitiveA.Mean);
+        Assert.Empty(split.Notes);
+    }
+
+    [Fact]
+    public void The_fit_lists_the_thirteenth_order_and_has_no_resistance_at_zero_conductance()
+    {
+        // RcFitResult: the orders used in any window, up to LeakageWindowMeasurement.MaxFitOrder = 13 (docs/methods.md
+        // §I.7); R = 1/mean G, none when the mean conductance is exactly 0 (closed form: 1/0 is not a resistance).
+        var windows = new[]
+        {
+            SinglePhase(0.0) with { Fit = new RcFit(0, 10e-9, 0.1, 2), FitOrderMask = (1 << 1) | (1 << 13) },
+            SinglePhase(0.2) with { Fit = new RcFit(0, 30e-9, 0.3, 2), FitOrderMask = (1 << 1) | (1 << 13) },
+        };
+        var fit = Fold(Single, windows).Fit!;
+
+        Assert.Equal([1, 13], fit.Orders);
+        Assert.Null(fit.ResistanceOhm);
+        Assert.Equal(20e-9, fit.CapacitanceF, 1e-22);
+    }
+
+    [Fact]
+    public void The_dominant_direction_is_the_largest_mean_wherever_it_lies()
+    {
+        // PhaseLocationResult: the dominant direction has the largest mean over windows. Two windows (mA): L2 R 3 + L1 R
+        // 1 each. Closed forms: means L1 R 1, L2 R 3; dominant L2 resistive, the larger part in both windows (share 1).
+        var split = Fold(Three,
+            ThreePhase(0.0, new(1, false, 3e-3), new(0, false, 1e-3)),
+            ThreePhase(0.2, new(1, false, 3e-3), new(0, false, 1e-3)));
+        var location = split.Location!;
+
+        Assert.Equal(1e-3, location.Directions[0].MeanA, 1e-18);
+        Assert.Equal(3e-3, location.Directions[2].MeanA, 1e-18);
+        Assert.Equal(("L2", "resistive", 1.0), (location.DominantPhase, location.DominantKind, location.DominantShare));
+    }
+
+    [Fact]
+    public void Windows_pending_after_two_halvings_make_one_last_point_of_their_mean()
+    {
+        // LeakageSplitResult.Trend (MaxTrendPoints = 512): 1024 windows halve the trend twice, so a point then holds
+        // four windows; the two windows after them (1024 and 1025) are pending and make one last point of their mean,
+        // starting at window 1024's start. Window k: I_R = k/1024 A, I_C = −k/2048 A; closed form: I_R = 1024.5/1024,
+        // I_C = −1024.5/2048 (exact in binary).
+        var accumulator = new LeakageAccumulator(Single);
+        for (var k = 0; k < 1026; k++)
+        {
+            accumulator.Add(SinglePhase(0.2 * k, k / 1024.0, -k / 2048.0));
+        }
+
+        var trend = accumulator.Result().Trend;
+
+        Assert.Equal(257, trend.Count);
+        Assert.Equal(new LeakageTrendPoint(0.2 * 1024, 1024.5 / 1024, -1024.5 / 2048), trend[256]);
+        Assert.Equal(new LeakageTrendPoint(0, 1.5 / 1024, -1.5 / 2048), trend[0]);
+    }
 }

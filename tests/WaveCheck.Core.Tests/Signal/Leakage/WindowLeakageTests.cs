@@ -263,6 +263,66 @@ public class WindowLeakageTests
         Assert.Equal(480.0 / 3, w.VoltageRmsV, 1e-10);
     }
 
+    [Theory]
+    [InlineData(10.0, false)]
+    [InlineData(19.9, false)]
+    public void A_single_phase_window_below_20_V_is_not_split_but_keeps_its_voltage(double volts, bool valid)
+    {
+        // docs/methods.md §I.7 "windows left out": below 20 V the window is counted, not split; its voltage is still
+        // reported (closed form: the RMS of the cosine fed, to Goertzel's rounding).
+        const double rate = 3200;
+        var w = new LeakageWindowMeasurement(rate, 2, 1).Measure(Slot(Cosines(128, rate, (1, 1e-3, 45)), 0, Cosines(128, rate, (1, volts, 0))));
+
+        Assert.Equal(valid, w.Valid);
+        Assert.Equal(volts, w.VoltageRmsV, 1e-12);
+        Assert.Equal(0, w.ResistiveA);
+        Assert.Equal(0, w.FitOrderMask);
+    }
+
+    [Fact]
+    public void A_single_phase_window_at_exactly_20_V_is_split()
+    {
+        // docs/methods.md §I.7: split from 20 V up. The voltage (20 V) is turned in steps of 0.01° until its phasor
+        // (LeakageSplit.BinPhasor) is exactly 20 V; the current through 100 kΩ is 0.2 mA in phase (closed form V/R).
+        const double rate = 3200;
+        var offset = Landing(a => LeakageSplit.BinPhasor(Cosines(128, rate, (1, 20, a)), 2).Magnitude == 20);
+        var w = new LeakageWindowMeasurement(rate, 2, 1).Measure(
+            Slot(Cosines(128, rate, (1, 20 / 100e3, offset)), 0, Cosines(128, rate, (1, 20, offset))));
+
+        Assert.True(w.Valid);
+        Assert.Equal(20, w.VoltageRmsV);
+        Assert.Equal(2e-4, w.ResistiveA, 1e-15);
+    }
+
+    [Fact]
+    public void A_current_harmonic_above_1_uA_but_below_its_share_of_the_fundamental_is_not_fitted()
+    {
+        // docs/methods.md §I.7: the current floor is the larger of 1 µA and 0.1 % |I_1|. |I_1| = 5 mA makes it 5 µA, so
+        // a 3 µA 3rd (above 1 µA) is not fitted although the voltage has a 5 % 3rd.
+        const double rate = 3200;
+        var current = Cosines(128, rate, (1, 5e-3, 80), (3, 3e-6, 10));
+        var voltage = Cosines(128, rate, (1, 230, 0), (3, 11.5, 0));
+        var w = new LeakageWindowMeasurement(rate, 2, 1).Measure(Slot(current, 0, voltage));
+
+        Assert.Equal(1 << 1, w.FitOrderMask);
+    }
+
+    [Fact]
+    public void The_thirteenth_order_is_the_last_fitted()
+    {
+        // docs/methods.md §I.7: orders n ≤ 13. 2 cycles in 128 samples reach order 31 below Nyquist; a voltage with
+        // 3 % of the 13th and of the 15th, through R = 100 kΩ ∥ C = 10 nF: order 13 is fitted, 15 is not, and the fit
+        // returns R and C (closed form: the model holds exactly at every order).
+        const double rate = 3200, r = 100e3, c = 10e-9;
+        (int, double, double)[] v = [(1, 230, 0), (13, 6.9, 20), (15, 6.9, -40)];
+        var w = new LeakageWindowMeasurement(rate, 2, 1).Measure(Slot(Cosines(128, rate, Rc(r, c, v)), 0, Cosines(128, rate, v)));
+
+        Assert.Equal((1 << 1) | (1 << 13), w.FitOrderMask);
+        Assert.Equal(2, w.Fit.Orders);
+        Assert.Equal(1 / r, w.Fit.ConductanceS, 1e-16);
+        Assert.Equal(c, w.Fit.CapacitanceF, 1e-19);
+    }
+
     private static void AssertPhasor(Complex expected, Complex actual, double tolerance)
     {
         Assert.Equal(expected.Real, actual.Real, tolerance);
