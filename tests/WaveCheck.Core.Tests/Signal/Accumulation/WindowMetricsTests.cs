@@ -53,27 +53,9 @@ public class WindowMetricsTests
         return w;
     }
 
-    private static WindowResult Blank(double startS) => new()
-    {
-        StartS = startS,
-        DurationS = 0.2,
-        FrequencyHz = 0,
-        RmsA = 0,
-        DcA = 0,
-        AcRmsA = 0,
-        PeakPositiveA = 0,
-        PeakNegativeA = 0,
-        CrestFactor = 0,
-        SmoothDcA = 0,
-        PulsatingDc = false,
-        CurrentDelayAngleDeg = 0,
-        MainsRmsA = 0,
-        BelowMainsRmsA = 0,
-        HarmonicsRmsA = 0,
-        Above1kHzRmsA = 0,
-        Above9kHzRmsA = 0,
-        ThdPercent = 0,
-    };
+    // Every figure zero (frequency, delay angle and THD included, so that none is left out as missing).
+    private static WindowResult Blank(double startS) =>
+        WindowSlots.Result(startS, 0) with { FrequencyHz = 0, CurrentDelayAngleDeg = 0, ThdPercent = 0 };
 
     [Fact]
     public void NoWindowsGiveEveryFigureAllNaN()
