@@ -216,4 +216,122 @@ public class CaptureAnalysisPathTests
         Assert.Equal(1.5, episode.StartS, 1e-9);
         Assert.Equal(0.2, episode.DurationS, 1e-9);
     }
+    [Fact]
+    public void Missing_capture_description_or_options_are_refused_as_arguments()
+    {
+        var info = new MemoryCaptureSource(new double[10], Fs).Info;
+        Assert.Equal("info", Assert.Throws<ArgumentNullException>(() => new CaptureAnalysis(null!, new AnalysisOptions())).ParamName);
+        Assert.Equal("options", Assert.Throws<ArgumentNullException>(() => new CaptureAnalysis(info, null!)).ParamName);
+    }
+
+    [Fact]
+    public void The_tail_after_the_last_window_is_in_the_summary_and_named_in_a_warning()
+    {
+        // 6 200 samples at 2 kS/s and 50 Hz: 15 windows of 400 samples, then a tail of 200 samples (0.1 s from 3.0 s)
+        // held at 20 mA. The windows hold 150 whole cycles of a 10 mA sine, whose samples sum to zero (closed form:
+        // Σ sin(2πk/40) over whole periods is 0), so the capture's mean is 20 mA · 200/6 200 and its mean square
+        // (0.01²/2 · 6 000 + 0.02² · 200)/6 200. Tolerance 1e-12 A (rounding of the sums).
+        var samples = Synth.Make(Fs, 3.1, t => t < 3.0 ? 0.01 * Math.Sin(2 * Math.PI * 50 * t) : 0.02);
+        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info, new AnalysisOptions { MainsHz = 50 });
+        analysis.Push(samples);
+        var result = analysis.Complete();
+        Assert.Equal(15, analysis.WindowCount);
+        Assert.Equal(15, result.Windows.Count);
+        Assert.Equal(0.02 * 200 / 6200, result.Summary.DcA, 1e-12);
+        Assert.Equal(Math.Sqrt(((0.01 * 0.01 / 2 * 6000) + (0.02 * 0.02 * 200)) / 6200), result.Summary.RmsA, 1e-12);
+        var partial = Assert.Single(result.Warnings, w => w.Code == "partial-window");
+        Assert.Equal("the last 0.1 s (200 samples) after the last complete window are not analysed as a window; they are in the summary and the envelope", partial.Message);
+        Assert.Equal(3.0, partial.TimeS!.Value, 1e-12);
+    }
+
+    [Fact]
+    public void A_capture_of_whole_windows_has_no_tail_warning()
+    {
+        var samples = Synth.Make(Fs, 3.0, t => 0.01 * Math.Sin(2 * Math.PI * 50 * t));
+        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info, new AnalysisOptions { MainsHz = 50 });
+        Assert.Equal(0, analysis.WindowCount);
+        analysis.Push(samples);
+        var result = analysis.Complete();
+        Assert.Equal(15, analysis.WindowCount);
+        Assert.DoesNotContain(result.Warnings, w => w.Code == "partial-window");
+    }
+
+    [Fact]
+    public void Every_window_is_reported_to_the_caller_once_in_time_order()
+    {
+        var samples = Synth.Make(Fs, 3.1, t => 0.01 * Math.Sin(2 * Math.PI * 50 * t));
+        var starts = new List<double>();
+        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info,
+            new AnalysisOptions { MainsHz = 50, WindowCompleted = w => starts.Add(w.StartS) });
+        analysis.Push(samples);
+        var result = analysis.Complete();
+        Assert.Equal(result.Windows.Count, starts.Count);
+        Assert.Equal(15, starts.Count);
+        for (var k = 0; k < starts.Count; k++)
+        {
+            Assert.Equal(k * 0.2, starts[k], 1e-12);
+        }
+    }
+
+    [Fact]
+    public void Clipped_stretches_beyond_the_listed_ones_are_counted()
+    {
+        // 44 windows, every other one holding one sample at the full scale of 50 mA: 22 clipped stretches, of which
+        // EventDetector.MaxClippingWarnings (20) are listed and the other 2 counted.
+        var samples = Synth.Make(Fs, 8.8, t => 0.01 * Math.Sin(2 * Math.PI * 50 * t));
+        for (var w = 0; w < 44; w += 2)
+        {
+            samples[(w * 400) + 100] = 0.05;
+        }
+
+        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs, fullScaleA: 0.05).Info,
+            new AnalysisOptions { MainsHz = 50 });
+        analysis.Push(samples);
+        var clipping = analysis.Complete().Warnings.Where(w => w.Code == "clipping").ToList();
+        Assert.Equal(EventDetector.MaxClippingWarnings + 1, clipping.Count);
+        Assert.Equal("2 more clipped stretches not listed", clipping[^1].Message);
+    }
+
+    [Theory]
+    [InlineData(1000.0, false)] // the band's upper end at exactly fs/2: all of it is seen
+    [InlineData(1000.5, true)]
+    public void The_band_limit_warning_starts_above_half_the_sample_rate(double upperHz, bool warned)
+    {
+        // Nyquist–Shannon: a capture at fs sees up to fs/2.
+        var samples = Synth.Make(Fs, 2.5, t => 0.01 * Math.Sin(2 * Math.PI * 50 * t));
+        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info,
+            new AnalysisOptions { MainsHz = 50, HighBandUpperHz = upperHz });
+        analysis.Push(samples);
+        var warnings = analysis.Complete().Warnings.Where(w => w.Code == "band-limit").ToList();
+        Assert.Equal(warned ? 1 : 0, warnings.Count);
+        if (warned)
+        {
+            Assert.StartsWith("nothing above 1000 Hz is seen (sample rate 2000 S/s)", warnings[0].Message, StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
+    public void An_episode_still_open_at_the_end_is_listed()
+    {
+        // A 30 mA RMS burst from 2.5 s to the end (3 s): the episode closes with the capture, 0.5 s long.
+        var samples = Synth.Make(Fs, 3, t => (t >= 2.5 ? 0.030 : 0.002) * Math.Sqrt(2) * Math.Sin(2 * Math.PI * 50 * t));
+        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info,
+            new AnalysisOptions { MainsHz = 50, HalfCycleLevelsA = [0.015] });
+        analysis.Push(samples);
+        var episode = Assert.Single(analysis.Complete().HalfCycleEpisodes!.Episodes);
+        Assert.Equal(2.5, episode.StartS, 1e-9);
+        Assert.Equal(0.5, episode.DurationS, 1e-9);
+    }
+
+    [Fact]
+    public void The_result_names_the_tool_version_that_made_it()
+    {
+        // The version of the assembly that measured (AnalysisResult.ToolVersion), major.minor.patch, never the
+        // placeholder for an assembly without one.
+        var samples = Synth.Make(Fs, 2.5, t => 0.01 * Math.Sin(2 * Math.PI * 50 * t));
+        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info, new AnalysisOptions());
+        analysis.Push(samples);
+        var version = typeof(CaptureAnalysis).Assembly.GetName().Version!;
+        Assert.Equal($"{version.Major}.{version.Minor}.{version.Build}", analysis.Complete().ToolVersion);
+    }
 }
