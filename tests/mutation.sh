@@ -6,6 +6,8 @@
 # MUTATION_TOGETHER=1 runs all the files given in one Stryker run (one compile for all of them; tests: the union of
 # their own);
 # MUTATION_CONCURRENCY sets Stryker's test runners (1 by default: leaves a core free on this 2-core machine).
+# MUTATION_EXTRA_TIMEOUT_MS adds to the time a mutant's tests may take before it counts as a timeout (Stryker's
+# additional-timeout, 5000 by default): raise it when runs share the cores, or a slowed run reads as a timeout.
 # With no file it runs the list below (the measurement core and the verdict; docs/testing.md has their scores).
 # Reports: artifacts/mutation/<file>/reports/mutation-report.{html,json}; the score of each file is printed at the end.
 # Tests run against each file: a Signal file's own test class (tests mirror the source tree: Signal/ToneFinder.cs is
@@ -105,7 +107,15 @@ for key in "${order[@]}"; do
   for f in "${members[@]}"; do mutate_args+=(--mutate "**/${f#src/WaveCheck.Core/}"); done
   echo "tests: ${filter}" >&2
   # The cleartext, html and json reporters only: the progress reporter needs a terminal width and fails without one.
-  (cd tests/WaveCheck.Core.Tests && dotnet stryker --config-file stryker-config.json --skip-version-check \
+  config=stryker-config.json
+  if [ -n "${MUTATION_EXTRA_TIMEOUT_MS:-}" ]; then
+    # Stryker 5.1 takes the extra time from its config file only: a copy with it, beside the build output.
+    config=obj/stryker-config.timeout.json
+    mkdir -p tests/WaveCheck.Core.Tests/obj
+    python3 -c 'import json,sys; c=json.load(open(sys.argv[1])); c["stryker-config"]["additional-timeout"]=int(sys.argv[2]); json.dump(c,open(sys.argv[3],"w"),indent=2)' \
+      tests/WaveCheck.Core.Tests/stryker-config.json "$MUTATION_EXTRA_TIMEOUT_MS" "tests/WaveCheck.Core.Tests/$config"
+  fi
+  (cd tests/WaveCheck.Core.Tests && dotnet stryker --config-file "$config" --skip-version-check \
       "${mutate_args[@]}" "${filter_args[@]}" --concurrency "${MUTATION_CONCURRENCY:-1}" --output "$out")
   report="$out/reports/mutation-report.json"
   [ -f "$report" ] || { echo "mutation.sh: ${members[*]}: Stryker wrote no report ($report)" >&2; exit 1; }
