@@ -98,6 +98,119 @@ public class WindowWorkersJobTests
         {
             Assert.Equal(k * 0.001, sink.Names[k], 1e-15);
         }
+
+        // No worker was lost on the way (a worker that stops on an error leaves its place taken for good).
+        AssertWorkersTakeTheNextBatch(workers, 6);
+    }
+
+    // Waits for the workers of the batches before to stop, then starts one more batch and checks that it reaches its
+    // sink without the caller waiting (at most 10 s, far beyond the milliseconds it takes).
+    private static void AssertWorkersTakeTheNextBatch(WindowWorkers workers, int firstName)
+    {
+        Thread.Sleep(100);
+        var sink = new OrderSink(holdS: 0);
+        var batch = new[] { Slot(400, firstName), Slot(401, firstName + 1), Slot(400, firstName + 2) };
+        var ticket = workers.Start(batch, [sink]);
+        Assert.True(sink.ReachedCount(3, TimeSpan.FromSeconds(10)), "a batch did not reach its sink without Wait");
+        workers.Wait(ticket);
+    }
+
+    [Theory]
+    [InlineData(2)]
+    [InlineData(3)]
+    public void Worker_threads_take_a_batch_while_the_caller_reads_on(int participants)
+    {
+        // Contract (WindowWorkers summary): batches are measured and fed to the sinks on worker threads while the
+        // caller reads on, so a started batch reaches its sink without the caller waiting for it; and a worker that
+        // has run out of jobs and stopped is started again by the next batch (two rounds, see
+        // AssertWorkersTakeTheNextBatch).
+        var workers = new WindowWorkers(participants, Measurement);
+        AssertWorkersTakeTheNextBatch(workers, 0);
+        AssertWorkersTakeTheNextBatch(workers, 3);
+    }
+
+    [Theory]
+    [InlineData(2)]
+    [InlineData(3)]
+    public void Queued_batches_give_every_window_the_figures_of_one_participant(int participants)
+    {
+        // Contract (WindowWorkers summary): the work on a window depends only on its batch, never on which thread does
+        // it, so the figures are the same for every worker count, bit for bit. Reference: the same batches measured
+        // by the caller alone. Six batches of eight windows (odd and even lengths, so pairs and single transforms)
+        // are queued at once, so several participants work side by side, each on its own scratch.
+        WindowSlot[][] Batches() => [.. Enumerable.Range(0, 6).Select(b =>
+            Enumerable.Range(0, 8).Select(i => NoisySlot(4000 + ((b + i) % 3), (b * 8) + i)).ToArray())];
+        var reference = Batches();
+        var serial = new WindowWorkers(1, Measurement20k);
+        foreach (var batch in reference)
+        {
+            serial.Wait(serial.Start(batch, []));
+        }
+
+        var parallel = Batches();
+        var workers = new WindowWorkers(participants, Measurement20k);
+        var tickets = parallel.Select(batch => workers.Start(batch, [])).ToList();
+        tickets.ForEach(workers.Wait);
+        for (var b = 0; b < reference.Length; b++)
+        {
+            for (var i = 0; i < reference[b].Length; i++)
+            {
+                Assert.Equal(reference[b][i].Figures.Result, parallel[b][i].Figures.Result);
+            }
+        }
+    }
+
+    private static WindowMeasurement Measurement20k() => new(20_000, 10, 50, [], WaveformShape.DefaultRestBandA, null);
+
+    // A 10-cycle window at 20 kS/s: a half-wave rectified 50 Hz sine of 10 mA peak, a 3 kHz tone and seeded noise,
+    // so every part of the measurement has something to work on.
+    private static WindowSlot NoisySlot(int length, int seed)
+    {
+        var random = new Random(seed);
+        var samples = new double[length];
+        for (var i = 0; i < length; i++)
+        {
+            var t = i / 20_000.0;
+            samples[i] = Math.Max(0, 0.01 * Math.Sin(2 * Math.PI * 50 * t)) + (0.001 * Math.Sin(2 * Math.PI * 3000 * t)) +
+                (0.0002 * Synth.Gaussian(random));
+        }
+
+        var slot = WindowSlots.Load(samples, (long)seed * length, 50);
+        Array.Clear(slot.Power);
+        return slot;
+    }
+
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    [InlineData(3)]
+    public void After_a_failure_no_further_job_is_started(int participants)
+    {
+        // Contract (Wait: "a job's exception (any batch's) is rethrown here"): the sink's exception comes out of Wait
+        // as itself, and the batch queued behind never reaches the sink (workers stop taking jobs once one failed).
+        // The pause after the failure gives a worker that would go on the time to do so.
+        var workers = new WindowWorkers(participants, Measurement);
+        var sink = new FailingSink();
+        var t1 = workers.Start([Slot(400, 0)], [sink]);
+        var t2 = workers.Start([Slot(400, 1), Slot(400, 2)], [sink]);
+        var ex = Assert.Throws<InvalidOperationException>(() => workers.Wait(t1));
+        Assert.Equal("sink failed", ex.Message);
+        Thread.Sleep(200);
+        Assert.Equal(1, sink.Pushes);
+        Assert.Throws<InvalidOperationException>(() => workers.Wait(t2));
+    }
+
+    private sealed class FailingSink : ISampleSink
+    {
+        private int _pushes;
+
+        public int Pushes => Volatile.Read(ref _pushes);
+
+        public void Push(ReadOnlySpan<double> samplesA)
+        {
+            Interlocked.Increment(ref _pushes);
+            throw new InvalidOperationException("sink failed");
+        }
     }
 
     // Records each pushed window's first sample (its name, see Slot) and whether two pushes ever overlapped; the very
@@ -113,6 +226,25 @@ public class WindowWorkersJobTests
         public long Samples { get; private set; }
 
         public bool Overlapped { get; private set; }
+
+        // Waits until count windows have arrived or the time is up; true when they arrived.
+        public bool ReachedCount(int count, TimeSpan limit)
+        {
+            var until = DateTime.UtcNow + limit;
+            lock (Names)
+            {
+                while (Names.Count < count)
+                {
+                    var left = until - DateTime.UtcNow;
+                    if (left <= TimeSpan.Zero || !Monitor.Wait(Names, left))
+                    {
+                        return Names.Count >= count;
+                    }
+                }
+
+                return true;
+            }
+        }
 
         public void Push(ReadOnlySpan<double> samplesA)
         {
@@ -134,6 +266,7 @@ public class WindowWorkersJobTests
             {
                 Names.Add(samplesA[0]);
                 Samples += samplesA.Length;
+                Monitor.PulseAll(Names);
             }
 
             Interlocked.Decrement(ref _inside);
