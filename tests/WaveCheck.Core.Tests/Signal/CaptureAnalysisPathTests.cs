@@ -46,6 +46,10 @@ public class CaptureAnalysisPathTests
         return analysis.Complete();
     }
 
+    // The whole capture through Analyzer, the path a file takes (blocks of Analyzer.BlockSamples).
+    private static AnalysisResult Analyze(double[] samples, AnalysisOptions options, double? fullScaleA = null) =>
+        Analyzer.Analyze(new MemoryCaptureSource(samples, Fs, fullScaleA: fullScaleA), options);
+
     private static void Within1Percent(double expected, double actual, string what) =>
         Assert.True(Math.Abs(actual - expected) <= 0.01 * Math.Abs(expected), $"{what}: expected {expected:G6}, got {actual:G6}");
 
@@ -135,9 +139,8 @@ public class CaptureAnalysisPathTests
     {
         // Closed form: the envelope's extremes are the capture's extremes, sample for sample (min and max are exact).
         var samples = Synth.Make(Fs, 2.5, t => (0.01 * Math.Sin(2 * Math.PI * 50 * t)) + (t is > 1.3 and < 1.3005 ? 0.05 : 0));
-        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info, new AnalysisOptions());
-        analysis.Push(samples);
-        var envelope = analysis.Complete().Envelope;
+        var result = Analyze(samples, new AnalysisOptions());
+        var envelope = result.Envelope;
         Assert.Equal(samples.Max(), envelope.MaxA.Max());
         Assert.Equal(samples.Min(), envelope.MinA.Min());
         Assert.Equal(samples.Length / Fs, envelope.MaxA.Count * envelope.BucketDurationS, 1e-9);
@@ -202,20 +205,21 @@ public class CaptureAnalysisPathTests
         Assert.Same(source.Info, plain.Complete().Capture);
     }
 
-    [Fact]
-    public void Half_cycle_episodes_are_placed_at_their_time_in_seconds()
+    [Theory]
+    [InlineData(1.5, 1.7, 0.2)] // 1.5 s = 75 cycles, a half-cycle boundary; 20 half-cycles
+    [InlineData(2.5, 3.0, 0.5)] // still open at the end of the capture (3 s): closed with it
+    public void Half_cycle_episodes_are_placed_at_their_time_in_seconds(double fromS, double toS, double durationS)
     {
-        // A 30 mA RMS burst from 1.5 s to 1.7 s on a 2 mA sine: the episode at the 15 mA level starts at 1.5 s (the
-        // burst begins on a half-cycle boundary, 1.5 s = 75 cycles) and lasts 0.2 s, 20 half-cycles.
+        // A 30 mA RMS burst on a 2 mA sine: the episode at the 15 mA level starts where the burst does and lasts as
+        // long (HalfCycleEpisodeDetector's half-cycles are whole, the burst begins on a zero crossing).
         var samples = Synth.Make(Fs, 3, t =>
-            (t is >= 1.5 and < 1.7 ? 0.030 : 0.002) * Math.Sqrt(2) * Math.Sin(2 * Math.PI * 50 * t));
-        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info,
-            new AnalysisOptions { MainsHz = 50, HalfCycleLevelsA = [0.015] });
-        analysis.Push(samples);
-        var episode = Assert.Single(analysis.Complete().HalfCycleEpisodes!.Episodes);
-        Assert.Equal(1.5, episode.StartS, 1e-9);
-        Assert.Equal(0.2, episode.DurationS, 1e-9);
+            (t >= fromS && t < toS ? 0.030 : 0.002) * Math.Sqrt(2) * Math.Sin(2 * Math.PI * 50 * t));
+        var result = Analyze(samples, new AnalysisOptions { MainsHz = 50, HalfCycleLevelsA = [0.015] });
+        var episode = Assert.Single(result.HalfCycleEpisodes!.Episodes);
+        Assert.Equal(fromS, episode.StartS, 1e-9);
+        Assert.Equal(durationS, episode.DurationS, 1e-9);
     }
+
     [Fact]
     public void Missing_capture_description_or_options_are_refused_as_arguments()
     {
@@ -261,10 +265,7 @@ public class CaptureAnalysisPathTests
     {
         var samples = Synth.Make(Fs, 3.1, t => 0.01 * Math.Sin(2 * Math.PI * 50 * t));
         var starts = new List<double>();
-        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info,
-            new AnalysisOptions { MainsHz = 50, WindowCompleted = w => starts.Add(w.StartS) });
-        analysis.Push(samples);
-        var result = analysis.Complete();
+        var result = Analyze(samples, new AnalysisOptions { MainsHz = 50, WindowCompleted = w => starts.Add(w.StartS) });
         Assert.Equal(result.Windows.Count, starts.Count);
         Assert.Equal(15, starts.Count);
         for (var k = 0; k < starts.Count; k++)
@@ -284,10 +285,8 @@ public class CaptureAnalysisPathTests
             samples[(w * 400) + 100] = 0.05;
         }
 
-        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs, fullScaleA: 0.05).Info,
-            new AnalysisOptions { MainsHz = 50 });
-        analysis.Push(samples);
-        var clipping = analysis.Complete().Warnings.Where(w => w.Code == "clipping").ToList();
+        var result = Analyze(samples, new AnalysisOptions { MainsHz = 50 }, fullScaleA: 0.05);
+        var clipping = result.Warnings.Where(w => w.Code == "clipping").ToList();
         Assert.Equal(EventDetector.MaxClippingWarnings + 1, clipping.Count);
         Assert.Equal("2 more clipped stretches not listed", clipping[^1].Message);
     }
@@ -299,10 +298,8 @@ public class CaptureAnalysisPathTests
     {
         // Nyquist–Shannon: a capture at fs sees up to fs/2.
         var samples = Synth.Make(Fs, 2.5, t => 0.01 * Math.Sin(2 * Math.PI * 50 * t));
-        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info,
-            new AnalysisOptions { MainsHz = 50, HighBandUpperHz = upperHz });
-        analysis.Push(samples);
-        var warnings = analysis.Complete().Warnings.Where(w => w.Code == "band-limit").ToList();
+        var result = Analyze(samples, new AnalysisOptions { MainsHz = 50, HighBandUpperHz = upperHz });
+        var warnings = result.Warnings.Where(w => w.Code == "band-limit").ToList();
         Assert.Equal(warned ? 1 : 0, warnings.Count);
         if (warned)
         {
@@ -311,27 +308,13 @@ public class CaptureAnalysisPathTests
     }
 
     [Fact]
-    public void An_episode_still_open_at_the_end_is_listed()
-    {
-        // A 30 mA RMS burst from 2.5 s to the end (3 s): the episode closes with the capture, 0.5 s long.
-        var samples = Synth.Make(Fs, 3, t => (t >= 2.5 ? 0.030 : 0.002) * Math.Sqrt(2) * Math.Sin(2 * Math.PI * 50 * t));
-        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info,
-            new AnalysisOptions { MainsHz = 50, HalfCycleLevelsA = [0.015] });
-        analysis.Push(samples);
-        var episode = Assert.Single(analysis.Complete().HalfCycleEpisodes!.Episodes);
-        Assert.Equal(2.5, episode.StartS, 1e-9);
-        Assert.Equal(0.5, episode.DurationS, 1e-9);
-    }
-
-    [Fact]
     public void The_result_names_the_tool_version_that_made_it()
     {
         // The version of the assembly that measured (AnalysisResult.ToolVersion), major.minor.patch, never the
         // placeholder for an assembly without one.
         var samples = Synth.Make(Fs, 2.5, t => 0.01 * Math.Sin(2 * Math.PI * 50 * t));
-        var analysis = new CaptureAnalysis(new MemoryCaptureSource(samples, Fs).Info, new AnalysisOptions());
-        analysis.Push(samples);
+        var result = Analyze(samples, new AnalysisOptions());
         var version = typeof(CaptureAnalysis).Assembly.GetName().Version!;
-        Assert.Equal($"{version.Major}.{version.Minor}.{version.Build}", analysis.Complete().ToolVersion);
+        Assert.Equal($"{version.Major}.{version.Minor}.{version.Build}", result.ToolVersion);
     }
 }
